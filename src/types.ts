@@ -1,0 +1,111 @@
+/**
+ * Data types shared by every stage.
+ *
+ * Conventions (docs/conventions.md):
+ * - one frame everywhere: millimetres, y up, origin at the lower-left corner of the grid;
+ * - cell values sit at cell centres; nodal values (an (nx+1)×(ny+1) grid) sit on cell corners;
+ * - outer rings are counter-clockwise (positive signed area), holes clockwise;
+ * - rings are implicitly closed: the last point is not a copy of the first.
+ */
+
+/** Scalar field sampled on a regular grid. Lengths in mm, y up. */
+export interface DensityGrid {
+  /** Number of samples along x (columns). For nodal grids this is cells + 1. */
+  readonly nx: number;
+  /** Number of samples along y (rows). For nodal grids this is cells + 1. */
+  readonly ny: number;
+  /** Cell size [hx, hy] in mm; square cells have hx = hy. */
+  readonly cellSize: readonly [number, number];
+  /** Lower-left corner of the domain in mm. */
+  readonly origin: readonly [number, number];
+  /** values[j * nx + i]; j counts UP from the bottom row. NaN marks a non-finite input cell. */
+  readonly values: Float64Array;
+  /** Where the samples sit: at cell centres (default) or on cell corners. */
+  readonly placement: 'cells' | 'nodes';
+}
+
+/** A point in mm, y up. */
+export type Point = readonly [x: number, y: number];
+/** A closed ring; the closing edge from the last point to the first is implicit. */
+export type Ring = readonly Point[];
+/** One piece of material: a counter-clockwise outer ring and its clockwise holes. */
+export interface Polygon {
+  readonly outer: Ring;
+  readonly holes: readonly Ring[];
+}
+/** All material of a part. Polygons never overlap; material inside a hole is a separate polygon. */
+export interface PolygonSet {
+  readonly polygons: readonly Polygon[];
+}
+
+/** Where a grid came from, as far as the report is concerned. */
+export type InputFormat = 'csv' | 'npy';
+
+/** A located finding or repair, in the report frame (mm, y up) and as a 1-based file position. */
+export interface Location {
+  x: number;
+  y: number;
+  measured: number;
+  fileRow: number;
+  fileCol: number;
+}
+
+export type Status = 'pass' | 'warn' | 'fail';
+
+export interface CheckResult {
+  id: string;
+  status: Status;
+  /** Worst value found; null when there is nothing to measure. */
+  measured: number | null;
+  limit: number;
+  unit: 'mm' | 'mm2' | '%' | '1';
+  comparison: '>=' | '<=';
+  /** ± accuracy of the method, same unit. */
+  resolution: number;
+  method: string;
+  message: string;
+  /** Worst first, at most 100. */
+  locations: Location[];
+  locationsTotal: number;
+}
+
+/** The JSON report, schemaVersion 1 (docs/report-schema.md). Fields may be added, never renamed or removed. */
+export interface Report {
+  schemaVersion: 1;
+  tool: { name: 'rhoform'; version: string };
+  input: {
+    file: string;
+    sha256: string;
+    format: InputFormat;
+    nx: number;
+    ny: number;
+    cellSize: [number, number];
+    min: number;
+    max: number;
+    mean: number;
+    greyLevel: number;
+    nonFinite: number;
+  };
+  settings: Record<string, unknown>;
+  threshold: {
+    mode: 'volume' | 'level' | 'constant';
+    level: number | null;
+    targetFraction: number;
+    achievedFraction: number;
+    pixelFraction: number;
+  };
+  geometry: {
+    polygons: number;
+    holes: number;
+    area: number;
+    perimeter: number;
+    vertices: number;
+    bbox: [number, number, number, number];
+    finalFraction: number;
+  };
+  checks: CheckResult[];
+  repairs: { id: string; area: number; locations: Location[] }[];
+  summary: { status: Status; pass: number; warn: number; fail: number };
+  outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];
+  cautions: string[];
+}
