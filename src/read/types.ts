@@ -1,0 +1,51 @@
+/**
+ * What readers take and return. Readers are pure: bytes or text in, a DensityGrid out.
+ * They do not map value ranges, clip or apply the non-finite policy (src/field/prepare.ts does);
+ * non-finite cells are kept as NaN so that prepare can locate and count them.
+ */
+import type { DensityGrid, InputFormat } from '../types.js';
+import type { Where } from '../errors.js';
+
+export interface ReadOptions {
+  /** Cell size [hx, hy] in mm. Long-form CSV infers it from the coordinates and ignores this. */
+  readonly cellSize: readonly [number, number];
+  /** 'top-down' (default): file row 1 is the top of the part (largest y). */
+  readonly rowOrder: 'top-down' | 'bottom-up';
+  /** 'cells': values at cell centres; 'nodes': values on cell corners. */
+  readonly values: 'cells' | 'nodes';
+  /** CSV only: 'auto' picks 'long' when the header names x, y and value/rho/density. */
+  readonly layout: 'grid' | 'long' | 'auto';
+  /** CSV only: ',' is the decimal separator (then ',' is never a field separator). */
+  readonly decimalComma: boolean;
+  /** Refuse a declared or counted size above this many samples, before allocating. */
+  readonly maxCells: number;
+}
+
+export const DEFAULT_READ_OPTIONS: ReadOptions = {
+  cellSize: [1, 1],
+  rowOrder: 'top-down',
+  values: 'cells',
+  layout: 'auto',
+  decimalComma: false,
+  maxCells: 50_000_000,
+};
+
+/** Position of a grid sample in the input file, for messages and report locations. */
+export interface SamplePosition {
+  /** 1-based data row and column as in the input file (row 1 = first row written). */
+  readonly fileRow: number;
+  readonly fileCol: number;
+  /** Where to point an error message: text line/column for CSV, byte offset for NPY. */
+  readonly where: Where;
+}
+
+export interface ReadResult {
+  readonly grid: DensityGrid;
+  readonly format: InputFormat;
+  /** Layout actually used (CSV 'auto' resolved; NPY is always 'grid'). */
+  readonly layout: 'grid' | 'long';
+  /** Maps a sample (i from the left, j from the bottom, in grid order) to its place in the file. */
+  readonly locate: (i: number, j: number) => SamplePosition;
+  /** Non-fatal remarks (e.g. a 3-D array with a unit axis was squeezed). */
+  readonly warnings: readonly string[];
+}
