@@ -103,9 +103,20 @@ export interface Report {
     bbox: [number, number, number, number];
     finalFraction: number;
   };
+  /** Smoothing and simplification, measured against the raw iso-contour (added in schema 1, additive). */
+  smoothing: {
+    maxDeviation: number /* mm */;
+    tolerance: number /* mm */;
+    rawArea: number /* mm² */;
+    area: number /* mm² */;
+    rawVertices: number;
+    vertices: number;
+  };
   checks: CheckResult[];
   repairs: { id: string; area: number; locations: Location[] }[];
   summary: { status: Status; pass: number; warn: number; fail: number };
   outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];
+  /** Non-fatal remarks of the run (also printed on stderr). Additive. */
+  warnings: string[];
   cautions: string[];
 }

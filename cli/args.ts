@@ -1,0 +1,163 @@
+/**
+ * Strict argv parsing (DESIGN §6). An unknown option or a bad value is a UsageError naming the option.
+ * Accepts `--name value` and `--name=value`; flags take no value.
+ */
+import { UsageError } from '../src/errors.js';
+import type { OutputFormat, Settings } from '../src/settings.js';
+
+export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'help' | 'version';
+
+export interface CliOptions {
+  outDir: string | null;
+  json: boolean;
+  force: boolean;
+  quiet: boolean;
+  color: boolean | null;
+}
+
+export interface ParsedArgs {
+  command: Command;
+  files: string[];
+  settings: Partial<Settings>;
+  cli: CliOptions;
+}
+
+type Handler = (value: string, out: ParsedArgs) => void;
+interface OptionSpec {
+  /** Takes a value. */
+  value: boolean;
+  /** Commands that accept it. */
+  commands: readonly Command[];
+  apply: Handler;
+}
+
+const GRID_CMDS: readonly Command[] = ['build', 'check', 'inspect'];
+const RUN_CMDS: readonly Command[] = ['build', 'check', 'demo'];
+const OUT_CMDS: readonly Command[] = ['build', 'check', 'demo'];
+
+function num(name: string, v: string, test: (x: number) => boolean, expected: string): number {
+  const x = v.trim() === '' ? NaN : Number(v);
+  if (!Number.isFinite(x) || !test(x)) throw new UsageError(`${name}: expected ${expected}, found ${JSON.stringify(v)}`);
+  return x;
+}
+
+function oneOf<T extends string>(name: string, v: string, allowed: readonly T[]): T {
+  if (!(allowed as readonly string[]).includes(v)) {
+    throw new UsageError(`${name}: expected one of ${allowed.join(', ')}, found ${JSON.stringify(v)}`);
+  }
+  return v as T;
+}
+
+function pair(name: string, v: string, test: (x: number) => boolean, expected: string): [number, number] {
+  const parts = v.split(',');
+  if (parts.length === 1) {
+    const x = num(name, parts[0], test, expected);
+    return [x, x];
+  }
+  if (parts.length !== 2) throw new UsageError(`${name}: expected one value or two separated by a comma, found ${JSON.stringify(v)}`);
+  return [num(name, parts[0], test, expected), num(name, parts[1], test, expected)];
+}
+
+const OPTIONS: Record<string, OptionSpec> = {
+  // input
+  'cell-size': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.cellSize = pair('--cell-size', v, (x) => x > 0, 'a cell size in mm > 0 (or hx,hy)')) },
+  'row-order': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.rowOrder = oneOf('--row-order', v, ['top-down', 'bottom-up'] as const)) },
+  values: { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.values = oneOf('--values', v, ['cells', 'nodes'] as const)) },
+  layout: { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.layout = oneOf('--layout', v, ['grid', 'long', 'auto'] as const)) },
+  'value-range': {
+    value: true,
+    commands: [...GRID_CMDS],
+    apply: (v, o) => {
+      const parts = v.split(',');
+      if (parts.length !== 2) throw new UsageError(`--value-range: expected lo,hi, found ${JSON.stringify(v)}`);
+      const lo = num('--value-range', parts[0], () => true, 'a number');
+      const hi = num('--value-range', parts[1], () => true, 'a number');
+      if (!(hi > lo)) throw new UsageError(`--value-range: expected lo < hi, found ${JSON.stringify(v)}`);
+      o.settings.valueRange = [lo, hi];
+    },
+  },
+  'decimal-comma': { value: false, commands: [...GRID_CMDS], apply: (_v, o) => (o.settings.decimalComma = true) },
+  'non-finite': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.nonFinite = oneOf('--non-finite', v, ['error', 'void'] as const)) },
+  clip: { value: false, commands: [...GRID_CMDS], apply: (_v, o) => (o.settings.clip = true) },
+  'max-cells': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.maxCells = num('--max-cells', v, (x) => Number.isInteger(x) && x >= 1, 'a whole number ≥ 1')) },
+  // geometry
+  'volume-fraction': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.volumeFraction = num('--volume-fraction', v, (x) => x >= 0 && x <= 1, 'a fraction from 0 to 1')) },
+  'volume-tolerance': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.volumeTolerance = num('--volume-tolerance', v, (x) => x > 0 && x < 1, 'a relative tolerance > 0 and < 1')) },
+  level: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.level = num('--level', v, () => true, 'a number (iso-level after --value-range mapping, usually 0..1)')) },
+  saddle: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.saddle = oneOf('--saddle', v, ['decider', 'join', 'split'] as const)) },
+  smooth: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.smooth = num('--smooth', v, (x) => Number.isInteger(x) && x >= 0 && x <= 1000, 'a whole number of iterations from 0 to 1000')) },
+  tolerance: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.tolerance = num('--tolerance', v, (x) => x >= 0, 'a length in mm ≥ 0')) },
+  // output
+  'out-dir': { value: true, commands: [...OUT_CMDS], apply: (v, o) => (o.cli.outDir = v) },
+  formats: {
+    value: true,
+    commands: ['build', 'demo'],
+    apply: (v, o) => {
+      const list = v.split(',').map((f) => oneOf('--formats', f.trim(), ['dxf', 'svg', 'json', 'html'] as const));
+      o.settings.formats = [...new Set<OutputFormat>(list)];
+    },
+  },
+  units: { value: true, commands: ['build', 'demo'], apply: (v, o) => (o.settings.units = oneOf('--units', v, ['mm', 'in'] as const)) },
+  json: { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.json = true) },
+  force: { value: false, commands: [...OUT_CMDS], apply: (_v, o) => (o.cli.force = true) },
+  quiet: { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.quiet = true) },
+  'no-color': { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.color = false) },
+};
+
+const COMMANDS: readonly Command[] = ['build', 'check', 'inspect', 'demo'];
+
+/** Parse argv (without node and script). Throws UsageError. */
+export function parseArgs(argv: readonly string[]): ParsedArgs {
+  const out: ParsedArgs = {
+    command: 'help',
+    files: [],
+    settings: {},
+    cli: { outDir: null, json: false, force: false, quiet: false, color: null },
+  };
+  if (argv.length === 0) return out;
+  const first = argv[0];
+  if (first === '--help' || first === '-h' || first === 'help') return out;
+  if (first === '--version' || first === '-V') return { ...out, command: 'version' };
+  if (!(COMMANDS as readonly string[]).includes(first)) {
+    throw new UsageError(`expected a command (${COMMANDS.join(', ')}), found ${JSON.stringify(first)}; see rhoform --help`);
+  }
+  out.command = first as Command;
+  let onlyFiles = false;
+  for (let k = 1; k < argv.length; k++) {
+    const a = argv[k];
+    if (onlyFiles || !a.startsWith('--') || a === '-') {
+      if (a.startsWith('-') && a !== '-' && !onlyFiles) throw new UsageError(`unknown option ${JSON.stringify(a)}; see rhoform --help`);
+      out.files.push(a);
+      continue;
+    }
+    if (a === '--') {
+      onlyFiles = true;
+      continue;
+    }
+    if (a === '--help') return { ...out, command: 'help' };
+    const eq = a.indexOf('=');
+    const name = eq >= 0 ? a.slice(2, eq) : a.slice(2);
+    const spec = OPTIONS[name];
+    if (!spec) throw new UsageError(`unknown option --${name}; see rhoform --help`);
+    if (!spec.commands.includes(out.command)) throw new UsageError(`option --${name} does not apply to '${out.command}'`);
+    let value = '';
+    if (spec.value) {
+      if (eq >= 0) value = a.slice(eq + 1);
+      else {
+        if (k + 1 >= argv.length) throw new UsageError(`--${name}: expected a value, found the end of the command line`);
+        value = argv[++k];
+      }
+    } else if (eq >= 0) {
+      throw new UsageError(`--${name} takes no value, found ${JSON.stringify(a.slice(eq + 1))}`);
+    }
+    spec.apply(value, out);
+  }
+  if (out.command === 'demo') {
+    if (out.files.length > 0) throw new UsageError(`demo takes no grid file, found ${JSON.stringify(out.files[0])}`);
+  } else if (out.files.length !== 1) {
+    throw new UsageError(
+      out.files.length === 0 ? `${out.command}: expected a grid file (CSV or NPY), found none` : `${out.command}: expected one grid file, found ${out.files.length}`,
+    );
+  }
+  return out;
+}

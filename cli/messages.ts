@@ -1,0 +1,43 @@
+/** User-facing texts of the CLI. */
+import { VERSION } from '../src/version.js';
+
+export const HELP = `rhoform ${VERSION} — density grids to clean, closed, volume-preserving outlines
+
+Usage:
+  rhoform build   <grid> [options]   grid → DXF + SVG + report (the main job)
+  rhoform check   <grid> [options]   the same run, report only, no geometry files
+  rhoform inspect <grid> [--json]    size, range, mean, M_nd, grey share, non-finite count, histogram
+  rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/
+  rhoform --help | --version
+
+Input:
+  --cell-size <mm>|<hx>,<hy>   cell size in mm (default 1, and the report says so)
+  --row-order top-down|bottom-up   file row 1 is the top of the part (default top-down)
+  --values cells|nodes         samples at cell centres (default) or on cell corners
+  --layout grid|long|auto      CSV: a grid of values, or columns x, y, value (default auto)
+  --value-range <lo>,<hi>      map lo..hi to 0..1 (default 0,1; e.g. 0,255)
+  --decimal-comma              CSV: ',' is the decimal mark
+  --non-finite error|void      NaN/Inf cells: refuse (default) or treat as void
+  --clip                       clip values beyond the range (an overshoot ≤ 0.05 is always clipped)
+  --max-cells <n>              refuse larger grids before reading them (default 50000000)
+Geometry:
+  --volume-fraction <0..1>     target solid fraction (default: the mean density)
+  --volume-tolerance <rel>     relative tolerance on the smoothed area (default 0.001)
+  --level <v>                  fixed iso-level instead of the volume-preserving search
+  --saddle decider|join|split  saddle rule of marching squares (default decider)
+  --smooth <n>                 Taubin λ|μ iterations (default 2; 0 = off)
+  --tolerance <mm>             largest deviation of the final outline from the raw contour (default 0.25 cell)
+Output:
+  --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo)
+  --formats dxf,svg,json,html  which files to write (default: all four)
+  --units mm|in                DXF/SVG units (the report is always in mm)
+  --json                       print the JSON report on stdout and nothing else
+  --force                      replace existing output files
+  --quiet                      no summary on stdout
+  --no-color                   no colour (also NO_COLOR)
+
+Exit codes: 0 every check passed, 1 a check failed (geometry still written), 2 bad input, usage or output error.
+
+Caution: re-analyse the final geometry before use; process limits are generic defaults; defer to local codes,
+the fabricator and licensed engineering practice.
+`;

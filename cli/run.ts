@@ -1,0 +1,176 @@
+/**
+ * The commands. Returns an exit code and never calls process.exit (cli/main.ts sets process.exitCode).
+ * stdout carries only the product (summary or JSON); warnings and errors go to stderr.
+ */
+import { existsSync } from 'node:fs';
+import { basename, dirname, extname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { RhoformError } from '../src/errors.js';
+import { build, inspect } from '../src/pipeline.js';
+import { formatHtml } from '../src/report/html.js';
+import { formatJson } from '../src/report/json.js';
+import { fmt } from '../src/report/number.js';
+import { formatText } from '../src/report/text.js';
+import { resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
+import type { Report } from '../src/types.js';
+import { VERSION } from '../src/version.js';
+import { parseArgs, type ParsedArgs } from './args.js';
+import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { HELP } from './messages.js';
+
+export interface Io {
+  stdout(text: string): void;
+  stderr(text: string): void;
+  /** Whether stdout is a terminal (for colour). */
+  readonly isTTY: boolean;
+  readonly env: Readonly<Record<string, string | undefined>>;
+  readonly cwd: string;
+}
+
+/** Exit codes of DESIGN §6. */
+export const EXIT_OK = 0;
+export const EXIT_CHECK_FAILED = 1;
+export const EXIT_ERROR = 2;
+
+const here = dirname(fileURLToPath(import.meta.url));
+/** The package root, from src (cli/) or from the compiled dist/cli/. */
+function packageRoot(): string {
+  for (const up of ['..', '../..']) {
+    const root = resolve(here, up);
+    if (existsSync(join(root, 'package.json'))) return root;
+  }
+  return resolve(here, '..');
+}
+
+/** The bundled demo: a grid of our own scenario and the settings it is meant to be built with. */
+export const DEMO = {
+  file: 'fixtures/grids/demo-bracket.npy',
+  settings: { cellSize: [2, 2] } as Partial<Settings>,
+};
+
+const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
+
+function stem(file: string): string {
+  const b = basename(file);
+  const ext = extname(b);
+  return ext ? b.slice(0, -ext.length) : b;
+}
+
+function useColor(args: ParsedArgs, io: Io): boolean {
+  if (args.cli.color === false) return false;
+  if (io.env.NO_COLOR !== undefined && io.env.NO_COLOR !== '') return false;
+  return io.isTTY;
+}
+
+function finishReport(report: Report): number {
+  return report.summary.fail > 0 ? EXIT_CHECK_FAILED : EXIT_OK;
+}
+
+function runBuild(args: ParsedArgs, io: Io, opts: { file: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
+  const settings = resolveSettings(args.settings);
+  const inputPath = resolve(io.cwd, opts.file);
+  const bytes = readInput(inputPath);
+  const result = build({ name: opts.file, bytes }, settings);
+  const report = result.report;
+  const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
+  const base = join(resolve(io.cwd, opts.outDir), stem(opts.file));
+  const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
+  report.outputs = paths.map((p) => ({ file: p.path, format: p.format }));
+  const planned: PlannedOutput[] = [];
+  let svg: string | undefined;
+  for (const p of paths) {
+    let content: string;
+    if (p.format === 'dxf') content = result.dxf();
+    else if (p.format === 'svg') content = svg ??= result.svg();
+    else if (p.format === 'json') content = formatJson(report);
+    else content = formatHtml(report, { outlineSvg: (svg ??= result.svg()) });
+    planned.push({ path: p.path, content });
+  }
+  writeOutputsAtomically(planned, [inputPath], opts.force);
+  for (const w of result.warnings) io.stderr(`rhoform: warning: ${w}\n`);
+  if (args.cli.json) io.stdout(formatJson(report));
+  else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args, io) }));
+  return finishReport(report);
+}
+
+function runInspect(args: ParsedArgs, io: Io): number {
+  const settings = resolveSettings(args.settings);
+  const file = args.files[0];
+  const bytes = readInput(resolve(io.cwd, file));
+  const r = inspect({ name: file, bytes }, settings);
+  for (const w of r.warnings) io.stderr(`rhoform: warning: ${w}\n`);
+  if (args.cli.json) {
+    io.stdout(formatJson({ schemaVersion: r.schemaVersion, tool: r.tool, input: r.input, histogram: r.histogram }));
+    return EXIT_OK;
+  }
+  if (args.cli.quiet) return EXIT_OK;
+  const i = r.input;
+  const [hx, hy] = i.cellSize;
+  const maxCount = Math.max(1, ...r.histogram.counts);
+  const lines = [
+    `file        ${i.file} (${i.format.toUpperCase()})`,
+    `size        ${i.nx} × ${i.ny} = ${i.nx * i.ny} values, cell ${hx === hy ? fmt(hx) : `${fmt(hx)} × ${fmt(hy)}`} mm${settings.cellSizeDefaulted ? ' (default)' : ''}`,
+    `range       ${fmt(i.min, 6)} … ${fmt(i.max, 6)}`,
+    `mean        ${fmt(i.mean, 6)} (the default volume fraction)`,
+    `grey level  M_nd ${fmt(i.greyLevel, 4)} % (Sigmund 2007); grey cells (0.1 < ρ < 0.9) ${(100 * r.greyShare).toFixed(1)} %`,
+    `non-finite  ${i.nonFinite}`,
+    'histogram',
+    ...r.histogram.counts.map((c, b) => {
+      const bar = '█'.repeat(Math.round((40 * c) / maxCount));
+      return `  ${r.histogram.edges[b].toFixed(1)}–${r.histogram.edges[b + 1].toFixed(1)} ${String(c).padStart(9)} ${bar}`;
+    }),
+  ];
+  io.stdout(`${lines.join('\n')}\n`);
+  return EXIT_OK;
+}
+
+function runDemo(args: ParsedArgs, io: Io): number {
+  const root = packageRoot();
+  const file = join(root, DEMO.file);
+  const outDir = args.cli.outDir ?? 'rhoform-demo';
+  const demoArgs: ParsedArgs = { ...args, settings: { ...DEMO.settings, ...args.settings } };
+  // The demo replaces its own earlier output (and only that): the same names in its own folder.
+  const code = runBuild(demoArgs, io, { file, writeGeometry: true, force: true, outDir });
+  if (!args.cli.json && !args.cli.quiet) {
+    io.stdout(`\nThe demo grid is ${DEMO.file} (see fixtures/grids/demo-bracket.md); its files are in ${resolve(io.cwd, outDir)}\n`);
+  }
+  return code;
+}
+
+/** Run one command line; returns the exit code. */
+export function run(argv: readonly string[], io: Io): number {
+  let args: ParsedArgs;
+  try {
+    args = parseArgs(argv);
+    switch (args.command) {
+      case 'help':
+        io.stdout(HELP);
+        return EXIT_OK;
+      case 'version':
+        io.stdout(`${VERSION}\n`);
+        return EXIT_OK;
+      case 'inspect':
+        return runInspect(args, io);
+      case 'demo': {
+        const code = runDemo(args, io);
+        return code === EXIT_ERROR ? code : EXIT_OK;
+      }
+      case 'build':
+      case 'check':
+        return runBuild(args, io, {
+          file: args.files[0],
+          writeGeometry: args.command === 'build',
+          force: args.cli.force,
+          outDir: args.cli.outDir ?? '.',
+        });
+    }
+  } catch (e) {
+    if (e instanceof RhoformError) {
+      io.stderr(`rhoform: error ${e.code}: ${e.message}\n`);
+      return EXIT_ERROR;
+    }
+    const err = e as Error;
+    io.stderr(`rhoform: internal error: ${err?.stack ?? String(e)}\nPlease report this with the input file and the command line.\n`);
+    return EXIT_ERROR;
+  }
+}

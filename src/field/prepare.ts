@@ -1,0 +1,124 @@
+/**
+ * Prepare a raw grid for thresholding: map the value range to 0..1, apply the non-finite policy, and clip.
+ *
+ * - `valueRange` [lo, hi] maps linearly to [0, 1] (e.g. 0,255 for 8-bit images).
+ * - A mapped value below −overshoot or above 1 + overshoot is an error (E_GRID_RANGE) unless `clip` is set;
+ *   smaller overshoots (filter ringing, solver round-off) are clipped with a warning.
+ * - Non-finite samples: 'error' (E_GRID_NONFINITE naming the first in file order and the count) or 'void' (set to 0).
+ *
+ * The result is a new grid; the input is never modified. Sample placement and frame are unchanged.
+ */
+import { RhoformError } from '../errors.js';
+import type { SamplePosition } from '../read/types.js';
+import type { DensityGrid } from '../types.js';
+
+/** Overshoot outside [0, 1] that is clipped with a warning rather than refused. */
+export const RANGE_OVERSHOOT = 0.05;
+
+export interface PrepareOptions {
+  readonly valueRange: readonly [number, number];
+  readonly clip: boolean;
+  readonly nonFinite: 'error' | 'void';
+}
+
+export interface PrepareResult {
+  readonly grid: DensityGrid;
+  /** Samples that were non-finite (set to 0 under 'void'). */
+  readonly nonFinite: number;
+  /** Samples clipped into [0, 1]. */
+  readonly clipped: number;
+  readonly warnings: string[];
+}
+
+type Locate = (i: number, j: number) => SamplePosition;
+
+/** Grid indices in the order they appear in a grid-layout file (row 1 first). */
+function* fileOrder(grid: DensityGrid, locate: Locate): Generator<number> {
+  const { nx, ny } = grid;
+  // Decide the direction from the file position of the first and last row, which works for either row order.
+  const topFirst = ny < 2 || locate(0, ny - 1).fileRow < locate(0, 0).fileRow;
+  for (let r = 0; r < ny; r++) {
+    const j = topFirst ? ny - 1 - r : r;
+    for (let i = 0; i < nx; i++) yield j * nx + i;
+  }
+}
+
+function fmt(x: number): string {
+  return Number.isFinite(x) ? String(+x.toPrecision(6)) : String(x);
+}
+
+/** Apply the range mapping, non-finite policy and clipping. Throws RhoformError (exit code 2) on refusal. */
+export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareOptions): PrepareResult {
+  const [lo, hi] = options.valueRange;
+  if (!Number.isFinite(lo) || !Number.isFinite(hi) || !(hi > lo)) {
+    throw new RhoformError('E_USAGE', `--value-range: expected lo,hi with lo < hi, found ${lo},${hi}`);
+  }
+  const src = grid.values;
+  const n = src.length;
+  const out = new Float64Array(n);
+  const scale = 1 / (hi - lo);
+  let nonFinite = 0;
+  let firstNonFinite = -1;
+  let over = 0;
+  let worst = -1;
+  let worstExcess = 0;
+  let clipped = 0;
+  for (let k = 0; k < n; k++) {
+    const raw = src[k];
+    if (!Number.isFinite(raw)) {
+      nonFinite++;
+      if (firstNonFinite < 0) firstNonFinite = k;
+      out[k] = 0;
+      continue;
+    }
+    const v = (raw - lo) * scale;
+    if (v < 0 || v > 1) {
+      clipped++;
+      const excess = v < 0 ? -v : v - 1;
+      if (excess > RANGE_OVERSHOOT + 1e-12) {
+        over++;
+        if (excess > worstExcess) {
+          worstExcess = excess;
+          worst = k;
+        }
+      }
+      out[k] = v < 0 ? 0 : 1;
+    } else {
+      out[k] = v;
+    }
+  }
+  const warnings: string[] = [];
+  if (nonFinite > 0) {
+    if (options.nonFinite === 'error') {
+      // Point at the first non-finite sample in file order, not grid order.
+      let first = firstNonFinite;
+      for (const k of fileOrder(grid, locate)) {
+        if (!Number.isFinite(src[k])) {
+          first = k;
+          break;
+        }
+      }
+      const pos = locate(first % grid.nx, Math.floor(first / grid.nx));
+      throw new RhoformError(
+        'E_GRID_NONFINITE',
+        `expected finite densities, found ${fmt(src[first])} (${nonFinite} non-finite value${nonFinite === 1 ? '' : 's'} in all; use --non-finite void to treat them as void)`,
+        pos.where,
+      );
+    }
+    warnings.push(`${nonFinite} non-finite value${nonFinite === 1 ? '' : 's'} treated as void (--non-finite void)`);
+  }
+  if (over > 0) {
+    if (!options.clip) {
+      const pos = locate(worst % grid.nx, Math.floor(worst / grid.nx));
+      throw new RhoformError(
+        'E_GRID_RANGE',
+        `expected values within ${fmt(lo)}..${fmt(hi)} (overshoot up to ${RANGE_OVERSHOOT} of the range is clipped), found ${fmt(src[worst])} (${over} value${over === 1 ? '' : 's'} beyond that; use --clip to clip them, or --value-range)`,
+        pos.where,
+      );
+    }
+    warnings.push(`${clipped} value${clipped === 1 ? '' : 's'} outside ${fmt(lo)}..${fmt(hi)} clipped (--clip)`);
+  } else if (clipped > 0) {
+    warnings.push(`${clipped} value${clipped === 1 ? '' : 's'} slightly outside ${fmt(lo)}..${fmt(hi)} (≤ ${RANGE_OVERSHOOT} of the range) clipped`);
+  }
+  return { grid: { ...grid, values: out }, nonFinite, clipped, warnings };
+}

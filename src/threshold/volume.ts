@@ -1,0 +1,63 @@
+/**
+ * Volume-preserving threshold on the area of the SMOOTHED polygons (DESIGN §4).
+ *
+ * The raw region area A(L) is found cell by cell (./search.ts). Smoothing and simplification then change the
+ * area by a small amount δ that hardly depends on the level near the answer, so the search aims the raw area at
+ * target − δ and repeats with the δ measured on the smoothed result — a fixed-point iteration that needs one
+ * full contour + smooth per step (normally one or two), never one per bisection step.
+ *
+ * The idea of choosing the threshold so that the binary design keeps the grey design's volume is that of
+ * S. Xu, Y. Cai, G. Cheng, "Volume preserving nonlinear density filter based on Heaviside functions",
+ * Struct. Multidisc. Optim. 41(4):495–505, 2010, DOI 10.1007/s00158-009-0452-7, in the limit β → ∞; here it is
+ * applied to the polygon area rather than to the count of cells.
+ */
+import { levelForArea, type LevelAreaModel } from './search.js';
+
+/** What one full build at a level yields. */
+export interface BuildAtLevel<T> {
+  /** Area of the smoothed polygons, mm². */
+  readonly area: number;
+  /** Area of the raw region, mm² (the same quantity the search works on). */
+  readonly rawArea: number;
+  readonly value: T;
+}
+
+export interface VolumeLevelResult<T> {
+  readonly level: number;
+  readonly build: BuildAtLevel<T>;
+  /** Full builds made (contour + smooth). */
+  readonly builds: number;
+  /** |smoothed area − target| / target at the answer. */
+  readonly relativeError: number;
+}
+
+/**
+ * Choose the level so that the smoothed area equals `targetArea` within `relTol` (relative).
+ * `build(level)` contours and smooths at a level. At most `maxBuilds` builds; the best one is returned.
+ */
+export function volumeLevel<T>(
+  model: LevelAreaModel,
+  targetArea: number,
+  relTol: number,
+  build: (level: number) => BuildAtLevel<T>,
+  maxBuilds = 6,
+): VolumeLevelResult<T> {
+  let aim = targetArea;
+  let best: { level: number; build: BuildAtLevel<T>; err: number } | undefined;
+  let builds = 0;
+  const scale = targetArea > 0 ? targetArea : 1;
+  for (; builds < maxBuilds; ) {
+    const raw = levelForArea(model, aim, 1e-9);
+    const b = build(raw.level);
+    builds++;
+    const err = Math.abs(b.area - targetArea) / scale;
+    if (!best || err < best.err) best = { level: raw.level, build: b, err };
+    if (err <= relTol) break;
+    // Smoothing changed the area by (b.area − b.rawArea): aim the raw area so that the smoothed one hits the target.
+    const nextAim = aim - (b.area - targetArea);
+    if (!(Math.abs(nextAim - aim) > 1e-12 * scale)) break;
+    aim = nextAim;
+  }
+  if (!best) throw new Error('volumeLevel: no build made');
+  return { level: best.level, build: best.build, builds, relativeError: best.err };
+}
