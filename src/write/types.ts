@@ -1,0 +1,52 @@
+/**
+ * Input of the geometry writers (DXF, SVG).
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
+ * The writers convert to the output units themselves; the SVG writer does the only y-down flip of the tool.
+ */
+import type { PolygonSet, Ring } from '../types.js';
+
+/** Layers a caller may add beside the part. */
+export type ExtraLayer = 'passive' | 'finding' | 'repair';
+
+/** A circle in mm, y up: centre (x, y), radius r > 0. */
+export interface WriterCircle {
+  readonly x: number;
+  readonly y: number;
+  readonly r: number;
+}
+
+/** A labelled point in mm, y up (a finding or a repair site). */
+export interface WriterMarker {
+  readonly x: number;
+  readonly y: number;
+  readonly label: string;
+}
+
+/** Extra geometry drawn on one named layer. */
+export interface WriterExtra {
+  readonly layer: ExtraLayer;
+  /** Closed rings (implicitly closed, any orientation), mm, y up. */
+  readonly rings?: readonly Ring[];
+  /** True circles, mm, y up. */
+  readonly circles?: readonly WriterCircle[];
+  /** Labelled points, mm, y up. */
+  readonly markers?: readonly WriterMarker[];
+}
+
+export interface WriterInput {
+  /** The part in mm, y up; outer rings counter-clockwise, holes clockwise; rings implicitly closed. */
+  polygons: PolygonSet;
+  /** The domain rectangle in mm (y up); sets the drawing extents and the SVG page. */
+  domain: readonly [minX: number, minY: number, maxX: number, maxY: number];
+  /** Output units: coordinates are divided by 25.4 for 'in'. */
+  units: 'mm' | 'in';
+  /** Optional extra layers; each entry drawn as closed rings, circles or labelled points on the named layer. */
+  extras?: readonly WriterExtra[];
+  /**
+   * Optional pre-rendered SVG markup (for example a `<g>` holding the density image) embedded verbatim under
+   * the part. It must already be in the SVG frame: output units, x as in the model, y' = maxY − y.
+   * Ignored by the DXF writer.
+   */
+  svgUnderlay?: string;
+}
