@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import { levelForArea, type LevelAreaModel } from '../../src/threshold/search.js';
+import { volumeLevel } from '../../src/threshold/volume.js';
+
+/**
+ * An analytic model: cell c spans the values [lo_c, lo_c + w]; the part at or above L covers the share
+ * (hi − L)/(hi − lo) of its unit area (a linear ramp across the cell). A(L) is then known in closed form.
+ */
+function rampModel(los: number[], w: number): LevelAreaModel {
+  const cellMin = Float64Array.from(los);
+  const cellMax = Float64Array.from(los.map((l) => l + w));
+  return {
+    cellCount: los.length,
+    cellMin,
+    cellMax,
+    fullArea: () => 1,
+    cellArea: (c, L) => Math.min(1, Math.max(0, (cellMax[c] - L) / w)),
+  };
+}
+
+describe('level search on the raw region area', () => {
+  it('finds the level of a linear ramp (analytic: A(L) = Σ (hi−L)/w)', () => {
+    // 100 cells with lo = k/100 and width 0.2; the area at L is an analytic sum; check A(level) = target.
+    const los = Array.from({ length: 100 }, (_, k) => k / 100);
+    const m = rampModel(los, 0.2);
+    const exact = (L: number) => los.reduce((a, lo) => a + Math.min(1, Math.max(0, (lo + 0.2 - L) / 0.2)), 0);
+    for (const target of [5, 37.25, 50, 93]) {
+      const r = levelForArea(m, target);
+      expect(Math.abs(exact(r.level) - target)).toBeLessThan(1e-6 * target);
+    }
+  });
+  it('returns the ends of the range when the target is out of reach', () => {
+    const m = rampModel([0, 0.5], 0.5);
+    expect(levelForArea(m, 5).level).toBe(0);
+    expect(levelForArea(m, 0).level).toBe(1);
+  });
+});
+
+describe('volume-preserving level on the smoothed area', () => {
+  it('corrects for a smoothing that removes a fixed area (fixed-point on the raw target)', () => {
+    const los = Array.from({ length: 100 }, (_, k) => k / 100);
+    const m = rampModel(los, 0.2);
+    const raw = (L: number) => los.reduce((a, lo) => a + Math.min(1, Math.max(0, (lo + 0.2 - L) / 0.2)), 0);
+    // A smoothing that shrinks every result by 0.8 area units: the answer must aim the raw area 0.8 higher.
+    const r = volumeLevel(m, 40, 1e-4, (L) => ({ area: raw(L) - 0.8, rawArea: raw(L), value: L }));
+    expect(Math.abs(r.build.area - 40) / 40).toBeLessThanOrEqual(1e-4);
+    expect(r.builds).toBeLessThanOrEqual(3);
+  });
+});
