@@ -1,0 +1,64 @@
+/**
+ * Signed area and perimeter of rings (shoelace formula). Coordinates in mm, y up.
+ * Counter-clockwise rings (outer boundaries) have positive area, clockwise rings (holes) negative,
+ * so the area of a polygon is the plain sum over its outer ring and its holes.
+ */
+import type { Polygon, PolygonSet, Ring } from '../types.js';
+
+/** Signed area in mm² of an implicitly closed ring: > 0 counter-clockwise, < 0 clockwise. */
+export function ringArea(ring: Ring): number {
+  const n = ring.length;
+  if (n < 3) return 0;
+  // shoelace, with coordinates taken relative to the first vertex to limit cancellation far from the origin
+  const [x0, y0] = ring[0];
+  let s = 0;
+  let px = ring[1][0] - x0;
+  let py = ring[1][1] - y0;
+  for (let k = 2; k < n; k++) {
+    const qx = ring[k][0] - x0;
+    const qy = ring[k][1] - y0;
+    s += px * qy - qx * py;
+    px = qx;
+    py = qy;
+  }
+  return 0.5 * s;
+}
+
+/** Length in mm of an implicitly closed ring, closing edge included. */
+export function ringPerimeter(ring: Ring): number {
+  const n = ring.length;
+  if (n < 2) return 0;
+  let s = 0;
+  let [px, py] = ring[n - 1];
+  for (let k = 0; k < n; k++) {
+    const [x, y] = ring[k];
+    s += Math.hypot(x - px, y - py);
+    px = x;
+    py = y;
+  }
+  return s;
+}
+
+/** Net area in mm² of a polygon: its outer ring minus its holes (assuming the documented orientations). */
+export function polygonArea(p: Polygon): number {
+  let a = ringArea(p.outer);
+  for (const h of p.holes) a += ringArea(h);
+  return a;
+}
+
+/** Net area in mm² of every polygon of a set. */
+export function polygonSetArea(set: PolygonSet): number {
+  let a = 0;
+  for (const p of set.polygons) a += polygonArea(p);
+  return a;
+}
+
+/** Total boundary length in mm (outer rings and holes) of a set. */
+export function polygonSetPerimeter(set: PolygonSet): number {
+  let s = 0;
+  for (const p of set.polygons) {
+    s += ringPerimeter(p.outer);
+    for (const h of p.holes) s += ringPerimeter(h);
+  }
+  return s;
+}
