@@ -118,6 +118,8 @@ export interface BuildResult {
   readonly raw: PolygonSet;
   readonly smoothed: SmoothResult;
   readonly warnings: string[];
+  /** Milliseconds spent per stage (read, prepare, threshold = search + contour + smooth). */
+  readonly timings: Readonly<Record<string, number>>;
   /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
   dxf(): string;
   svg(): string;
@@ -125,9 +127,18 @@ export interface BuildResult {
 
 /** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
 export function build(input: InputFile, s: Settings): BuildResult {
+  const timings: Record<string, number> = {};
+  let t0 = performance.now();
+  const lap = (name: string) => {
+    const t = performance.now();
+    timings[name] = (timings[name] ?? 0) + (t - t0);
+    t0 = t;
+  };
   const read = loadGrid(input, s);
+  lap('read');
   const desc = describeInput(input, read, s);
   const prep = prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite });
+  lap('prepare');
   const grid = prep.grid;
   const warnings = [...read.warnings, ...prep.warnings];
   const domain = gridDomain(grid);
@@ -144,9 +155,16 @@ export function build(input: InputFile, s: Settings): BuildResult {
   let level: number | null;
   let raw: PolygonSet;
   let smoothed: SmoothResult;
+  let tContour = 0;
+  let tSmooth = 0;
   const contourAt = (L: number) => {
+    const a = performance.now();
     const r = contourGrid(grid, L, s.saddle);
-    return { raw: r, sm: smoothPolygons(r, smoothOpts) };
+    const b = performance.now();
+    const sm = smoothPolygons(r, smoothOpts);
+    tContour += b - a;
+    tSmooth += performance.now() - b;
+    return { raw: r, sm };
   };
   if (constant && s.level === null) {
     mode = 'constant';
@@ -175,6 +193,10 @@ export function build(input: InputFile, s: Settings): BuildResult {
     level = found.level;
     ({ raw, sm: smoothed } = found.build.value);
   }
+  lap('threshold');
+  timings.threshold -= tContour + tSmooth;
+  timings.contour = tContour;
+  timings.smooth = tSmooth;
   if (smoothed.polygons.polygons.length === 0 && mode !== 'constant' && target > 0) warnings.push('the part is empty at this level');
 
   let pixels = 0;
@@ -219,6 +241,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
     raw,
     smoothed,
     warnings,
+    timings,
     dxf: () => writeDxf(writerInput),
     svg: () => writeSvg(writerInput),
   };

@@ -1,0 +1,33 @@
+/** Bench child: one build in this process, printing stage times (ms), wall time and peak RSS as JSON. */
+import { readFileSync } from 'node:fs';
+import { build } from '../../src/pipeline.js';
+import { formatJson } from '../../src/report/json.js';
+import { resolveSettings } from '../../src/settings.js';
+
+const [file] = process.argv.slice(2);
+const t0 = performance.now();
+const bytes = readFileSync(file);
+const readFile = performance.now() - t0;
+const r = build({ name: file, bytes }, resolveSettings({}));
+const timings: Record<string, number> = { ...r.timings };
+timings.read += readFile;
+let t = performance.now();
+const dxf = r.dxf();
+timings.dxf = performance.now() - t;
+t = performance.now();
+const svg = r.svg();
+timings.svg = performance.now() - t;
+t = performance.now();
+const json = formatJson(r.report);
+timings.json = performance.now() - t;
+void dxf.length;
+void svg.length;
+void json.length;
+console.log(
+  JSON.stringify({
+    timings,
+    wallMs: performance.now() - t0,
+    maxRssMb: process.resourceUsage().maxRSS / 1024,
+    vertices: r.report.geometry.vertices,
+  }),
+);
