@@ -1,0 +1,21 @@
+/** rhoform as a library: re-exports only. */
+export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat } from './types.js';
+export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
+export { DEFAULT_SETTINGS, resolveSettings, type Settings, type OutputFormat, type SaddleRuleName } from './settings.js';
+export { build, inspect, loadGrid, type BuildResult, type InspectResult, type InputFile } from './pipeline.js';
+export { readGrid, detectFormat } from './read/detect.js';
+export { readCsv } from './read/csv.js';
+export { readNpy } from './read/npy.js';
+export type { ReadOptions, ReadResult, SamplePosition } from './read/types.js';
+export { fieldStats, histogram, type FieldStats, type Histogram } from './field/stats.js';
+export { prepareGrid, type PrepareOptions, type PrepareResult } from './field/prepare.js';
+export { levelForArea, type LevelAreaModel } from './threshold/search.js';
+export { volumeLevel } from './threshold/volume.js';
+export { contourGrid } from './contour/index.js';
+export { smoothPolygons, type SmoothOptions, type SmoothResult } from './smooth/smooth.js';
+export { writeDxf } from './write/dxf.js';
+export { writeSvg } from './write/svg.js';
+export { formatJson } from './report/json.js';
+export { formatText } from './report/text.js';
+export { formatHtml } from './report/html.js';
+export { VERSION } from './version.js';
