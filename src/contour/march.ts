@@ -1,0 +1,193 @@
+/**
+ * Marching squares over the contour lattice (./lattice.ts, plus a −∞ node at each end of each axis):
+ * finds every edge crossing of the level once, and links the crossings into directed boundary segments
+ * through an Int32Array `next` (crossing id → following crossing id). Memory is O(one lattice row + boundary).
+ *
+ * Method: W.E. Lorensen, H.E. Cline, "Marching Cubes: A High Resolution 3D Surface Construction Algorithm",
+ * SIGGRAPH '87, DOI 10.1145/37401.37422, in two dimensions; saddles per ./saddle.ts.
+ */
+import type { DensityGrid } from '../types.js';
+import type { GridLattice } from './lattice.js';
+import { fillRow } from './lattice.js';
+import { crossing, ENTRY_EDGE, EXIT_EDGE, joinsSolid, type SaddleRule } from './saddle.js';
+
+/** The crossings of one level and how they link up. Coordinates in mm, y up. */
+export interface Crossings {
+  /** Number of crossings. */
+  readonly count: number;
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  /** Following crossing along the boundary (solid on the left); every crossing has exactly one. */
+  readonly next: Int32Array;
+  /**
+   * For a crossing on a horizontal lattice edge: 2·i + (1 if the left node is solid), i = the edge's column
+   * in the contour lattice; −1 for a crossing on a vertical edge.
+   */
+  readonly hKey: Int32Array;
+  /** Crossings on horizontal edges of contour-lattice row j are the ids hStart[j] … hEnd[j] − 1, in x order. */
+  readonly hStart: Int32Array;
+  readonly hEnd: Int32Array;
+}
+
+/** Growable typed-array store of crossings. */
+class Store {
+  n = 0;
+  x: Float64Array;
+  y: Float64Array;
+  next: Int32Array;
+  hKey: Int32Array;
+  constructor(cap: number) {
+    this.x = new Float64Array(cap);
+    this.y = new Float64Array(cap);
+    this.next = new Int32Array(cap);
+    this.hKey = new Int32Array(cap);
+  }
+  add(x: number, y: number, hKey: number): number {
+    if (this.n === this.x.length) this.grow();
+    const id = this.n++;
+    this.x[id] = x;
+    this.y[id] = y;
+    this.hKey[id] = hKey;
+    this.next[id] = -1;
+    return id;
+  }
+  private grow(): void {
+    const cap = this.x.length * 2;
+    const x = new Float64Array(cap);
+    const y = new Float64Array(cap);
+    const next = new Int32Array(cap);
+    const hKey = new Int32Array(cap);
+    x.set(this.x);
+    y.set(this.y);
+    next.set(this.next);
+    hKey.set(this.hKey);
+    this.x = x;
+    this.y = y;
+    this.next = next;
+    this.hKey = hKey;
+  }
+}
+
+/** Contour-lattice coordinates: the area-lattice nodes with the first and last repeated. */
+function padded(c: Float64Array): Float64Array {
+  const out = new Float64Array(c.length + 2);
+  out.set(c, 1);
+  out[0] = c[0];
+  out[out.length - 1] = c[c.length - 1];
+  return out;
+}
+
+/**
+ * Marching squares at `level` (solid: value ≥ level; NaN void). Returns the crossings and their links.
+ * `lat` must be gridLattice(grid).
+ */
+export function march(grid: DensityGrid, lat: GridLattice, level: number, rule: SaddleRule): Crossings {
+  const L = level;
+  const xs = padded(lat.x.coords);
+  const ys = padded(lat.y.coords);
+  const NX = xs.length;
+  const NY = ys.length;
+  const st = new Store(Math.max(1024, 4 * (NX + NY)));
+  let lo = new Float64Array(NX).fill(-Infinity);
+  let hi = new Float64Array(NX).fill(-Infinity);
+  let sLo = new Uint8Array(NX);
+  let sHi = new Uint8Array(NX);
+  let hLo = new Int32Array(NX - 1);
+  let hHi = new Int32Array(NX - 1);
+  const vRow = new Int32Array(NX);
+  const hStart = new Int32Array(NY);
+  const hEnd = new Int32Array(NY);
+  const ends = new Int32Array(4);
+
+  for (let j = 0; j < NY - 1; j++) {
+    // lattice row j + 1: the outermost row (NY − 1) is void, others carry grid row y.sample[j]
+    const r = j + 1;
+    let any = 0;
+    if (r === NY - 1) {
+      hi.fill(-Infinity);
+      sHi.fill(0);
+    } else {
+      fillRow(grid, lat.x.sample, lat.y.sample[r - 1], hi, 1);
+      hi[0] = -Infinity;
+      hi[NX - 1] = -Infinity;
+      for (let i = 0; i < NX; i++) {
+        const s = hi[i] >= L ? 1 : 0;
+        sHi[i] = s;
+        any |= s;
+      }
+    }
+    // crossings on the horizontal edges of row r, left to right
+    hStart[r] = st.n;
+    if (any) {
+      const yr = ys[r];
+      for (let i = 0; i < NX - 1; i++) {
+        const a = sHi[i];
+        if (a === sHi[i + 1]) continue;
+        const s = a ? i : i + 1;
+        const q = a ? i + 1 : i;
+        const t = crossing(hi[s], hi[q], L);
+        hHi[i] = st.add(xs[s] + t * (xs[q] - xs[s]), yr, 2 * i + a);
+      }
+    }
+    hEnd[r] = st.n;
+    // crossings on the vertical edges of cell row j
+    let cross = hEnd[r] > hStart[r] || hEnd[j] > hStart[j];
+    for (let i = 0; i < NX; i++) {
+      const a = sLo[i];
+      if (a === sHi[i]) continue;
+      cross = true;
+      let t: number;
+      let y: number;
+      if (a) {
+        t = crossing(lo[i], hi[i], L);
+        y = ys[j] + t * (ys[r] - ys[j]);
+      } else {
+        t = crossing(hi[i], lo[i], L);
+        y = ys[r] + t * (ys[j] - ys[r]);
+      }
+      vRow[i] = st.add(xs[i], y, -1);
+    }
+    if (cross) {
+      const next = st.next;
+      for (let i = 0; i < NX - 1; i++) {
+        const c = sLo[i] | (sLo[i + 1] << 1) | (sHi[i + 1] << 2) | (sHi[i] << 3);
+        if (c === 0 || c === 15) continue;
+        ends[0] = hLo[i];
+        ends[1] = vRow[i + 1];
+        ends[2] = hHi[i];
+        ends[3] = vRow[i];
+        if (c === 5) {
+          // bottom-left and top-right solid
+          if (joinsSolid(lo[i], hi[i + 1], lo[i + 1], hi[i], L, rule)) {
+            next[ends[0]] = ends[1];
+            next[ends[2]] = ends[3];
+          } else {
+            next[ends[0]] = ends[3];
+            next[ends[2]] = ends[1];
+          }
+        } else if (c === 10) {
+          // bottom-right and top-left solid
+          if (joinsSolid(lo[i + 1], hi[i], lo[i], hi[i + 1], L, rule)) {
+            next[ends[1]] = ends[2];
+            next[ends[3]] = ends[0];
+          } else {
+            next[ends[1]] = ends[0];
+            next[ends[3]] = ends[2];
+          }
+        } else {
+          next[ends[EXIT_EDGE[c]]] = ends[ENTRY_EDGE[c]];
+        }
+      }
+    }
+    const tf = lo;
+    lo = hi;
+    hi = tf;
+    const tu = sLo;
+    sLo = sHi;
+    sHi = tu;
+    const ti = hLo;
+    hLo = hHi;
+    hHi = ti;
+  }
+  return { count: st.n, x: st.x, y: st.y, next: st.next, hKey: st.hKey, hStart, hEnd };
+}

@@ -1,0 +1,102 @@
+/**
+ * Holes → owners, from the lattice structure instead of point-in-polygon tests (O(crossings), no O(n²)).
+ *
+ * Along a lattice row the crossings on horizontal edges come in x order and separate runs of solid and void
+ * nodes. Work in lattice index space, where the rings are non-crossing curves through edge midpoints and
+ * every ring crosses the row of each node it encloses. Take a ring's crossing with the smallest column i:
+ * - if the node left of it is void, the ring is an outer boundary (outside on the left, solid on the right);
+ * - if it is solid, the ring is a hole, and the solid run on its left belongs to the piece of material that
+ *   the hole is cut from. The crossing that starts that run belongs to the same piece: either its outer ring
+ *   (the owner) or another of its holes, whose own smallest column is smaller still, so following these links
+ *   always ends at the owner (the smallest outer ring containing the hole).
+ * Classification is topological; rings whose signed area (mm²) disagrees with it (zero-area rings produced by
+ * values exactly at the level) are dropped.
+ */
+import type { Polygon, PolygonSet, Ring } from '../types.js';
+import { ringContains } from '../geom/contains.js';
+import type { Crossings } from './march.js';
+import type { StitchedRings } from './stitch.js';
+
+export function nest(cr: Crossings, sr: StitchedRings): PolygonSet {
+  const n = sr.count;
+  const bestI = new Int32Array(n).fill(0x7fffffff);
+  const isHole = new Uint8Array(n);
+  const link = new Int32Array(n).fill(-1);
+  const { hKey, hStart, hEnd } = cr;
+  const { ringOf } = sr;
+  for (let j = 0; j < hStart.length; j++) {
+    let prev = -1;
+    for (let c = hStart[j]; c < hEnd[j]; c++) {
+      const r = ringOf[c];
+      const i = hKey[c] >> 1;
+      if (i < bestI[r]) {
+        bestI[r] = i;
+        isHole[r] = hKey[c] & 1;
+        link[r] = prev;
+      }
+      prev = r;
+    }
+  }
+  // resolve owners (links strictly decrease the smallest column, so there are no cycles)
+  const owner = new Int32Array(n).fill(-1);
+  const path: number[] = [];
+  for (let r = 0; r < n; r++) {
+    if (!isHole[r] || owner[r] !== -1) continue;
+    let q = r;
+    while (q >= 0 && isHole[q] && owner[q] === -1) {
+      path.push(q);
+      q = link[q];
+    }
+    const o = q < 0 ? -1 : isHole[q] ? owner[q] : q;
+    for (const p of path) owner[p] = o;
+    path.length = 0;
+  }
+  const keep = (r: number) => (isHole[r] ? sr.area[r] < 0 : sr.area[r] > 0);
+  const slot = new Int32Array(n).fill(-1);
+  const outers: Ring[] = [];
+  const holes: Ring[][] = [];
+  for (let r = 0; r < n; r++) {
+    if (isHole[r] || !keep(r)) continue;
+    slot[r] = outers.length;
+    outers.push(sr.rings[r]);
+    holes.push([]);
+  }
+  for (let r = 0; r < n; r++) {
+    if (!isHole[r] || !keep(r)) continue;
+    const o = owner[r];
+    if (o >= 0 && slot[o] >= 0) holes[slot[o]].push(sr.rings[r]);
+    else adopt(sr.rings[r], outers, holes);
+  }
+  const polygons: Polygon[] = outers.map((outer, k) => ({ outer, holes: holes[k] }));
+  return { polygons };
+}
+
+/**
+ * Fallback for a hole whose owner was dropped as degenerate (only possible with values exactly at the level):
+ * the smallest outer ring that contains one of its vertices, by direct test.
+ */
+function adopt(hole: Ring, outers: Ring[], holes: Ring[][]): void {
+  let best = -1;
+  let bestArea = Infinity;
+  for (let k = 0; k < outers.length; k++) {
+    for (const p of hole) {
+      const inside = ringContains(outers[k], p);
+      if (inside === 0) continue;
+      if (inside === 1) {
+        const a = areaOf(outers[k]);
+        if (a < bestArea) {
+          bestArea = a;
+          best = k;
+        }
+      }
+      break;
+    }
+  }
+  if (best >= 0) holes[best].push(hole);
+}
+
+function areaOf(ring: Ring): number {
+  let s = 0;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) s += ring[j][0] * ring[i][1] - ring[i][0] * ring[j][1];
+  return 0.5 * s;
+}

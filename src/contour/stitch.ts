@@ -1,0 +1,107 @@
+/**
+ * Crossings → rings: follows the `next` links of ./march.ts round every cycle. Each cycle is one ring with the
+ * solid on its left (outer boundaries counter-clockwise, holes clockwise, y up).
+ *
+ * Clean-up, all exact (no tolerance; smoothing and simplification come later): consecutive duplicate vertices,
+ * zero-width spikes (a vertex whose two neighbours coincide) and vertices lying on an axis-parallel straight run
+ * between their neighbours are removed. The zero-width cells along the domain edge produce such vertices; the
+ * removal does not move the outline. A ring left with fewer than 3 vertices has zero area and is dropped by
+ * the caller.
+ */
+import type { Point } from '../types.js';
+import type { Crossings } from './march.js';
+
+/** Rings in the order of their first crossing (bottom-up, left-to-right scan). */
+export interface StitchedRings {
+  /** Number of rings (cycles). */
+  readonly count: number;
+  /** Ring id of every crossing. */
+  readonly ringOf: Int32Array;
+  /** Cleaned vertices of each ring (mm); fewer than 3 means degenerate. */
+  readonly rings: Point[][];
+  /** Signed area (mm²) of each cleaned ring. */
+  readonly area: Float64Array;
+}
+
+export function stitch(cr: Crossings): StitchedRings {
+  const n = cr.count;
+  const ringOf = new Int32Array(n).fill(-1);
+  const rings: Point[][] = [];
+  const areas: number[] = [];
+  let ox = new Float64Array(256);
+  let oy = new Float64Array(256);
+  const { x, y, next } = cr;
+  for (let c0 = 0; c0 < n; c0++) {
+    if (ringOf[c0] !== -1) continue;
+    const r = rings.length;
+    // walk the cycle, cleaning on the fly (stack in ox/oy)
+    let m = 0;
+    let c = c0;
+    do {
+      ringOf[c] = r;
+      if (m + 1 >= ox.length) {
+        const gx = new Float64Array(ox.length * 2);
+        const gy = new Float64Array(ox.length * 2);
+        gx.set(ox);
+        gy.set(oy);
+        ox = gx;
+        oy = gy;
+      }
+      m = push(ox, oy, m, x[c], y[c]);
+      c = next[c];
+    } while (c !== c0 && c >= 0);
+    if (c < 0) throw new Error('stitch: open boundary (internal error)');
+    // close the cycle: re-check the seam between the last and the first vertices
+    let s = 0;
+    for (let changed = true; changed && m - s >= 3; ) {
+      changed = false;
+      if (ox[m - 1] === ox[s] && oy[m - 1] === oy[s]) {
+        m--;
+        changed = true;
+      } else if (removable(ox[m - 2], oy[m - 2], ox[m - 1], oy[m - 1], ox[s], oy[s])) {
+        m--;
+        changed = true;
+      } else if (removable(ox[m - 1], oy[m - 1], ox[s], oy[s], ox[s + 1], oy[s + 1])) {
+        s++;
+        changed = true;
+      }
+    }
+    const ring: Point[] = [];
+    let a = 0;
+    if (m - s >= 3) {
+      const x0 = ox[s];
+      const y0 = oy[s];
+      for (let k = s; k < m; k++) ring.push([ox[k], oy[k]]);
+      for (let k = s + 1; k < m - 1; k++) a += (ox[k] - x0) * (oy[k + 1] - y0) - (ox[k + 1] - x0) * (oy[k] - y0);
+    }
+    rings.push(ring);
+    areas.push(0.5 * a);
+  }
+  return { count: rings.length, ringOf, rings, area: Float64Array.from(areas) };
+}
+
+/** Appends (px, py) to the cleaned stack ox/oy of length m; returns the new length. */
+function push(ox: Float64Array, oy: Float64Array, m: number, px: number, py: number): number {
+  for (;;) {
+    if (m >= 1 && ox[m - 1] === px && oy[m - 1] === py) return m;
+    if (m >= 2 && removable(ox[m - 2], oy[m - 2], ox[m - 1], oy[m - 1], px, py)) {
+      m--;
+      continue;
+    }
+    break;
+  }
+  ox[m] = px;
+  oy[m] = py;
+  return m + 1;
+}
+
+/**
+ * True when vertex b can go without changing the outline: a spike (a = c), or b on the axis-parallel
+ * segment a–c (same x or same y for all three, b between a and c).
+ */
+function removable(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): boolean {
+  if (ax === cx && ay === cy) return true;
+  if (ax === bx && bx === cx) return (ay <= by && by <= cy) || (cy <= by && by <= ay);
+  if (ay === by && by === cy) return (ax <= bx && bx <= cx) || (cx <= bx && bx <= ax);
+  return false;
+}
