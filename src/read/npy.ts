@@ -1,0 +1,117 @@
+/**
+ * NPY reader: the bytes of a `.npy` file → a DensityGrid.
+ *
+ * Format: NEP 1 (R. Kern, "A simple file format for NumPy arrays", 2007,
+ * numpy.org/neps/nep-0001-npy-format.html), versions 1.0, 2.0 and 3.0, as written by numpy.
+ * See docs/input-npy.md for what is accepted and every error.
+ */
+import { RhoformError, UsageError } from '../errors.js';
+import type { DensityGrid } from '../types.js';
+import { decodeNpyData, type NpyDecodePath } from './npy-decode.js';
+import { parseNpyDtype } from './npy-dtype.js';
+import { parseNpyHeader } from './npy-header.js';
+import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
+
+/**
+ * Reads an NPY file holding a 2-D array (rows, cols) — or a 3-D array with exactly one axis of length 1,
+ * which is squeezed with a warning — of a real numeric dtype (f2, f4, f8, i1–i8, u1–u8, b1; either byte
+ * order; C or Fortran order).
+ *
+ * Frame: the array is read as numpy shows it, (rows, cols); nx = cols, ny = rows. With
+ * `rowOrder: 'top-down'` array row 0 is the top of the part, so array row r is grid row j = rows − 1 − r
+ * (y up, origin at the lower-left corner, origin [0, 0]); with 'bottom-up' array row 0 is the bottom row.
+ * cellSize [hx, hy] in mm comes from the options; sample placement (cell centres or cell corners) is
+ * `options.values`. Values are not mapped or clipped: NaN and ±Infinity stay as they are, booleans
+ * become 0/1, integers become float64 (64-bit integers rounded to the nearest double above 2^53).
+ *
+ * `locate(i, j)` gives the 1-based array row and column as numpy shows the 2-D array, and the byte
+ * offset of that element in the file (Fortran order accounted for).
+ *
+ * The sample count is checked against `options.maxCells` from the header alone, before any allocation.
+ * @throws RhoformError with `where.byteOffset`: E_NPY_MAGIC, E_NPY_VERSION, E_NPY_HEADER, E_NPY_DTYPE,
+ *   E_NPY_SHAPE, E_NPY_TRUNCATED, E_GRID_EMPTY, E_GRID_SIZE; UsageError (E_USAGE) for bad options.
+ */
+export function readNpy(bytes: Uint8Array, options: ReadOptions): ReadResult {
+  return readNpyWith(bytes, options, 'auto');
+}
+
+/** readNpy with a choice of decoding path; 'general' forces the DataView path (used by tests). */
+export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDecodePath): ReadResult {
+  const { hx, hy, topDown } = checkOptions(options);
+  const header = parseNpyHeader(bytes);
+  const dtype = parseNpyDtype(header.descr, { byteOffset: header.descrOffset });
+  const warnings: string[] = [];
+  const { rows, cols } = gridShape(header.shape, header.shapeOffset, warnings);
+  const shapeText = showShape(header.shape);
+
+  const count = rows * cols;
+  if (count === 0) {
+    throw new RhoformError('E_GRID_EMPTY', `expected at least one sample, found an empty array of shape ${shapeText}`, { byteOffset: header.shapeOffset });
+  }
+  if (!(count <= options.maxCells)) {
+    throw new RhoformError(
+      'E_GRID_SIZE',
+      `expected at most ${options.maxCells} samples (maxCells, --max-cells), found shape ${shapeText} = ${count} samples`,
+      { byteOffset: header.shapeOffset },
+    );
+  }
+  const need = count * dtype.size;
+  const have = bytes.length - header.dataOffset;
+  if (have < need) {
+    throw new RhoformError('E_NPY_TRUNCATED', `expected ${need} bytes of data for shape ${shapeText} ${dtype.descr}, found ${have}`, { byteOffset: header.dataOffset });
+  }
+  if (have > need) warnings.push(`${have - need} bytes after the array data (from byte ${header.dataOffset + need}) were ignored`);
+
+  const values = decodeNpyData(bytes, { dtype, dataOffset: header.dataOffset, rows, cols, fortranOrder: header.fortranOrder }, topDown, path);
+  const grid: DensityGrid = { nx: cols, ny: rows, cellSize: [hx, hy], origin: [0, 0], values, placement: options.values };
+
+  const { dataOffset, fortranOrder } = header;
+  const size = dtype.size;
+  const locate = (i: number, j: number): SamplePosition => {
+    if (!(Number.isInteger(i) && i >= 0 && i < cols && Number.isInteger(j) && j >= 0 && j < rows)) {
+      throw new RangeError(`locate: expected 0 ≤ i < ${cols} and 0 ≤ j < ${rows}, found (${i}, ${j})`);
+    }
+    const r = topDown ? rows - 1 - j : j;
+    // squeezing a unit axis keeps the element order, so the 2-D index is the file index
+    const k = fortranOrder ? i * rows + r : r * cols + i;
+    return { fileRow: r + 1, fileCol: i + 1, where: { byteOffset: dataOffset + k * size } };
+  };
+  return { grid, format: 'npy', layout: 'grid', locate, warnings };
+}
+
+function checkOptions(options: ReadOptions): { hx: number; hy: number; topDown: boolean } {
+  const [hx, hy] = options.cellSize;
+  if (!(hx > 0 && hy > 0 && hx < Infinity && hy < Infinity)) {
+    throw new UsageError(`cell size: expected two positive finite lengths in mm, found ${hx}, ${hy}`);
+  }
+  if (options.rowOrder !== 'top-down' && options.rowOrder !== 'bottom-up') {
+    throw new UsageError(`row order: expected 'top-down' or 'bottom-up', found ${String(options.rowOrder)}`);
+  }
+  if (options.values !== 'cells' && options.values !== 'nodes') {
+    throw new UsageError(`values: expected 'cells' or 'nodes', found ${String(options.values)}`);
+  }
+  if (!(options.maxCells > 0)) throw new UsageError(`max cells: expected a positive number, found ${options.maxCells}`);
+  return { hx, hy, topDown: options.rowOrder === 'top-down' };
+}
+
+/** (rows, cols) of a 2-D array, or of a 3-D array squeezed along its one unit axis. */
+function gridShape(shape: readonly number[], byteOffset: number, warnings: string[]): { rows: number; cols: number } {
+  if (shape.length === 2) return { rows: shape[0], cols: shape[1] };
+  const expected = 'expected a 2-D array (rows, columns) or a 3-D array with exactly one axis of length 1';
+  if (shape.length === 3) {
+    const unit = shape.flatMap((d, axis) => (d === 1 ? [axis] : []));
+    if (unit.length === 1) {
+      const rest = shape.filter((_, axis) => axis !== unit[0]);
+      warnings.push(`the 3-D array of shape ${showShape(shape)} was squeezed to 2-D ${showShape(rest)} by dropping axis ${unit[0]} (length 1)`);
+      return { rows: rest[0], cols: rest[1] };
+    }
+    const why = unit.length === 0 ? 'no axis of length 1' : `${unit.length} axes of length 1, which is ambiguous`;
+    throw new RhoformError('E_NPY_SHAPE', `${expected}, found shape ${showShape(shape)} (${why})`, { byteOffset });
+  }
+  throw new RhoformError('E_NPY_SHAPE', `${expected}, found shape ${showShape(shape)} (${shape.length}-D)`, { byteOffset });
+}
+
+/** A shape as Python prints it: (3, 5), (5,), (). */
+function showShape(shape: readonly number[]): string {
+  return shape.length === 1 ? `(${shape[0]},)` : `(${shape.join(', ')})`;
+}
