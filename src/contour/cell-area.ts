@@ -5,6 +5,9 @@
  */
 import { crossing, joinsSolid, type SaddleRule } from './saddle.js';
 
+/** Vertex scratch (x, y pairs) for the case polygon: at most 5 vertices. */
+const SCRATCH = new Float64Array(12);
+
 /**
  * Area in mm² of {value ≥ level} inside a w × h cell (mm) as marching squares draws it: the polygon through the
  * solid corners and the linearly interpolated edge crossings. Corners: v00 bottom-left, v10 bottom-right,
@@ -46,30 +49,18 @@ export function cellPolyArea(
     else s = joined ? 1 - tBL - tTR : tBR + tTL;
   } else {
     // one polygon: walk the cell counter-clockwise, taking solid corners and crossings (shoelace)
-    s = 0;
-    let px = 0;
-    let py = 0;
-    let first = true;
-    let fx = 0;
-    let fy = 0;
-    const put = (x: number, y: number) => {
-      if (first) {
-        fx = x;
-        fy = y;
-        first = false;
-      } else s += px * y - x * py;
-      px = x;
-      py = y;
-    };
-    if (a) put(0, 0);
-    if (a !== b) put(xB, 0);
-    if (b) put(1, 0);
-    if (b !== c) put(1, yR);
-    if (c) put(1, 1);
-    if (c !== d) put(xT, 1);
-    if (d) put(0, 1);
-    if (d !== a) put(0, yL);
-    s += px * fy - fx * py;
+    const P = SCRATCH;
+    let m = 0;
+    if (a) (P[m++] = 0), (P[m++] = 0);
+    if (a !== b) (P[m++] = xB), (P[m++] = 0);
+    if (b) (P[m++] = 1), (P[m++] = 0);
+    if (b !== c) (P[m++] = 1), (P[m++] = yR);
+    if (c) (P[m++] = 1), (P[m++] = 1);
+    if (c !== d) (P[m++] = xT), (P[m++] = 1);
+    if (d) (P[m++] = 0), (P[m++] = 1);
+    if (d !== a) (P[m++] = 0), (P[m++] = yL);
+    s = P[m - 2] * P[1] - P[0] * P[m - 1];
+    for (let k = 2; k < m; k += 2) s += P[k - 2] * P[k + 1] - P[k] * P[k - 1];
     s *= 0.5;
   }
   return s * w * h;
