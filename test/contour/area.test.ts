@@ -1,0 +1,122 @@
+import { describe, expect, it } from 'vitest';
+import {
+  buildAreaLattice,
+  cellArea,
+  cellFullArea,
+  contourGrid,
+  levelAreaModel,
+  regionArea,
+  type SaddleRule,
+} from '../../src/contour/index.js';
+import { polygonSetArea } from '../../src/geom/area.js';
+import type { DensityGrid } from '../../src/types.js';
+import { makeGrid, smoothField } from './grids.js';
+
+const RULES: SaddleRule[] = ['decider', 'join', 'split'];
+
+/** Random smooth fields: void border, material at the edge, NaN holes, nodal placement, odd cell sizes. */
+function fields(): { name: string; g: DensityGrid }[] {
+  const a = smoothField(60, 40, 11, 2);
+  const b = smoothField(45, 70, 12, 3, 2);
+  const c = smoothField(50, 50, 13, 2);
+  const cv = Float64Array.from(c.values);
+  for (let k = 0; k < cv.length; k += 37) cv[k] = NaN;
+  const d = smoothField(41, 31, 14, 3);
+  return [
+    { name: 'edge-touching', g: { ...a, cellSize: [0.7, 1.3], origin: [5, -2] } },
+    { name: 'void border', g: b },
+    { name: 'with NaN', g: { ...c, values: cv } },
+    { name: 'nodal', g: { ...d, placement: 'nodes', cellSize: [2, 2] } },
+  ];
+}
+
+describe('regionArea', () => {
+  for (const { name, g } of fields()) {
+    for (const rule of RULES) {
+      it(`equals the stitched polygon area (${name}, ${rule})`, () => {
+        for (const L of [0.2, 0.45, 0.5, 0.71]) {
+          const poly = polygonSetArea(contourGrid(g, L, rule));
+          const cells = regionArea(g, L, rule);
+          expect(poly).toBeGreaterThan(0);
+          // shoelace over the stitched rings vs the cell-by-cell sum: same geometry, two ways (1e-9 relative)
+          expect(Math.abs(cells - poly) / poly).toBeLessThan(1e-9);
+        }
+      });
+    }
+  }
+
+  it('depends on the saddle rule exactly as the contour does', () => {
+    const g = smoothField(40, 40, 21, 1);
+    const areas = RULES.map((r) => regionArea(g, 0.5, r));
+    // joining solid corners adds area, splitting removes it (definition of the two cuts of a saddle cell)
+    expect(areas[1]).toBeGreaterThanOrEqual(areas[0]);
+    expect(areas[0]).toBeGreaterThanOrEqual(areas[2]);
+    expect(areas[1]).toBeGreaterThan(areas[2]);
+  });
+});
+
+describe('AreaLattice', () => {
+  for (const { name, g } of fields()) {
+    it(`cells add up to regionArea, full and empty cells by their corner range (${name})`, () => {
+      const lat = buildAreaLattice(g);
+      // analytic: the cells tile the domain rectangle
+      let tiled = 0;
+      for (let c = 0; c < lat.cellCount; c++) tiled += cellFullArea(lat, c);
+      const cx = g.placement === 'nodes' ? g.nx - 1 : g.nx;
+      const cy = g.placement === 'nodes' ? g.ny - 1 : g.ny;
+      expect(tiled).toBeCloseTo(cx * cy * g.cellSize[0] * g.cellSize[1], 9);
+      for (const rule of RULES) {
+        for (const L of [0.3, 0.55]) {
+          let sum = 0;
+          for (let c = 0; c < lat.cellCount; c++) {
+            const a = cellArea(lat, c, L, rule);
+            if (lat.cellMin[c] >= L) expect(a).toBe(cellFullArea(lat, c));
+            else if (lat.cellMax[c] < L) expect(a).toBe(0);
+            sum += a;
+          }
+          expect(Math.abs(sum / regionArea(g, L, rule) - 1)).toBeLessThan(1e-12);
+        }
+      }
+    });
+  }
+
+  it('the straddling cells alone give the area over a level bracket', () => {
+    // the use in the level search: A(L) = Σ full cells (min ≥ hi) + Σ straddling cells, for lo ≤ L ≤ hi
+    const g = smoothField(80, 60, 31, 3);
+    const lat = buildAreaLattice(g);
+    const lo = 0.4;
+    const hi = 0.6;
+    let full = 0;
+    const active: number[] = [];
+    for (let c = 0; c < lat.cellCount; c++) {
+      if (lat.cellMin[c] >= hi) full += cellFullArea(lat, c);
+      else if (lat.cellMax[c] >= lo) active.push(c);
+    }
+    expect(active.length).toBeLessThan(lat.cellCount);
+    for (const L of [0.4, 0.47, 0.6]) {
+      let a = full;
+      for (const c of active) a += cellArea(lat, c, L, 'decider');
+      expect(Math.abs(a / regionArea(g, L, 'decider') - 1)).toBeLessThan(1e-12);
+    }
+  });
+
+  it('levelAreaModel binds the saddle rule', () => {
+    const g = smoothField(30, 30, 41, 1);
+    for (const rule of RULES) {
+      const m = levelAreaModel(g, rule);
+      let a = 0;
+      for (let c = 0; c < m.cellCount; c++) a += m.cellArea(c, 0.5);
+      expect(Math.abs(a / regionArea(g, 0.5, rule) - 1)).toBeLessThan(1e-12);
+      expect(m.fullArea(0)).toBeCloseTo(0.25, 15); // corner cell of a cell-centred grid: h/2 × h/2
+    }
+  });
+
+  it('NaN samples make the cell range reach −∞', () => {
+    const g = makeGrid(3, 3, (_x, _y, i, j) => (i === 1 && j === 1 ? NaN : 1));
+    const lat = buildAreaLattice(g);
+    expect(lat.cols).toBe(4);
+    expect(lat.rows).toBe(4);
+    expect(lat.cellMin[1 * 4 + 1]).toBe(-Infinity);
+    expect(lat.cellMax[1 * 4 + 1]).toBe(1);
+  });
+});
