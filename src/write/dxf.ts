@@ -10,6 +10,7 @@
  * - numbers with at most 6 decimals, no exponent, no "-0"; CRLF line ends; handles are assigned in a fixed
  *   order, so the same input always gives the same bytes.
  */
+import { RhoformError } from '../errors.js';
 import type { Ring } from '../types.js';
 import {
   blocksSection,
@@ -22,12 +23,15 @@ import {
 } from './dxf-sections.js';
 import { DXF_DECIMALS, DxfTags, EOL, hex } from './dxf-tags.js';
 import { dxfText } from './dxf-text.js';
-import { formatNumber } from './number.js';
 import { checkDomain, checkRadius, ringLength, unitDivisor } from './rings.js';
+import { TextSink } from './text-sink.js';
 import type { WriterInput } from './types.js';
 
 /** Text height of marker labels as a share of the larger domain side. */
 const LABEL_HEIGHT_SHARE = 0.02;
+const X = `${EOL} 10${EOL}`;
+const Y = `${EOL} 20${EOL}`;
+const Z0 = `${EOL} 30${EOL}0`;
 
 /**
  * Writes the part and the optional extra layers as an R2000 DXF string (CRLF line ends).
@@ -40,69 +44,90 @@ const LABEL_HEIGHT_SHARE = 0.02;
 export function writeDxf(input: WriterInput): string {
   const [minX, minY, maxX, maxY] = checkDomain(input.domain);
   const div = unitDivisor(input.units);
-  const entities = new DxfTags();
+  const extras = input.extras ?? [];
+
+  // Handles are numbered in writing order, so $HANDSEED (the next free handle) is known before writing.
+  let count = 0;
+  let vertices = 0;
+  for (const p of input.polygons.polygons) {
+    for (const ring of [p.outer, ...p.holes]) {
+      const n = ringLength(ring);
+      if (n > 0) count++;
+      vertices += n;
+    }
+  }
+  for (const e of extras) {
+    for (const r of e.rings ?? []) if (ringLength(r) > 0) count++;
+    count += (e.circles?.length ?? 0) + 2 * (e.markers?.length ?? 0);
+  }
+
+  const fixed = new DxfTags();
+  const header = {
+    insunits: input.units === 'in' ? 1 : 4,
+    measurement: input.units === 'in' ? 0 : 1,
+    extmin: [minX / div, minY / div],
+    extmax: [maxX / div, maxY / div],
+    handseed: FIRST_ENTITY_HANDLE + count,
+  } as const;
+  headerSection(fixed, header);
+  classesSection(fixed);
+  tablesSection(fixed, header);
+  blocksSection(fixed);
+  fixed.tag(0, 'SECTION').tag(2, 'ENTITIES');
+
+  const out = new TextSink(8192 + 200 * count + 36 * vertices);
+  out.str(fixed.text());
   let handle = FIRST_ENTITY_HANDLE;
   const owner = hex(H.modelSpace);
-  const fmt = (v: number): string => formatNumber(v / div, DXF_DECIMALS);
-
+  /** Starts an entity: type, handle, owner, layer and subclass; leaves the cursor after the subclass value. */
+  const start = (type: string, layer: string, subclass: string): void => {
+    out.str(`  0${EOL}${type}${EOL}  5${EOL}${hex(handle++)}${EOL}330${EOL}${owner}${EOL}100${EOL}AcDbEntity`);
+    out.str(`${EOL}  8${EOL}${layer}${EOL}100${EOL}${subclass}`);
+  };
+  const xy = (x: number, y: number): void => {
+    out.str(X).num(x / div, DXF_DECIMALS).str(Y).num(y / div, DXF_DECIMALS);
+  };
   const polyline = (ring: Ring, layer: string): void => {
     const n = ringLength(ring);
     if (n === 0) return;
-    const parts = entities.parts;
-    parts.push(
-      `  0${EOL}LWPOLYLINE${EOL}  5${EOL}${hex(handle++)}${EOL}330${EOL}${owner}${EOL}100${EOL}AcDbEntity${EOL}` +
-        `  8${EOL}${layer}${EOL}100${EOL}AcDbPolyline${EOL} 90${EOL}${n}${EOL} 70${EOL}1`,
-    );
-    for (let i = 0; i < n; i++) {
-      const p = ring[i];
-      parts.push(` 10${EOL}${fmt(p[0])}${EOL} 20${EOL}${fmt(p[1])}`);
-    }
-  };
-  const common = (type: string, layer: string, subclass: string): void => {
-    entities.tag(0, type).tag(5, hex(handle++)).tag(330, owner).tag(100, 'AcDbEntity').tag(8, layer);
-    entities.tag(100, subclass);
+    start('LWPOLYLINE', layer, 'AcDbPolyline');
+    out.str(`${EOL} 90${EOL}${n}${EOL} 70${EOL}1`);
+    for (let i = 0; i < n; i++) xy(ring[i][0], ring[i][1]);
+    out.str(EOL);
   };
 
   for (const polygon of input.polygons.polygons) {
     polyline(polygon.outer, 'outline');
     for (const hole of polygon.holes) polyline(hole, 'hole');
   }
-
   const labelHeight = (Math.max(maxX - minX, maxY - minY) * LABEL_HEIGHT_SHARE) / div;
-  for (const extra of input.extras ?? []) {
+  for (const extra of extras) {
     const layer = extra.layer;
     for (const ring of extra.rings ?? []) polyline(ring, layer);
     for (const c of extra.circles ?? []) {
-      common('CIRCLE', layer, 'AcDbCircle');
-      entities.tag(10, fmt(c.x)).tag(20, fmt(c.y)).tag(30, '0').tag(40, fmt(checkRadius(c.r)));
+      const r = checkRadius(c.r);
+      start('CIRCLE', layer, 'AcDbCircle');
+      xy(c.x, c.y);
+      out.str(`${Z0}${EOL} 40${EOL}`).num(r / div, DXF_DECIMALS).str(EOL);
     }
     for (const m of extra.markers ?? []) {
-      common('POINT', layer, 'AcDbPoint');
-      entities.tag(10, fmt(m.x)).tag(20, fmt(m.y)).tag(30, '0');
-      common('TEXT', layer, 'AcDbText');
-      const x = m.x / div + labelHeight / 2;
-      const y = m.y / div + labelHeight / 2;
-      entities.tag(10, x).tag(20, y).tag(30, 0).tag(40, labelHeight).tag(1, dxfText(m.label));
-      entities.tag(100, 'AcDbText');
+      start('POINT', layer, 'AcDbPoint');
+      xy(m.x, m.y);
+      out.str(`${Z0}${EOL}`);
+      // The label sits up and right of its point by half a text height.
+      start('TEXT', layer, 'AcDbText');
+      xy(m.x + (labelHeight * div) / 2, m.y + (labelHeight * div) / 2);
+      out.str(`${Z0}${EOL} 40${EOL}`).num(labelHeight, DXF_DECIMALS);
+      out.str(`${EOL}  1${EOL}${dxfText(m.label)}${EOL}100${EOL}AcDbText${EOL}`);
     }
   }
+  if (handle !== header.handseed) {
+    throw new RhoformError('E_INTERNAL', `expected ${header.handseed} entity handles, found ${handle}`);
+  }
 
-  const out = new DxfTags();
-  const header = {
-    insunits: input.units === 'in' ? 1 : 4,
-    measurement: input.units === 'in' ? 0 : 1,
-    extmin: [minX / div, minY / div],
-    extmax: [maxX / div, maxY / div],
-    handseed: handle,
-  } as const;
-  headerSection(out, header);
-  classesSection(out);
-  tablesSection(out, header);
-  blocksSection(out);
-  out.tag(0, 'SECTION').tag(2, 'ENTITIES');
-  for (const part of entities.parts) out.raw(part);
-  out.tag(0, 'ENDSEC');
-  objectsSection(out);
-  out.tag(0, 'EOF');
-  return out.text();
+  const tail = new DxfTags();
+  tail.tag(0, 'ENDSEC');
+  objectsSection(tail);
+  tail.tag(0, 'EOF');
+  return out.str(tail.text()).text();
 }

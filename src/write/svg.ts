@@ -11,10 +11,11 @@
  *   (numbered circle markers).
  * - Numbers: at most 3 decimals in mm, 4 in inches (1 µm / 2.5 µm), no exponent, no "-0"; deterministic.
  */
+import type { Ring } from '../types.js';
 import { formatNumber } from './number.js';
 import { checkDomain, checkRadius, ringLength, unitDivisor } from './rings.js';
+import { TextSink } from './text-sink.js';
 import type { ExtraLayer, WriterExtra, WriterInput } from './types.js';
-import type { Ring } from '../types.js';
 import { escapeXml } from './xml.js';
 
 /** Layer colours (the same hues as the DXF layers where they have one). */
@@ -31,6 +32,49 @@ const EXTRA_STROKE_MM = 0.2;
 /** Marker circle radius as a share of the larger domain side. */
 const MARKER_SHARE = 0.015;
 
+/** Number formatting and path output in the SVG frame (output units, y down). */
+class SvgFrame {
+  constructor(
+    readonly out: TextSink,
+    readonly div: number,
+    readonly maxY: number,
+    readonly decimals: number,
+  ) {}
+
+  /** A plain number in output units. */
+  num(v: number): string {
+    return formatNumber(v, this.decimals);
+  }
+  /** A length given in mm, in output units. */
+  len(mm: number): string {
+    return formatNumber(mm / this.div, this.decimals);
+  }
+  x(x: number): string {
+    return formatNumber(x / this.div, this.decimals);
+  }
+  y(y: number): string {
+    return formatNumber((this.maxY - y) / this.div, this.decimals);
+  }
+
+  /** Writes `M x y L x y x y … Z` sub-paths (space-separated) for every ring with ≥ 3 points. */
+  rings(rings: readonly Ring[], first: boolean): boolean {
+    const { out, div, maxY, decimals } = this;
+    for (const ring of rings) {
+      const n = ringLength(ring);
+      if (n === 0) continue;
+      out.str(first ? 'M' : ' M');
+      first = false;
+      for (let i = 0; i < n; i++) {
+        if (i === 1) out.str('L');
+        else if (i > 1) out.str(' ');
+        out.num(ring[i][0] / div, decimals).str(' ').num((maxY - ring[i][1]) / div, decimals);
+      }
+      out.str(' Z');
+    }
+    return first;
+  }
+}
+
 /**
  * Writes the part and the optional extra layers as an SVG document (LF line ends).
  *
@@ -41,95 +85,80 @@ const MARKER_SHARE = 0.015;
 export function writeSvg(input: WriterInput): string {
   const [minX, minY, maxX, maxY] = checkDomain(input.domain);
   const div = unitDivisor(input.units);
-  const decimals = input.units === 'in' ? 4 : 3;
   const unit = input.units;
-  const num = (v: number): string => formatNumber(v, decimals);
-  const fx = (x: number): string => formatNumber(x / div, decimals);
-  const fy = (y: number): string => formatNumber((maxY - y) / div, decimals);
-  const len = (mm: number): string => formatNumber(mm / div, decimals);
-
-  const pathData = (rings: readonly Ring[], parts: string[]): void => {
-    for (const ring of rings) {
-      const n = ringLength(ring);
-      if (n === 0) continue;
-      parts.push(`M${fx(ring[0][0])} ${fy(ring[0][1])}L${fx(ring[1][0])} ${fy(ring[1][1])}`);
-      for (let i = 2; i < n; i++) parts.push(`${fx(ring[i][0])} ${fy(ring[i][1])}`);
-      parts.push('Z');
-    }
-  };
-
   let outers = 0;
   let holes = 0;
-  const d: string[] = [];
+  let vertices = 0;
   for (const polygon of input.polygons.polygons) {
-    if (ringLength(polygon.outer) > 0) outers++;
-    pathData([polygon.outer], d);
-    for (const hole of polygon.holes) if (ringLength(hole) > 0) holes++;
-    pathData(polygon.holes, d);
+    const n = ringLength(polygon.outer);
+    if (n > 0) outers++;
+    vertices += n;
+    for (const hole of polygon.holes) {
+      const m = ringLength(hole);
+      if (m > 0) holes++;
+      vertices += m;
+    }
   }
-
-  const width = (maxX - minX) / div;
-  const height = (maxY - minY) / div;
-  const out: string[] = [
-    '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${num(width)}${unit}" height="${num(height)}${unit}" ` +
-      `viewBox="${fx(minX)} 0 ${num(width)} ${num(height)}">`,
-    '<title>rhoform part outline</title>',
-    `<desc>${escapeXml(
-      `${outers} outer ring(s), ${holes} hole(s); units ${unit}; domain ${num(width)} × ${num(height)} ${unit}. ` +
-        'Model frame y up; drawn with y = maxY − y.',
-    )}</desc>`,
-  ];
+  const out = new TextSink(8192 + 20 * vertices);
+  const f = new SvgFrame(out, div, maxY, unit === 'in' ? 4 : 3);
+  const width = f.num((maxX - minX) / div);
+  const height = f.num((maxY - minY) / div);
+  out.str('<?xml version="1.0" encoding="UTF-8"?>\n');
+  out.str(`<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${width}${unit}" height="${height}${unit}" `);
+  out.str(`viewBox="${f.x(minX)} 0 ${width} ${height}">\n`);
+  out.str('<title>rhoform part outline</title>\n');
+  const desc =
+    `${outers} outer ring(s), ${holes} hole(s); units ${unit}; domain ${width} × ${height} ${unit}. ` +
+    'Model frame y up; drawn with y = maxY − y.';
+  out.str(`<desc>${escapeXml(desc)}</desc>\n`);
   if (input.svgUnderlay !== undefined && input.svgUnderlay !== '') {
-    out.push(`<g id="underlay">${input.svgUnderlay}</g>`);
+    out.str(`<g id="underlay">${input.svgUnderlay}</g>\n`);
   }
-  out.push(
-    `<path id="part" fill="${COLORS.part}" fill-rule="evenodd" stroke="${COLORS.partStroke}" ` +
-      `stroke-width="${len(PART_STROKE_MM)}" stroke-linejoin="round" d="${d.join(' ')}"/>`,
-  );
+  out.str(`<path id="part" fill="${COLORS.part}" fill-rule="evenodd" stroke="${COLORS.partStroke}" `);
+  out.str(`stroke-width="${f.len(PART_STROKE_MM)}" stroke-linejoin="round" d="`);
+  let first = true;
+  for (const polygon of input.polygons.polygons) {
+    first = f.rings([polygon.outer], first);
+    first = f.rings(polygon.holes, first);
+  }
+  out.str('"/>\n');
 
   const markerR = (Math.max(maxX - minX, maxY - minY) * MARKER_SHARE) / div;
   for (const layer of ['passive', 'repair', 'finding'] as const) {
     const entries = (input.extras ?? []).filter((e) => e.layer === layer);
     if (entries.length === 0) continue;
-    out.push(
-      `<g id="${layer}" fill="none" stroke="${COLORS[layer]}" stroke-width="${len(EXTRA_STROKE_MM)}">`,
-    );
-    layerBody(entries, out, { fx, fy, len, num, markerR, color: COLORS[layer], pathData });
-    out.push('</g>');
+    out.str(`<g id="${layer}" fill="none" stroke="${COLORS[layer]}" stroke-width="${f.len(EXTRA_STROKE_MM)}">\n`);
+    layerBody(entries, f, markerR, COLORS[layer]);
+    out.str('</g>\n');
   }
-  out.push('</svg>', '');
-  return out.join('\n');
-}
-
-interface LayerTools {
-  fx(x: number): string;
-  fy(y: number): string;
-  len(mm: number): string;
-  num(v: number): string;
-  markerR: number;
-  color: string;
-  pathData(rings: readonly Ring[], parts: string[]): void;
+  out.str('</svg>\n');
+  return out.text();
 }
 
 /** Rings as one unfilled path, circles as `<circle>`, markers as a circle and its label. */
-function layerBody(entries: readonly WriterExtra[], out: string[], t: LayerTools): void {
-  const d: string[] = [];
-  for (const e of entries) t.pathData(e.rings ?? [], d);
-  if (d.length > 0) out.push(`<path d="${d.join(' ')}"/>`);
-  for (const e of entries) {
-    for (const c of e.circles ?? []) out.push(`<circle cx="${t.fx(c.x)}" cy="${t.fy(c.y)}" r="${t.len(checkRadius(c.r))}"/>`);
+function layerBody(entries: readonly WriterExtra[], f: SvgFrame, markerR: number, color: string): void {
+  const out = f.out;
+  if (entries.some((e) => (e.rings ?? []).some((r) => ringLength(r) > 0))) {
+    out.str('<path d="');
+    let first = true;
+    for (const e of entries) first = f.rings(e.rings ?? [], first);
+    out.str('"/>\n');
   }
-  const r = t.num(t.markerR);
-  const size = t.num(t.markerR * 1.4);
+  for (const e of entries) {
+    for (const c of e.circles ?? []) {
+      out.str(`<circle cx="${f.x(c.x)}" cy="${f.y(c.y)}" r="${f.len(checkRadius(c.r))}"/>\n`);
+    }
+  }
+  const r = f.num(markerR);
+  const size = f.num(markerR * 1.4);
   for (const e of entries) {
     for (const m of e.markers ?? []) {
       const label = escapeXml(m.label);
-      out.push(
-        `<g class="marker"><title>${label}</title><circle cx="${t.fx(m.x)}" cy="${t.fy(m.y)}" r="${r}"/>` +
-          `<text x="${t.fx(m.x)}" y="${t.fy(m.y)}" dx="${r}" dy="-${r}" font-family="sans-serif" ` +
-          `font-size="${size}" fill="${t.color}" stroke="none">${label}</text></g>`,
-      );
+      const cx = f.x(m.x);
+      const cy = f.y(m.y);
+      out.str(`<g class="marker"><title>${label}</title><circle cx="${cx}" cy="${cy}" r="${r}"/>`);
+      out.str(`<text x="${cx}" y="${cy}" dx="${r}" dy="-${r}" font-family="sans-serif" font-size="${size}" `);
+      out.str(`fill="${color}" stroke="none">${label}</text></g>\n`);
     }
   }
 }
