@@ -23,7 +23,15 @@ interface OkEntry {
 }
 
 const DIR = new URL('../../fixtures/npy/', import.meta.url);
-const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { ok: OkEntry[] };
+interface PairEntry {
+  c: string;
+  f: string;
+  rows: number;
+  cols: number;
+  corners: [number, number, number, number];
+}
+
+const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { ok: OkEntry[]; pairs: PairEntry[] };
 const load = (file: string): Uint8Array => new Uint8Array(readFileSync(new URL(file, DIR)));
 const num = (v: number | string): number => (typeof v === 'number' ? v : Number(v)); // 'NaN', 'Infinity', '-Infinity'
 
@@ -127,6 +135,24 @@ describe('readNpy: layouts numpy reads', () => {
     const res = readNpy(load(e.file), opts());
     expect(res.grid.values.length).toBe(2000);
     expect(Array.from(res.grid.values)).toEqual(expectedGrid(e, true)); // numpy 2.4 values
+  });
+
+  it('reads one array saved in C and in Fortran order identically, on both paths (37×53, partial tiles)', () => {
+    for (const p of manifest.pairs) {
+      for (const rowOrder of ['top-down', 'bottom-up'] as const) {
+        const c = readNpyWith(load(p.c), opts({ rowOrder }), 'auto').grid;
+        const f = readNpyWith(load(p.f), opts({ rowOrder }), 'auto').grid;
+        const fGeneral = readNpyWith(load(p.f), opts({ rowOrder }), 'general').grid;
+        // numpy 2.4: np.array_equal(C file, Fortran file)
+        expect(Array.from(f.values)).toEqual(Array.from(c.values));
+        expect(Array.from(fGeneral.values)).toEqual(Array.from(c.values));
+        // numpy 2.4: a[0,0], a[0,-1], a[-1,0], a[-1,-1]; array row 0 is grid row ny−1 when top-down
+        const top = rowOrder === 'top-down' ? p.rows - 1 : 0;
+        const bottom = p.rows - 1 - top;
+        const at = (i: number, j: number): number => f.values[j * p.cols + i];
+        expect([at(0, top), at(p.cols - 1, top), at(0, bottom), at(p.cols - 1, bottom)]).toEqual(p.corners);
+      }
+    }
   });
 
   it('honours a 16-byte-aligned (NEP 1) and an unaligned data offset', () => {
