@@ -126,7 +126,10 @@ export function writeSvg(input: WriterInput): string {
   const markerR = (Math.max(maxX - minX, maxY - minY) * MARKER_SHARE) / div;
   for (const layer of ['passive', 'repair', 'finding'] as const) {
     const entries = (input.extras ?? []).filter((e) => e.layer === layer);
-    if (entries.length === 0) continue;
+    const drawn = entries.some(
+      (e) => (e.rings ?? []).some((r) => ringLength(r) > 0) || (e.circles?.length ?? 0) + (e.markers?.length ?? 0) > 0,
+    );
+    if (!drawn) continue;
     out.str(`<g id="${layer}" fill="none" stroke="${COLORS[layer]}" stroke-width="${f.len(EXTRA_STROKE_MM)}">\n`);
     layerBody(entries, f, markerR, COLORS[layer]);
     out.str('</g>\n');

@@ -124,11 +124,13 @@ describe('SVG writer', () => {
       domain: [0, 0, 10, 10],
       units: 'mm',
       svgUnderlay: '<rect x="0" y="0" width="10" height="10" fill="#eee"/>',
+      extras: [{ layer: 'finding', markers: [] }, { layer: 'repair', rings: [[[1, 1], [2, 2]]] }],
     };
     const text = writeSvg(input);
     expect(text).toContain('<g id="underlay"><rect');
     expect(text.indexOf('id="underlay"')).toBeLessThan(text.indexOf('id="part"'));
     expect(text).not.toContain('id="finding"');
+    expect(text).not.toContain('id="repair"'); // its only ring has 2 points and encloses nothing
   });
 
   it('is deterministic and does not mutate its input', () => {
