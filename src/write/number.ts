@@ -8,8 +8,9 @@
 import { RhoformError } from '../errors.js';
 
 const SCALES = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6] as const;
-/** Below this many units of the last decimal, k / 10^d is the double nearest to a decimal of ≤ 15 digits. */
+/** Below this many units of the last decimal, the scaled value and its rounding are exact integers. */
 const EXACT_LIMIT = 1e15;
+const ZEROS = ['', '0', '00', '000', '0000', '00000'] as const;
 
 /**
  * Formats `value` with at most `decimals` (0…6) decimals: `1.5`, `-0.25`, `3`, `0` (never `-0`).
@@ -26,9 +27,20 @@ export function formatNumber(value: number, decimals: number): string {
     // NaN fails this comparison and falls through to the slow path, which rejects it.
     const k = Math.round(scaled);
     if (k === 0) return '0';
-    // k / scale is the double nearest to the decimal k·10^-d, and String() prints its shortest round-trip
-    // form, which is that decimal: no exponent because 1e-6 ≤ |v| < 1e21.
-    const text = String(k / scale);
+    // Integer arithmetic only (exact below 2^53): the digits of k·10^-d, without Number→String of a fraction.
+    let frac = k % scale;
+    const whole = (k - frac) / scale;
+    let text: string;
+    if (frac === 0) text = `${whole}`;
+    else {
+      let digits = decimals;
+      while (frac % 10 === 0) {
+        frac /= 10;
+        digits--;
+      }
+      const fracText = `${frac}`;
+      text = `${whole}.${ZEROS[digits - fracText.length]}${fracText}`;
+    }
     return value < 0 ? `-${text}` : text;
   }
   return formatLarge(value, decimals);
