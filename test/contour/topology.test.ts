@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { contourGrid, type SaddleRule } from '../../src/contour/index.js';
+import { contourGrid, regionArea, type SaddleRule } from '../../src/contour/index.js';
 import { ringArea } from '../../src/geom/area.js';
 import type { PolygonSet } from '../../src/types.js';
 import { makeGrid, smoothField } from './grids.js';
@@ -87,4 +87,25 @@ describe('contourGrid: topology', () => {
     expect(s.polygons).toHaveLength(1);
     expect(s.polygons[0].holes).toHaveLength(11 * 7);
   });
+});
+
+describe('contourGrid: values exactly at the level', () => {
+  for (const rule of RULES) {
+    it(`random binary grid at levels 0, 0.5 and 1 (${rule}): area as regionArea, valid rings`, () => {
+      let seed = 3;
+      const rnd = () => ((seed = (seed * 48271) % 2147483647) - 1) / 2147483646;
+      const g = makeGrid(40, 30, () => (rnd() < 0.55 ? 1 : 0));
+      for (const L of [0, 0.5, 1]) {
+        const s = contourGrid(g, L, rule);
+        checkRings(s);
+        const poly = s.polygons.reduce((a, p) => a + ringArea(p.outer) + p.holes.reduce((b, h) => b + ringArea(h), 0), 0);
+        // the stitched area equals the cell-by-cell sum even when crossings coincide with samples
+        expect(Math.abs(poly - regionArea(g, L, rule))).toBeLessThan(1e-9 * 1200);
+        // at 0.5 there are no ties: still no edge meets another
+        if (L === 0.5) expect(countIntersections(s)).toBe(0);
+      }
+      // level 0: every sample is solid (ties solid) → the whole 40 × 30 domain (analytic)
+      expect(contourGrid(g, 0, rule).polygons.map((p) => ringArea(p.outer))).toEqual([1200]);
+    });
+  }
 });
