@@ -8,6 +8,7 @@
  * removal does not move the outline. A ring left with fewer than 3 vertices has zero area and is dropped by
  * the caller.
  */
+import { RhoformError } from '../errors.js';
 import type { Point } from '../types.js';
 import type { Crossings } from './march.js';
 
@@ -50,7 +51,7 @@ export function stitch(cr: Crossings): StitchedRings {
       m = push(ox, oy, m, x[c], y[c]);
       c = next[c];
     } while (c !== c0 && c >= 0);
-    if (c < 0) throw new Error('stitch: open boundary (internal error)');
+    if (c < 0) throw new RhoformError('E_INTERNAL', `contour: expected closed rings, found an open boundary at crossing ${c0}`);
     // close the cycle: re-check the seam between the last and the first vertices
     let s = 0;
     for (let changed = true; changed && m - s >= 3; ) {
