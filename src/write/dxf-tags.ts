@@ -35,12 +35,6 @@ export class DxfTags {
     return this.tag(code, x).tag(code + 10, y).tag(code + 20, 0);
   }
 
-  /** Appends a pre-built chunk of tags (already joined with EOL, without a trailing EOL). */
-  raw(chunk: string): this {
-    this.parts.push(chunk);
-    return this;
-  }
-
   /** The whole text, every line terminated by EOL. */
   text(): string {
     return this.parts.join(EOL) + EOL;
