@@ -41,6 +41,7 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
   const header = parseNpyHeader(bytes);
   const dtype = parseNpyDtype(header.descr, { byteOffset: header.descrOffset });
   const warnings: string[] = [];
+  if (options.layout === 'long') warnings.push("layout 'long' applies to CSV files only; the NPY array was read as a grid");
   const { rows, cols } = gridShape(header.shape, header.shapeOffset, warnings);
   const shapeText = showShape(header.shape);
 

@@ -182,6 +182,13 @@ describe('readNpy: layouts numpy reads', () => {
     expect(Array.from(res.grid.values)).toEqual(expectedGrid(entry('trailing-bytes.npy'), true));
   });
 
+  it("reads an NPY file as a grid even when layout 'long' is asked for, with a warning", () => {
+    const res = readNpy(load('m-f8-le-C-v1.npy'), opts({ layout: 'long' }));
+    expect(res.layout).toBe('grid'); // src/read/types.ts: NPY is always 'grid'
+    expect(res.warnings.join(' ')).toContain("layout 'long'");
+    expect(readNpy(load('m-f8-le-C-v1.npy'), opts({ layout: 'auto' })).warnings).toEqual([]);
+  });
+
   it('passes cell size and placement through and does not modify the input bytes', () => {
     const bytes = load('m-f8-le-C-v1.npy');
     const before = Uint8Array.from(bytes);
