@@ -130,9 +130,10 @@ export function splitFields(
 export function tokenError(token: string, sep: number, line: number, col: number, decimalComma: boolean): RhoformError {
   let detail = token === '' ? 'expected a number, found an empty field' : `expected a number, found ${show(token)}`;
   const others = [',', ';', '\t'].filter((s) => s.charCodeAt(0) !== sep && token.includes(s));
-  if (others.length > 0 || (sep === SEP_WS && token.includes(','))) {
+  if (others.length > 0) {
     detail += ` (the separator is ${sepName(sep)}, as detected on the first data line`;
-    detail += !decimalComma && token.includes(',') ? "; if ',' is the decimal mark, use the decimal-comma option)" : ')';
+    const commaMark = !decimalComma && (sep === 44 || token.includes(','));
+    detail += commaMark ? "; if ',' is the decimal mark, use the decimal-comma option)" : ')';
   }
   return new RhoformError('E_CSV_TOKEN', detail, { line, col });
 }

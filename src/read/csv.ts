@@ -51,7 +51,8 @@ export function longColumns(names: readonly string[]): LongColumns | null {
  *   runs of spaces/tabs — and then required on every line. Fields may carry surrounding spaces and quotes.
  * - Numbers: decimals with an optional exponent, and nan / inf / infinity (kept as NaN, ±Infinity for
  *   src/field/prepare.ts to handle).
- * - Header: a first content line with a field that is neither a number nor empty. Grid layout ignores it; long layout takes
+ * - Header: a first content line in which no field is a number (a line mixing numbers and words is data,
+ *   reported at its bad token, so a typo never silently drops a row). Grid layout ignores it; long layout takes
  *   column names from it (a `#` comment line right before the data counts as a header for names too).
  * - Layout 'grid': each line a row; rowOrder 'top-down' puts the first data line at the top
  *   (grid row j = ny − 1 − r); nx = columns, ny = rows; cell size and placement from the options; origin (0, 0).
@@ -74,10 +75,11 @@ export function readCsv(text: string, options: ReadOptions): ReadResult {
   const dc = options.decimalComma;
   const line1: [number, number, number] = [cur.lineStart, cur.lineEnd, cur.line];
   const sep1 = detectSeparator(body, line1[0], line1[1], dc);
-  // A header has a field that is neither a number nor empty (an empty field in data is reported as such).
-  const isHeader = splitFields(body, line1[0], line1[1], sep1).some(
-    (f) => f.token !== '' && parseNumberToken(f.token, dc) === undefined,
-  );
+  // A header has no number in it (and some text). A line mixing numbers and words is data with a bad
+  // token: taking it for a header would silently drop a row of the grid.
+  const fields1 = splitFields(body, line1[0], line1[1], sep1);
+  const isHeader =
+    fields1.some((f) => f.token !== '') && fields1.every((f) => f.token === '' || parseNumberToken(f.token, dc) === undefined);
   let sep = sep1;
   let names: string[] | null = null;
   if (isHeader) {
