@@ -8,15 +8,15 @@ import { existsSync, mkdirSync, readFileSync, realpathSync, renameSync, rmSync, 
 import { dirname, resolve } from 'node:path';
 import { RhoformError } from '../src/errors.js';
 
-/** Read an input file whole; a missing or unreadable file is E_INPUT_READ. */
-export function readInput(path: string): Uint8Array {
+/** Read an input file whole; a missing or unreadable file is E_INPUT_READ, named as the user gave it (`name`). */
+export function readInput(path: string, name = path): Uint8Array {
   try {
-    if (statSync(path).isDirectory()) throw new RhoformError('E_INPUT_READ', `expected a grid file, found a directory`, { file: path });
+    if (statSync(path).isDirectory()) throw new RhoformError('E_INPUT_READ', `expected a grid file, found a directory`, { file: name });
     return readFileSync(path);
   } catch (e) {
     if (e instanceof RhoformError) throw e;
     const code = (e as NodeJS.ErrnoException).code ?? 'error';
-    throw new RhoformError('E_INPUT_READ', `cannot read the input (${code === 'ENOENT' ? 'no such file' : code})`, { file: path });
+    throw new RhoformError('E_INPUT_READ', `cannot read the input (${code === 'ENOENT' ? 'no such file' : code})`, { file: name });
   }
 }
 

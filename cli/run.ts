@@ -66,11 +66,12 @@ function finishReport(report: Report): number {
   return report.summary.fail > 0 ? EXIT_CHECK_FAILED : EXIT_OK;
 }
 
-function runBuild(args: ParsedArgs, io: Io, opts: { file: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
+function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
   const settings = resolveSettings(args.settings);
   const inputPath = resolve(io.cwd, opts.file);
-  const bytes = readInput(inputPath);
-  const result = build({ name: opts.file, bytes }, settings);
+  const name = opts.name ?? opts.file;
+  const bytes = readInput(inputPath, name);
+  const result = build({ name, bytes }, settings);
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(io.cwd, opts.outDir), stem(opts.file));
@@ -96,7 +97,7 @@ function runBuild(args: ParsedArgs, io: Io, opts: { file: string; writeGeometry:
 function runInspect(args: ParsedArgs, io: Io): number {
   const settings = resolveSettings(args.settings);
   const file = args.files[0];
-  const bytes = readInput(resolve(io.cwd, file));
+  const bytes = readInput(resolve(io.cwd, file), file);
   const r = inspect({ name: file, bytes }, settings);
   for (const w of r.warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) {
@@ -130,7 +131,7 @@ function runDemo(args: ParsedArgs, io: Io): number {
   const outDir = args.cli.outDir ?? 'rhoform-demo';
   const demoArgs: ParsedArgs = { ...args, settings: { ...DEMO.settings, ...args.settings } };
   // The demo replaces its own earlier output (and only that): the same names in its own folder.
-  const code = runBuild(demoArgs, io, { file, writeGeometry: true, force: true, outDir });
+  const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir });
   if (!args.cli.json && !args.cli.quiet) {
     io.stdout(`\nThe demo grid is ${DEMO.file} (see fixtures/grids/demo-bracket.md); its files are in ${resolve(io.cwd, outDir)}\n`);
   }
