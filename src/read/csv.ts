@@ -60,12 +60,15 @@ export function longColumns(names: readonly string[]): LongColumns | null {
  *   inferred; rowOrder does not apply. 'auto' picks 'long' when the header names x, y and value/rho/density.
  * - Errors (RhoformError with a 1-based {line, col}): E_CSV_EMPTY, E_CSV_TOKEN, E_CSV_RAGGED, E_CSV_LONG,
  *   E_GRID_SIZE (as soon as the count passes `maxCells`, before allocating more), E_GRID_EMPTY (nodal grid
- *   smaller than 2 × 2), E_USAGE (bad cell size).
+ *   smaller than 2 × 2), E_USAGE (cell size not positive and finite, maxCells not ≥ 1).
  * - `locate(i, j)`: grid layout → data row / column in the file and the token's {line, col}; long layout →
  *   fileRow = the line number of the cell's line, fileCol = the 1-based index of the value column (3 for
  *   x, y, value). Columns are found lazily by re-scanning that line, so the result keeps `text` alive.
  */
 export function readCsv(text: string, options: ReadOptions): ReadResult {
+  if (!(options.maxCells >= 1)) {
+    throw new RhoformError('E_USAGE', `expected maxCells to be a positive count, found ${options.maxCells}`);
+  }
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const cur = new LineCursor(body);
   const first = toContent(cur);

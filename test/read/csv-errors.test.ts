@@ -100,9 +100,10 @@ describe('readCsv errors', () => {
     expect(fail('1,2,3\n', { values: 'nodes' }).code).toBe('E_GRID_EMPTY');
   });
 
-  it('E_USAGE for a cell size that is not positive and finite (NaN included)', () => {
+  it('E_USAGE for a cell size that is not positive and finite and a maxCells below 1 (NaN included)', () => {
     for (const cellSize of [[0, 1], [1, -1], [NaN, 1], [1, Infinity]] as [number, number][]) {
       expect(fail('1,2\n', { cellSize }).code).toBe('E_USAGE');
     }
+    for (const maxCells of [0, NaN, -5]) expect(fail('1,2\n', { maxCells }).code).toBe('E_USAGE');
   });
 });
