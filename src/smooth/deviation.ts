@@ -1,0 +1,250 @@
+/**
+ * Measures of how far a simplified outline is from the raw contour: ring area and the one-sided (directed)
+ * Hausdorff distance from the final rings to the raw rings, sampled.
+ *
+ * Lengths in mm, areas in mm², y up. Rings are flat ({@link FlatRings}), implicitly closed.
+ */
+
+import { type FlatRings, SegmentGrid, sqSegDist } from '../geom/segments.js';
+
+/** Signed area (mm², shoelace) of one flat ring: positive when counter-clockwise. */
+export function ringArea(xy: Float64Array, from = 0, to = xy.length >> 1): number {
+  let a = 0;
+  if (to - from < 3) return 0;
+  let px = xy[2 * (to - 1)], py = xy[2 * (to - 1) + 1];
+  for (let i = from; i < to; i++) {
+    const x = xy[2 * i], y = xy[2 * i + 1];
+    a += px * y - x * py;
+    px = x; py = y;
+  }
+  return a / 2;
+}
+
+/** Sum of the signed areas (mm²) of all rings: material area when outers are CCW and holes CW. */
+export function totalArea(rings: FlatRings): number {
+  let a = 0;
+  for (let r = 0; r + 1 < rings.start.length; r++) a += ringArea(rings.xy, rings.start[r], rings.start[r + 1]);
+  return a;
+}
+
+/** Segments of all rings as four coordinate arrays (each ring closed by its last segment). */
+export function ringSegments(rings: FlatRings): { x0: Float64Array; y0: Float64Array; x1: Float64Array; y1: Float64Array; ring: Int32Array } {
+  const { xy, start } = rings;
+  const n = start[start.length - 1];
+  const x0 = new Float64Array(n), y0 = new Float64Array(n), x1 = new Float64Array(n), y1 = new Float64Array(n);
+  const ring = new Int32Array(n);
+  for (let r = 0; r + 1 < start.length; r++) {
+    const a = start[r], b = start[r + 1];
+    for (let i = a; i < b; i++) {
+      const j = i + 1 === b ? a : i + 1;
+      x0[i] = xy[2 * i]; y0[i] = xy[2 * i + 1];
+      x1[i] = xy[2 * j]; y1[i] = xy[2 * j + 1];
+      ring[i] = r;
+    }
+  }
+  return { x0, y0, x1, y1, ring };
+}
+
+/**
+ * Directed Hausdorff distance (mm) from the final rings to the raw rings, sampled: the largest distance from a
+ * sample point of any final segment to the nearest raw segment (any ring). Each final segment of length L is
+ * sampled at its start and at m−1 interior points, m = ⌈L / spacing⌉, so every point of every final ring is
+ * within spacing/2 of a sample; the distance function is 1-Lipschitz, so the true value is at most the result
+ * plus spacing/2. Vertices are measured exactly. Returns 0 when there is nothing to measure, Infinity when
+ * `final` has points but `raw` has none.
+ *
+ * Nearest raw segments come from a uniform grid searched ring by ring outward until no unvisited cell can be
+ * closer than the best distance found, starting from the previous sample's nearest segment as an upper bound.
+ */
+export function directedHausdorff(final: FlatRings, raw: FlatRings, spacing: number): number {
+  const nf = final.start[final.start.length - 1];
+  const nr = raw.start[raw.start.length - 1];
+  if (nf === 0) return 0;
+  if (nr === 0) return Infinity;
+  const seg = ringSegments(raw);
+  let len = 0;
+  for (let s = 0; s < nr; s++) len += Math.hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
+  const grid = new SegmentGrid(seg.x0, seg.y0, seg.x1, seg.y1, Math.max(2 * (len / nr), 1e-9));
+  const step = spacing > 0 && Number.isFinite(spacing) ? spacing : Infinity;
+  const q = new Query(grid);
+  const { xy, start } = final;
+  let worst = 0;
+  for (let r = 0; r + 1 < start.length; r++) {
+    const a = start[r], b = start[r + 1];
+    for (let i = a; i < b; i++) {
+      const j = i + 1 === b ? a : i + 1;
+      const ax = xy[2 * i], ay = xy[2 * i + 1], bx = xy[2 * j], by = xy[2 * j + 1];
+      const L = Math.hypot(bx - ax, by - ay);
+      const m = step === Infinity ? 2 : Math.max(1, Math.ceil(L / step));
+      for (let k = 0; k < m; k++) {
+        const t = k / m;
+        const d = q.nearest(ax + (bx - ax) * t, ay + (by - ay) * t);
+        if (d > worst) worst = d;
+      }
+    }
+  }
+  return worst;
+}
+
+/** Nearest-segment search on a {@link SegmentGrid} with a warm-start hint. */
+class Query {
+  private hint = 0;
+  constructor(private readonly g: SegmentGrid) {}
+
+  nearest(px: number, py: number): number {
+    const g = this.g;
+    const h = this.hint;
+    let best = Math.sqrt(sqSegDist(px, py, g.x0[h], g.y0[h], g.x1[h], g.y1[h]));
+    const c0 = Math.floor((px - g.minX) / g.cs), r0 = Math.floor((py - g.minY) / g.cs);
+    const reach = Math.max(g.cols, g.rows) + Math.abs(c0) + Math.abs(r0) + 1;
+    const cs = g.cs;
+    for (let k = 0; k <= reach; k++) {
+      // cells at Chebyshev distance k are at least (k − 1)·cs away from the query point
+      if ((k - 1) * cs > best) break;
+      for (let r = r0 - k; r <= r0 + k; r++) {
+        if (r < 0 || r >= g.rows) continue;
+        const cy0 = g.minY + r * cs;
+        const dy = py < cy0 ? cy0 - py : py > cy0 + cs ? py - cy0 - cs : 0;
+        if (dy > best) continue;
+        const edge = r === r0 - k || r === r0 + k;
+        for (let c = c0 - k; c <= c0 + k; c += edge || k === 0 ? 1 : 2 * k) {
+          if (c < 0 || c >= g.cols) continue;
+          // skip cells whose box is farther than the best distance so far
+          const cx0 = g.minX + c * cs;
+          const dx = px < cx0 ? cx0 - px : px > cx0 + cs ? px - cx0 - cs : 0;
+          if (dx * dx + dy * dy > best * best) continue;
+          const cell = r * g.cols + c;
+          for (let p = g.cellStart[cell]; p < g.cellStart[cell + 1]; p++) {
+            const s = g.items[p];
+            const dd = sqSegDist(px, py, g.x0[s], g.y0[s], g.x1[s], g.y1[s]);
+            if (dd < best * best) {
+              best = Math.sqrt(dd);
+              this.hint = s;
+            }
+          }
+        }
+      }
+    }
+    return best;
+  }
+}
+
+/** Spans longer than this many raw segments are searched through a moving window of ±WINDOW segments. */
+const BRUTE = 32;
+const WINDOW = 8;
+
+/**
+ * Directed distance (mm) from the final rings to the raw rings, measured span by span: final vertex f is raw
+ * vertex index[f] (smoothed or not) of the same ring, so final segment f → f+1 replaces the raw vertices
+ * index[f] … index[f+1]. Points of that segment are measured against the raw segments of that span plus one
+ * raw segment on either side; a distance to some raw segments is never less than the distance to all of them,
+ * so every measured value is an upper bound of the true distance to the raw rings. Spans of up to 32 raw
+ * segments are searched in full; longer ones (runs along the domain edge that simplify to one chord) through a
+ * window of ±8 segments that follows the nearest segment along the chord.
+ *
+ * Sampling (branch and bound on a 1-Lipschitz function): all final vertices are measured first; then each
+ * final segment is split in halves while a piece can still beat the largest value found and is longer than
+ * `spacing`. A piece is bounded by (d_a + d_b + length)/2 (the distance is 1-Lipschitz) and by the larger end
+ * distance to the raw segment nearest to either end (the distance to one segment is convex along a line). The true directed Hausdorff distance is therefore at
+ * most the result + spacing/2. `final.start` and `raw.start` list the same rings. Returns 0 for no rings.
+ */
+export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRings, spacing: number): number {
+  const step = spacing > 0 && Number.isFinite(spacing) ? spacing : Infinity;
+  const { xy, start } = final;
+  const R = raw.xy;
+  let worst = 0;
+  let span = new Float64Array(256);
+  let stack = new Float64Array(600);
+  const near = new Near();
+  for (let pass = 0; pass < 2; pass++) {
+    for (let r = 0; r + 1 < start.length; r++) {
+      const a = start[r], b = start[r + 1];
+      const s0 = raw.start[r], n = raw.start[r + 1] - s0;
+      if (b <= a || n === 0) continue;
+      for (let f = a; f < b; f++) {
+        const g = f + 1 === b ? a : f + 1;
+        const ax = xy[2 * f], ay = xy[2 * f + 1], bx = xy[2 * g], by = xy[2 * g + 1];
+        const ia = index[f] - s0;
+        let gap = (index[g] - s0 - ia + n) % n;
+        if (gap === 0) gap = n;
+        const count = Math.min(gap + 2, n); // raw segments of the span, one extra on either side
+        if (span.length < 2 * (count + 1)) span = new Float64Array(4 * (count + 1));
+        for (let j = 0; j <= count; j++) {
+          const i = s0 + ((((ia - 1 + j) % n) + n) % n);
+          span[2 * j] = R[2 * i];
+          span[2 * j + 1] = R[2 * i + 1];
+        }
+        near.reset(span, count);
+        const da = near.dist(ax, ay);
+        if (da > worst) worst = da;
+        if (pass === 0) continue; // vertices first: a good lower bound prunes most of the sampling
+        const ja = near.at;
+        const db = near.dist(bx, by);
+        const jb = near.at;
+        const L = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
+        let top = 0;
+        const push = (t0: number, t1: number, d0: number, d1: number, j0: number, j1: number): void => {
+          if (top + 6 > stack.length) { const g2 = new Float64Array(stack.length * 2); g2.set(stack); stack = g2; }
+          stack[top++] = t0; stack[top++] = t1; stack[top++] = d0; stack[top++] = d1; stack[top++] = j0; stack[top++] = j1;
+        };
+        push(0, 1, da, db, ja, jb);
+        while (top > 0) {
+          top -= 6;
+          const t0 = stack[top], t1 = stack[top + 1], d0 = stack[top + 2], d1 = stack[top + 3];
+          const j0 = stack[top + 4], j1 = stack[top + 5];
+          const len = (t1 - t0) * L;
+          if ((d0 + d1 + len) / 2 <= worst || len <= step) continue;
+          const x0 = ax + (bx - ax) * t0, y0 = ay + (by - ay) * t0, x1 = ax + (bx - ax) * t1, y1 = ay + (by - ay) * t1;
+          // distance to one fixed raw segment is convex along the chord: its larger end value bounds the piece
+          if (Math.max(near.to(j0, x1, y1), d0) <= worst || Math.max(near.to(j1, x0, y0), d1) <= worst) continue;
+          const tm = (t0 + t1) / 2;
+          near.at = j0;
+          const dm = near.dist(ax + (bx - ax) * tm, ay + (by - ay) * tm);
+          const jm = near.at;
+          if (dm > worst) worst = dm;
+          push(tm, t1, dm, d1, jm, j1);
+          push(t0, tm, d0, dm, j0, jm);
+        }
+      }
+    }
+  }
+  return worst;
+}
+
+/** Nearest distance (mm) from a point to a short polyline (count segments), windowed for long ones. */
+class Near {
+  at = 0;
+  private p: Float64Array = new Float64Array(0);
+  private count = 0;
+
+  reset(p: Float64Array, count: number): void {
+    this.p = p;
+    this.count = count;
+    this.at = 0;
+  }
+
+  /** Distance (mm) from a point to segment j of the polyline. */
+  to(j: number, px: number, py: number): number {
+    const p = this.p;
+    return Math.sqrt(sqSegDist(px, py, p[2 * j], p[2 * j + 1], p[2 * j + 2], p[2 * j + 3]));
+  }
+
+  dist(px: number, py: number): number {
+    const p = this.p, count = this.count;
+    let best = Infinity;
+    let lo = 0, hi = count - 1;
+    if (count > BRUTE) { lo = Math.max(0, this.at - WINDOW); hi = Math.min(count - 1, this.at + WINDOW); }
+    for (;;) {
+      let bestJ = this.at;
+      for (let j = lo; j <= hi; j++) {
+        const dd = sqSegDist(px, py, p[2 * j], p[2 * j + 1], p[2 * j + 2], p[2 * j + 3]);
+        if (dd < best) { best = dd; bestJ = j; }
+      }
+      const moved = bestJ !== this.at;
+      this.at = bestJ;
+      if (count <= BRUTE || !moved || (bestJ > lo && bestJ < hi)) break;
+      lo = Math.max(0, bestJ - WINDOW); hi = Math.min(count - 1, bestJ + WINDOW);
+    }
+    return Math.sqrt(best);
+  }
+}

@@ -1,0 +1,247 @@
+/**
+ * The smoothing stage: Taubin λ|μ smoothing, then Ramer–Douglas–Peucker simplification, under one deviation
+ * budget, followed by validation and local repair. docs/smoothing.md explains the method and its limits.
+ *
+ * Frame: mm, y up, origin at the lower-left corner of the grid. Input rings come from marching squares
+ * (outer rings CCW, holes CW, implicitly closed, about one vertex per lattice-edge crossing); output rings keep
+ * their orientation. Methods: G. Taubin, "Curve and surface smoothing without shrinkage", ICCV 1995,
+ * DOI 10.1109/ICCV.1995.466848; U. Ramer, CGIP 1(3):244–256, 1972, DOI 10.1016/S0146-664X(72)80017-0;
+ * D.H. Douglas & T.K. Peucker, Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727.
+ */
+
+import { RhoformError } from '../errors.js';
+import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
+import type { FlatRings } from '../geom/segments.js';
+import { ringArea, spanDeviation, totalArea } from './deviation.js';
+import { simplifyRing } from './simplify.js';
+import { taubinRingInPlace } from './taubin.js';
+import { type RingRoles, validateRings } from './validate.js';
+import { edgeFlags, repairRound } from './repair.js';
+
+export interface SmoothOptions {
+  /** Taubin λ|μ pairs (default 2); 0 = off. */
+  iterations: number;
+  /** Taubin λ, 0 < λ (default 0.33). */
+  lambda: number;
+  /** Taubin μ, μ < 0 with λ < −μ (default −0.34). */
+  mu: number;
+  /** mm: total budget for the largest distance of the final outline from the raw contour. */
+  tolerance: number;
+  /** mm: the domain rectangle; vertices on its edges stay on them. */
+  domain: readonly [minX: number, minY: number, maxX: number, maxY: number];
+}
+
+export interface SmoothResult {
+  polygons: PolygonSet;
+  /** mm: sampled directed Hausdorff distance from the final rings to the raw rings (docs/smoothing.md §4). */
+  maxDeviation: number;
+  /** mm², raw (outer areas minus hole areas). */
+  areaBefore: number;
+  /** mm², final. */
+  areaAfter: number;
+  verticesBefore: number;
+  verticesAfter: number;
+  /** Rings dropped because they had fewer than three distinct vertices or zero area (with their holes). */
+  ringsDropped: number;
+}
+
+/** Share of the tolerance smoothing may use; simplification gets the rest (plus whatever smoothing left). */
+export const SMOOTH_SHARE = 0.5;
+/** Rounds of local repair before offending rings fall back to their raw form. */
+const MAX_ROUNDS = 8;
+
+/**
+ * Smooths and simplifies a polygon set within a deviation budget and returns it with its measurements.
+ *
+ * Budget: smoothing clamps every vertex to within SMOOTH_SHARE·tolerance of its raw position; simplification
+ * then uses ε = tolerance − (largest smoothing displacement). Together every final point lies within
+ * `tolerance` of the raw rings (proof in docs/smoothing.md §3); `maxDeviation` measures it independently.
+ * Vertices on the domain edges (within 1e-9 of the domain size) never move; domain corners and the vertices
+ * where a ring leaves an edge are always kept. Invalid results (crossing or touching rings, misplaced holes,
+ * flipped rings) are repaired by restoring dropped vertices, then raw vertices, around each problem.
+ * The input is not modified.
+ */
+export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothResult {
+  checkOptions(options);
+  const { tolerance, domain } = options;
+  const { rawFlat, roles, verticesBefore, ringsDropped } = flatten(raw);
+  const nRings = rawFlat.start.length - 1;
+  const n = rawFlat.start[nRings];
+  const R = rawFlat.xy;
+
+  // 1. Taubin smoothing with the displacement cap
+  const { fixed, anchor } = edgeFlags(rawFlat, domain);
+  const S = R.slice();
+  let used = 0;
+  if (options.iterations > 0 && tolerance > 0) {
+    const taubin = { iterations: options.iterations, lambda: options.lambda, mu: options.mu,
+      maxShift: SMOOTH_SHARE * tolerance, box: domain };
+    const scratch = new Float64Array(2 * maxRingSize(rawFlat.start));
+    for (let r = 0; r < nRings; r++) {
+      const a = rawFlat.start[r], b = rawFlat.start[r + 1];
+      const shift = taubinRingInPlace(S.subarray(2 * a, 2 * b), R.subarray(2 * a, 2 * b),
+        fixed.subarray(a, b), taubin, scratch);
+      if (shift > used) used = shift;
+    }
+  }
+  // 2. RDP with the rest of the budget
+  const eps = Math.max(0, tolerance - used);
+  const keep = new Uint8Array(n);
+  const stack = new Int32Array(2 * maxRingSize(rawFlat.start) + 4);
+  for (let r = 0; r < nRings; r++) {
+    const a = rawFlat.start[r], b = rawFlat.start[r + 1];
+    keep.set(simplifyRing(S.subarray(2 * a, 2 * b), eps, anchor.subarray(a, b), stack), a);
+  }
+  // 3. validate; repair locally until valid (or every offending ring is raw)
+  const useRaw = new Uint8Array(n);
+  let final = assemble(rawFlat, S, keep, useRaw);
+  for (let round = 0; round <= MAX_ROUNDS; round++) {
+    const v = validateRings(final.rings, roles);
+    if (v.problems === 0) break;
+    const changed = repairRound(rawFlat, roles, keep, useRaw, final, v, round, round === MAX_ROUNDS);
+    if (!changed) break; // what is left is already raw: the input itself is invalid there (docs/smoothing.md §5)
+    final = assemble(rawFlat, S, keep, useRaw);
+  }
+
+  // 4. measure and rebuild
+  const spacing = sampleSpacing(final.rings, tolerance);
+  const maxDeviation = spanDeviation(final.rings, final.index, rawFlat, spacing);
+  const polygons = rebuild(final.rings, roles);
+  return {
+    polygons,
+    maxDeviation,
+    areaBefore: totalArea(rawFlat),
+    areaAfter: totalArea(final.rings),
+    verticesBefore,
+    verticesAfter: final.rings.start[nRings],
+    ringsDropped,
+  };
+}
+
+function checkOptions(o: SmoothOptions): void {
+  const bad = (name: string, expected: string, found: unknown): never => {
+    throw new RhoformError('E_USAGE', `smooth ${name}: expected ${expected}, found ${String(found)}`);
+  };
+  if (!(Number.isInteger(o.iterations) && o.iterations >= 0)) bad('iterations', 'an integer ≥ 0', o.iterations);
+  if (!(o.lambda > 0 && o.lambda < 1)) bad('lambda', 'a number in (0, 1)', o.lambda);
+  if (!(o.mu <= 0 && o.mu > -1)) bad('mu', 'a number in (−1, 0]', o.mu);
+  if (!(o.tolerance >= 0 && Number.isFinite(o.tolerance))) bad('tolerance', 'a finite length ≥ 0 mm', o.tolerance);
+  const d = o.domain;
+  if (!(d && d.length === 4 && d.every(Number.isFinite) && d[2] > d[0] && d[3] > d[1])) {
+    bad('domain', '[minX, minY, maxX, maxY] with minX < maxX and minY < maxY', JSON.stringify(d));
+  }
+}
+
+/**
+ * Packs the polygons into flat rings (outer, then its holes), without repeated consecutive points. Rings with
+ * fewer than three distinct points, zero area or non-finite coordinates are dropped (an outer with its holes).
+ */
+function flatten(raw: PolygonSet): { rawFlat: FlatRings; roles: RingRoles; verticesBefore: number; ringsDropped: number } {
+  let verticesBefore = 0, ringCount = 0;
+  for (const poly of raw.polygons) {
+    ringCount += 1 + poly.holes.length;
+    verticesBefore += poly.outer.length;
+    for (const h of poly.holes) verticesBefore += h.length;
+  }
+  const xy = new Float64Array(2 * verticesBefore);
+  const start = new Int32Array(ringCount + 1);
+  const hole = new Uint8Array(ringCount);
+  const owner = new Int32Array(ringCount);
+  let rings = 0, used = 0, ringsDropped = 0;
+  // writes ring at `used`; returns the new end when the ring is kept, else `used`
+  const push = (ring: Ring): number => {
+    let o = used;
+    for (let i = 0; i < ring.length; i++) {
+      const x = ring[i][0], y = ring[i][1];
+      if (o > used && xy[2 * o - 2] === x && xy[2 * o - 1] === y) continue;
+      xy[2 * o] = x;
+      xy[2 * o + 1] = y;
+      o++;
+    }
+    while (o - used >= 2 && xy[2 * o - 2] === xy[2 * used] && xy[2 * o - 1] === xy[2 * used + 1]) o--;
+    let finite = true;
+    for (let i = 2 * used; i < 2 * o; i++) if (!Number.isFinite(xy[i])) finite = false;
+    return o - used >= 3 && finite && ringArea(xy, used, o) !== 0 ? o : used;
+  };
+  for (const poly of raw.polygons) {
+    const end = push(poly.outer);
+    if (end === used) {
+      ringsDropped += 1 + poly.holes.length;
+      continue;
+    }
+    const outerIndex = rings;
+    hole[rings] = 0; owner[rings] = -1; start[rings] = used; rings++; used = end;
+    for (const h of poly.holes) {
+      const e = push(h);
+      if (e === used) { ringsDropped++; continue; }
+      hole[rings] = 1; owner[rings] = outerIndex; start[rings] = used; rings++; used = e;
+    }
+  }
+  start[rings] = used;
+  return {
+    rawFlat: { xy: xy.slice(0, 2 * used), start: start.slice(0, rings + 1) },
+    roles: { hole: hole.slice(0, rings), owner: owner.slice(0, rings) },
+    verticesBefore,
+    ringsDropped,
+  };
+}
+
+function maxRingSize(start: Int32Array): number {
+  let m = 0;
+  for (let r = 0; r + 1 < start.length; r++) m = Math.max(m, start[r + 1] - start[r]);
+  return m;
+}
+
+/** The final rings: kept vertices, raw coordinates where useRaw is set; index maps final → raw vertex. */
+function assemble(raw: FlatRings, S: Float64Array, keep: Uint8Array, useRaw: Uint8Array): { rings: FlatRings; index: Int32Array } {
+  let count = 0;
+  for (let i = 0; i < keep.length; i++) count += keep[i];
+  const xy = new Float64Array(2 * count);
+  const index = new Int32Array(count);
+  const start = new Int32Array(raw.start.length);
+  let o = 0;
+  for (let r = 0; r + 1 < raw.start.length; r++) {
+    start[r] = o;
+    for (let i = raw.start[r]; i < raw.start[r + 1]; i++) {
+      if (keep[i] === 0) continue;
+      const src = useRaw[i] !== 0 ? raw.xy : S;
+      xy[2 * o] = src[2 * i];
+      xy[2 * o + 1] = src[2 * i + 1];
+      index[o++] = i;
+    }
+  }
+  start[raw.start.length - 1] = o;
+  return { rings: { xy, start }, index };
+}
+
+/** Sample spacing for the deviation measure: a quarter of the tolerance, at most 4 million samples. */
+function sampleSpacing(rings: FlatRings, tolerance: number): number {
+  if (!(tolerance > 0)) return Infinity;
+  const { xy, start } = rings;
+  let perimeter = 0;
+  for (let r = 0; r + 1 < start.length; r++) {
+    for (let i = start[r]; i < start[r + 1]; i++) {
+      const j = i + 1 === start[r + 1] ? start[r] : i + 1;
+      perimeter += Math.hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
+    }
+  }
+  return Math.max(tolerance / 4, perimeter / 4e6);
+}
+
+/** Back to nested tuples: each outer ring followed by its holes. */
+function rebuild(rings: FlatRings, roles: RingRoles): PolygonSet {
+  const { xy, start } = rings;
+  const polygons: Polygon[] = [];
+  let current: { outer: Point[]; holes: Point[][] } | null = null;
+  for (let r = 0; r + 1 < start.length; r++) {
+    const pts: Point[] = new Array(start[r + 1] - start[r]);
+    for (let i = start[r]; i < start[r + 1]; i++) pts[i - start[r]] = [xy[2 * i], xy[2 * i + 1]];
+    if (roles.hole[r] === 0) {
+      current = { outer: pts, holes: [] };
+      polygons.push(current);
+    } else if (current) {
+      current.holes.push(pts);
+    }
+  }
+  return { polygons };
+}

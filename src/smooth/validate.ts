@@ -1,0 +1,144 @@
+/**
+ * Validity of a set of rings: no ring crosses or touches itself, no two rings cross or touch, every ring has
+ * at least three vertices and the orientation of its role (outer CCW, hole CW), outers lie in no material and
+ * holes lie inside their own outer ring and in no other hole.
+ *
+ * Intersections use a uniform grid of segments (each segment listed in the cells its line passes through):
+ * O(segments + pairs sharing a cell), about O(n) for outlines whose segments are not much longer than the
+ * cell size. Nesting uses one winding-number ray per ring cast through the same grid. Lengths in mm, y up.
+ */
+
+import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
+import { ringArea, ringSegments } from './deviation.js';
+
+/** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
+export interface RingRoles {
+  readonly hole: Uint8Array;
+  readonly owner: Int32Array;
+}
+
+/** Per-segment and per-ring problem flags. Segment indices are global vertex indices (segment i starts at i). */
+export interface Validation {
+  /** segmentHit[i] = 1 when segment i touches or crosses another segment (adjacent ones excepted). */
+  readonly segmentHit: Uint8Array;
+  /** ringHit[r] = 1 when ring r is degenerate, has the wrong orientation or the wrong nesting. */
+  readonly ringHit: Uint8Array;
+  /**
+   * blamed[r] = 1 when ring r may cause a nesting failure of another ring: the owner of a misplaced hole and
+   * every ring crossed by the test ray of a misplaced ring.
+   */
+  readonly blamed: Uint8Array;
+  /** Number of flagged segments plus flagged rings; 0 means valid. */
+  readonly problems: number;
+}
+
+/**
+ * Checks the rings (flat, mm) against their roles. Adjacent segments of one ring may share their common vertex
+ * but must not fold back onto each other; every other pair of segments must be disjoint (closed segments).
+ */
+export function validateRings(rings: FlatRings, roles: RingRoles): Validation {
+  const { xy, start } = rings;
+  const nRings = start.length - 1;
+  const n = start[nRings];
+  const seg = ringSegments(rings);
+  const segmentHit = new Uint8Array(n);
+  const ringHit = new Uint8Array(nRings);
+  const blamed = new Uint8Array(nRings);
+  let problems = 0;
+  for (let r = 0; r < nRings; r++) {
+    const a = start[r], b = start[r + 1];
+    const area = ringArea(xy, a, b);
+    if (b - a < 3 || !(roles.hole[r] ? area < 0 : area > 0)) {
+      ringHit[r] = 1;
+      problems++;
+    }
+  }
+  if (n === 0) return { segmentHit, ringHit, blamed, problems };
+  let len = 0;
+  for (let s = 0; s < n; s++) len += Math.hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
+  const grid = new SegmentGrid(seg.x0, seg.y0, seg.x1, seg.y1, Math.max(2 * (len / n), 1e-9));
+  const { x0, y0, x1, y1, ring } = seg;
+  const next = (s: number): number => (s + 1 === start[ring[s] + 1] ? start[ring[s]] : s + 1);
+  const cells = grid.cols * grid.rows;
+  for (let cell = 0; cell < cells; cell++) {
+    const p0 = grid.cellStart[cell], p1 = grid.cellStart[cell + 1];
+    for (let p = p0; p < p1; p++) {
+      const s = grid.items[p];
+      for (let q = p + 1; q < p1; q++) {
+        const t = grid.items[q];
+        let bad: boolean;
+        if (ring[s] === ring[t] && next(s) === t) bad = foldsBack(x0[s], y0[s], x1[s], y1[s], x1[t], y1[t]);
+        else if (ring[s] === ring[t] && next(t) === s) bad = foldsBack(x0[t], y0[t], x1[t], y1[t], x1[s], y1[s]);
+        else bad = segmentsIntersect(x0[s], y0[s], x1[s], y1[s], x0[t], y0[t], x1[t], y1[t]);
+        if (bad) {
+          if (!segmentHit[s]) { segmentHit[s] = 1; problems++; }
+          if (!segmentHit[t]) { segmentHit[t] = 1; problems++; }
+        }
+      }
+    }
+  }
+  // nesting: winding number of all other rings at the first vertex of each ring
+  for (let r = 0; r < nRings; r++) {
+    if (start[r + 1] - start[r] < 1) continue;
+    const px = xy[2 * start[r]], py = xy[2 * start[r] + 1];
+    const own = roles.hole[r] ? roles.owner[r] : -1;
+    let total = 0, fromOwner = 0;
+    const row = grid.row(py);
+    for (let c = grid.col(px); c < grid.cols; c++) {
+      const cell = row * grid.cols + c;
+      for (let p = grid.cellStart[cell]; p < grid.cellStart[cell + 1]; p++) {
+        const s = grid.items[p];
+        if (ring[s] === r) continue;
+        const up = y0[s] <= py && py < y1[s];
+        const down = y1[s] <= py && py < y0[s];
+        if (!up && !down) continue;
+        const xc = x0[s] + ((py - y0[s]) * (x1[s] - x0[s])) / (y1[s] - y0[s]);
+        if (!(xc > px)) continue;
+        // count each crossing once: in the column that holds its x (within the segment's own columns)
+        const lo = grid.col(Math.min(x0[s], x1[s])), hi = grid.col(Math.max(x0[s], x1[s]));
+        let cc = grid.col(xc);
+        cc = cc < lo ? lo : cc > hi ? hi : cc;
+        if (cc !== c) continue;
+        const w = up ? 1 : -1;
+        total += w;
+        if (ring[s] === own) fromOwner += w;
+      }
+    }
+    const ok = roles.hole[r] ? total === 1 && fromOwner === 1 : total === 0;
+    if (!ok) {
+      if (!ringHit[r]) {
+        ringHit[r] = 1;
+        problems++;
+      }
+      if (own >= 0) blamed[own] = 1;
+      blameRay(grid, seg, r, px, py, blamed);
+    }
+  }
+  return { segmentHit, ringHit, blamed, problems };
+}
+
+/** Segments a→v and v→b fold back when a, v, b are collinear and a and b lie on the same side of v. */
+function foldsBack(ax: number, ay: number, vx: number, vy: number, bx: number, by: number): boolean {
+  if (orient(ax, ay, vx, vy, bx, by) !== 0) return false;
+  return (ax - vx) * (bx - vx) + (ay - vy) * (by - vy) > 0;
+}
+
+/** Marks every ring (other than r) with a segment crossing the ray from (px, py) towards +x. */
+function blameRay(
+  grid: SegmentGrid,
+  seg: { x0: Float64Array; y0: Float64Array; x1: Float64Array; y1: Float64Array; ring: Int32Array },
+  r: number, px: number, py: number, blamed: Uint8Array,
+): void {
+  const row = grid.row(py);
+  for (let c = grid.col(px); c < grid.cols; c++) {
+    const cell = row * grid.cols + c;
+    for (let p = grid.cellStart[cell]; p < grid.cellStart[cell + 1]; p++) {
+      const s = grid.items[p];
+      if (seg.ring[s] === r) continue;
+      const { x0, y0, x1, y1 } = seg;
+      if (!((y0[s] <= py && py < y1[s]) || (y1[s] <= py && py < y0[s]))) continue;
+      const xc = x0[s] + ((py - y0[s]) * (x1[s] - x0[s])) / (y1[s] - y0[s]);
+      if (xc > px) blamed[seg.ring[s]] = 1;
+    }
+  }
+}
