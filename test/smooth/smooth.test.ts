@@ -97,19 +97,21 @@ describe('near-touching shapes stay valid', () => {
 
   it('a small hole in a low bump that simplification would flatten is kept inside', () => {
     const outer = dense([[0, 0], [20, 0], [20, 10], [12, 10], [11, 10.4], [9, 10.4], [8, 10], [0, 10]], 0.05);
-    const hole = dense([[9.9, 10.1], [9.9, 10.3], [10.1, 10.3], [10.1, 10.1]], 0.02); // CW
-    const raw: PolygonSet = { polygons: [{ outer, holes: [hole] }] };
-    // without repair, RDP with ε = 1 flattens the bump and leaves the hole outside the material
-    const flat = (ring: Point[]) => Float64Array.from(ring.flat());
-    const keep = simplifyRing(flat(outer), 1);
-    const naiveOuter = outer.filter((_, i) => keep[i]);
-    expect(bruteProblems({ polygons: [{ outer: naiveOuter, holes: [hole] }] })).toContain('polygon 0 hole 0: outside its outer');
-    for (const iterations of [0, 3]) {
-      const res = smoothPolygons(raw, opts(1, [-5, -5, 25, 15], iterations));
-      expect(bruteProblems(res.polygons)).toEqual([]);
-      expect(res.polygons.polygons[0].holes).toHaveLength(1);
-      expect(res.maxDeviation).toBeLessThanOrEqual(1);
-      expect(bruteDeviation(res.polygons, raw, 0.02)).toBeLessThanOrEqual(1);
+    // CW holes: one wholly inside the bump, one reaching below its base line y = 10
+    for (const [y0, problem] of [[10.1, 'polygon 0 hole 0: outside its outer'], [9.9, 'segments']] as const) {
+      const hole = dense([[9.9, y0], [9.9, 10.3], [10.1, 10.3], [10.1, y0]], 0.02);
+      const raw: PolygonSet = { polygons: [{ outer, holes: [hole] }] };
+      // without repair, RDP with ε = 1 flattens the bump: the hole ends outside the material or crosses the outline
+      const keep = simplifyRing(Float64Array.from(outer.flat()), 1);
+      const naiveOuter = outer.filter((_, i) => keep[i]);
+      expect(bruteProblems({ polygons: [{ outer: naiveOuter, holes: [hole] }] }).some((m) => m.startsWith(problem))).toBe(true);
+      for (const iterations of [0, 3]) {
+        const res = smoothPolygons(raw, opts(1, [-5, -5, 25, 15], iterations));
+        expect(bruteProblems(res.polygons)).toEqual([]);
+        expect(res.polygons.polygons[0].holes).toHaveLength(1);
+        expect(res.maxDeviation).toBeLessThanOrEqual(1);
+        expect(bruteDeviation(res.polygons, raw, 0.02)).toBeLessThanOrEqual(1);
+      }
     }
   });
 
@@ -210,5 +212,22 @@ describe('a large plate (about 200k raw vertices)', () => {
     // analytic sagitta of a chord: area change ≤ perimeter × tolerance
     const perimeter = 2 * (2000 + 1000) + 37 * 18 * 2 * Math.PI * 18;
     expect(Math.abs(res.areaAfter - res.areaBefore)).toBeLessThan(perimeter * 0.125);
+  });
+});
+
+describe('input that is already invalid', () => {
+  it('returns touching raw rings as they are when there is no budget, and separates them when there is', () => {
+    // two squares sharing the corner (10, 10): invalid before smoothing (docs/smoothing.md §5)
+    const a = dense([[0, 0], [10, 0], [10, 10], [0, 10]], 0.5);
+    const b = dense([[10, 10], [20, 10], [20, 20], [10, 20]], 0.5);
+    const raw: PolygonSet = { polygons: [{ outer: a, holes: [] }, { outer: b, holes: [] }] };
+    expect(bruteProblems(raw).length).toBeGreaterThan(0);
+    const still = smoothPolygons(raw, opts(0, [-5, -5, 25, 25]));
+    // tolerance 0: nothing can move; the repair gives up on the touching rings and returns them raw
+    expect(still.polygons.polygons.map((p) => p.outer)).toEqual([a, b]);
+    const res = smoothPolygons(raw, opts(0.3, [-5, -5, 25, 25]));
+    // with a budget, smoothing rounds the shared corner away and the result is valid
+    expect(bruteProblems(res.polygons)).toEqual([]);
+    expect(res.maxDeviation).toBeLessThanOrEqual(0.3);
   });
 });
