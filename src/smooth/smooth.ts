@@ -21,9 +21,9 @@ import { edgeFlags, repairRound } from './repair.js';
 export interface SmoothOptions {
   /** Taubin λ|μ pairs (default 2); 0 = off. */
   iterations: number;
-  /** Taubin λ, 0 < λ (default 0.33). */
+  /** Taubin λ, 0 < λ < 1 (default 0.33). */
   lambda: number;
-  /** Taubin μ, μ < 0 with λ < −μ (default −0.34). */
+  /** Taubin μ, −1 < μ ≤ 0 (default −0.34); Taubin takes λ < −μ; μ = 0 gives plain Laplacian smoothing. */
   mu: number;
   /** mm: total budget for the largest distance of the final outline from the raw contour. */
   tolerance: number;

@@ -108,4 +108,36 @@ describe('measures', () => {
     // the other way: the corners of the outer square are √2 from the inner square's corners
     expect(directedHausdorff(flat(outer), inner, 0.01)).toBeCloseTo(Math.SQRT2, 12);
   });
+
+  it('directedHausdorff agrees with a brute-force sampled distance on random rings', () => {
+    const rand = rng(5);
+    const ring = (R: number, noise: number) => {
+      const out: number[] = [];
+      for (let i = 0; i < 200; i++) {
+        const t = (2 * Math.PI * i) / 200, r = R + noise * (rand() - 0.5);
+        out.push(r * Math.cos(t), r * Math.sin(t));
+      }
+      return out;
+    };
+    const a = ring(10, 0.6), b = ring(10, 0.1);
+    const step = 0.01;
+    let brute = 0;
+    for (let i = 0; i < 200; i++) {
+      const j = (i + 1) % 200;
+      const m = Math.ceil(Math.hypot(a[2 * j] - a[2 * i], a[2 * j + 1] - a[2 * i + 1]) / step);
+      for (let k = 0; k < m; k++) {
+        const x = a[2 * i] + ((a[2 * j] - a[2 * i]) * k) / m, y = a[2 * i + 1] + ((a[2 * j + 1] - a[2 * i + 1]) * k) / m;
+        let best = Infinity;
+        for (let q = 0; q < 200; q++) {
+          const w = (q + 1) % 200;
+          const vx = b[2 * w] - b[2 * q], vy = b[2 * w + 1] - b[2 * q + 1];
+          const t = Math.max(0, Math.min(1, ((x - b[2 * q]) * vx + (y - b[2 * q + 1]) * vy) / (vx * vx + vy * vy)));
+          best = Math.min(best, Math.hypot(x - b[2 * q] - t * vx, y - b[2 * q + 1] - t * vy));
+        }
+        brute = Math.max(brute, best);
+      }
+    }
+    // same samples on both sides (same step), so the two must agree to rounding
+    expect(directedHausdorff(flat(a), flat(b), step)).toBeCloseTo(brute, 12);
+  });
 });
