@@ -4,7 +4,7 @@
  * Pure: bytes and settings in, strings and a report out. The CLI does every file operation.
  */
 import { createHash } from 'node:crypto';
-import { contourGrid, levelAreaModel } from './contour/index.js';
+import { contourGrid, levelBandModel } from './contour/index.js';
 import { RhoformError } from './errors.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { prepareGrid } from './field/prepare.js';
@@ -76,8 +76,9 @@ function mapRange(grid: DensityGrid, [lo, hi]: readonly [number, number]): Densi
 function describeInput(input: InputFile, read: ReadResult, s: Settings): { input: Report['input']; greyShare: number; mapped: DensityGrid } {
   const g = read.grid;
   const raw = fieldStats(g);
-  const mapped = mapRange(g, s.valueRange);
-  const st = fieldStats(mapped);
+  const identity = s.valueRange[0] === 0 && s.valueRange[1] === 1;
+  const mapped = identity ? g : mapRange(g, s.valueRange);
+  const st = identity ? raw : fieldStats(mapped);
   return {
     input: {
       file: input.name,
@@ -118,6 +119,8 @@ export interface BuildResult {
   readonly raw: PolygonSet;
   readonly smoothed: SmoothResult;
   readonly warnings: string[];
+  /** Full contour + smooth passes the volume search needed (1 for --level). */
+  readonly builds: number;
   /** Milliseconds spent per stage (read, prepare, threshold = search + contour + smooth). */
   readonly timings: Readonly<Record<string, number>>;
   /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
@@ -147,17 +150,20 @@ export function build(input: InputFile, s: Settings): BuildResult {
   const tolerance = s.tolerance ?? 0.25 * Math.min(hx, hy);
   const smoothOpts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance, domain } as const;
 
-  const target = s.volumeFraction ?? Math.min(1, Math.max(0, fieldMean(grid)));
-  const pg = fieldStats(grid);
+  const mean = grid.placement === 'nodes' ? fieldMean(grid) : prep.mean;
+  const target = s.volumeFraction ?? Math.min(1, Math.max(0, mean));
+  const pg = { min: prep.min, max: prep.max };
   const constant = pg.min === pg.max;
 
   let mode: Report['threshold']['mode'];
   let level: number | null;
   let raw: PolygonSet;
   let smoothed: SmoothResult;
+  let builds = 0;
   let tContour = 0;
   let tSmooth = 0;
   const contourAt = (L: number) => {
+    builds++;
     const a = performance.now();
     const r = contourGrid(grid, L, s.saddle);
     const b = performance.now();
@@ -185,7 +191,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
     warnings.push('the target volume fraction is 0: the part is empty');
   } else {
     mode = 'volume';
-    const model = levelAreaModel(grid, s.saddle);
+    const model = levelBandModel(grid, s.saddle);
     const found = volumeLevel(model, target * domainArea, s.volumeTolerance, (L) => {
       const c = contourAt(L);
       return { area: c.sm.areaAfter, rawArea: c.sm.areaBefore, value: c };
@@ -242,6 +248,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
     smoothed,
     warnings,
     timings,
+    builds,
     dxf: () => writeDxf(writerInput),
     svg: () => writeSvg(writerInput),
   };

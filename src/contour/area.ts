@@ -105,30 +105,6 @@ export function cellArea(lat: AreaLattice, cell: number, level: number, saddle: 
   );
 }
 
-/** The per-cell model the level search works on (src/threshold/search.ts). */
-export interface CellAreaModel {
-  readonly cellCount: number;
-  readonly cellMin: Float64Array;
-  readonly cellMax: Float64Array;
-  /** mm², the cell entirely solid. */
-  fullArea(cell: number): number;
-  /** mm², the part of the cell at or above `level`. */
-  cellArea(cell: number, level: number): number;
-}
-
-/** buildAreaLattice with the saddle rule bound, as the level search expects it. */
-export function levelAreaModel(grid: DensityGrid, saddle: SaddleRule): CellAreaModel & { readonly lattice: AreaLattice } {
-  const lattice = buildAreaLattice(grid);
-  return {
-    lattice,
-    cellCount: lattice.cellCount,
-    cellMin: lattice.cellMin,
-    cellMax: lattice.cellMax,
-    fullArea: (cell) => cellFullArea(lattice, cell),
-    cellArea: (cell, level) => cellArea(lattice, cell, level, saddle),
-  };
-}
-
 /**
  * Area in mm² of the region contourGrid(grid, level, saddle) encloses, summed cell by cell without stitching
  * (same conventions: values ≥ level solid, NaN void, hard domain edge). One pass over the grid, O(one row) memory.

@@ -5,8 +5,7 @@ export {
   buildAreaLattice,
   cellArea,
   cellFullArea,
-  levelAreaModel,
   type AreaLattice,
-  type CellAreaModel,
 } from './area.js';
+export { levelBandModel, cellRangeHistogram, packBand, bandCellArea, BAND_STRIDE, type CellRangeHistogram, type PackedBand } from './band.js';
 export { type SaddleRule, SADDLE_RULES } from './saddle.js';

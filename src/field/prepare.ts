@@ -27,6 +27,10 @@ export interface PrepareResult {
   readonly nonFinite: number;
   /** Samples clipped into [0, 1]. */
   readonly clipped: number;
+  /** Smallest, largest and mean prepared value (cell grids: the mean is the volume fraction). */
+  readonly min: number;
+  readonly max: number;
+  readonly mean: number;
   readonly warnings: string[];
 }
 
@@ -63,16 +67,25 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
   let worst = -1;
   let worstExcess = 0;
   let clipped = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  let sum = 0;
   for (let k = 0; k < n; k++) {
     const raw = src[k];
     if (!Number.isFinite(raw)) {
       nonFinite++;
       if (firstNonFinite < 0) firstNonFinite = k;
       out[k] = 0;
+      if (0 < min) min = 0;
       continue;
     }
-    const v = (raw - lo) * scale;
-    if (v < 0 || v > 1) {
+    const v = lo === 0 && hi === 1 ? raw : (raw - lo) * scale;
+    if (v >= 0 && v <= 1) {
+      out[k] = v;
+      sum += v;
+      if (v < min) min = v;
+      if (v > max) max = v;
+    } else {
       clipped++;
       const excess = v < 0 ? -v : v - 1;
       if (excess > RANGE_OVERSHOOT + 1e-12) {
@@ -82,11 +95,14 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
           worst = k;
         }
       }
-      out[k] = v < 0 ? 0 : 1;
-    } else {
-      out[k] = v;
+      const c = v < 0 ? 0 : 1;
+      out[k] = c;
+      sum += c;
+      if (c < min) min = c;
+      if (c > max) max = c;
     }
   }
+  if (nonFinite > 0 && 0 > max) max = 0;
   const warnings: string[] = [];
   if (nonFinite > 0) {
     if (options.nonFinite === 'error') {
@@ -120,5 +136,5 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
   } else if (clipped > 0) {
     warnings.push(`${clipped} value${clipped === 1 ? '' : 's'} slightly outside ${fmt(lo)}..${fmt(hi)} (≤ ${RANGE_OVERSHOOT} of the range) clipped`);
   }
-  return { grid: { ...grid, values: out }, nonFinite, clipped, warnings };
+  return { grid: { ...grid, values: out }, nonFinite, clipped, warnings, min, max, mean: n > 0 ? sum / n : 0 };
 }

@@ -33,8 +33,11 @@ export interface SmoothOptions {
 
 export interface SmoothResult {
   polygons: PolygonSet;
-  /** mm: sampled directed Hausdorff distance from the final rings to the raw rings (docs/smoothing.md §4). */
-  maxDeviation: number;
+  /**
+   * mm: sampled directed Hausdorff distance from the final rings to the raw rings (docs/smoothing.md §4).
+   * Measured on first read (the volume search builds candidates it never reports).
+   */
+  readonly maxDeviation: number;
   /** mm², raw (outer areas minus hole areas). */
   areaBefore: number;
   /** mm², final. */
@@ -103,13 +106,15 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
     final = assemble(rawFlat, S, keep, useRaw);
   }
 
-  // 4. measure and rebuild
-  const spacing = sampleSpacing(final.rings, tolerance);
-  const maxDeviation = spanDeviation(final.rings, final.index, rawFlat, spacing);
+  // 4. rebuild; measure the deviation when it is asked for
   const polygons = rebuild(final.rings, roles);
+  const measured = final;
+  let maxDeviation: number | undefined;
   return {
     polygons,
-    maxDeviation,
+    get maxDeviation(): number {
+      return (maxDeviation ??= spanDeviation(measured.rings, measured.index, rawFlat, sampleSpacing(measured.rings, tolerance)));
+    },
     areaBefore: totalArea(rawFlat),
     areaAfter: totalArea(final.rings),
     verticesBefore,

@@ -3,23 +3,46 @@
  *
  * The enclosed area A(L) of the region {value ≥ L} is a sum over lattice cells: a cell whose smallest
  * corner value is ≥ L is full, one whose largest corner value is < L is empty, and only the cells whose
- * corner range straddles L need the piecewise-linear area of the case polygon. A(L) is continuous and
- * non-increasing, so bisection applies; each step keeps only the cells whose range meets the current
- * bracket (the "active" cells), so after the first steps the work is proportional to the boundary length,
- * not to the number of cells.
+ * corner range straddles L need the piecewise-linear area of their case polygon. A(L) is continuous and
+ * non-increasing in L.
+ *
+ * 1. One pass bins the cells by their smallest and largest corner value. The binned sums bound A from
+ *    below (cells surely full) and above (cells possibly solid) at every bin edge, which brackets the answer
+ *    without evaluating any cell polygon.
+ * 2. One more pass keeps only the cells whose range meets that bracket (the "band": about the boundary of
+ *    the part) and packs their corner values; the other cells are summed once.
+ * 3. Regula falsi with the Illinois modification on the packed cells, narrowing them as the bracket shrinks.
  */
 
-/** Per-cell view of the lattice the contour is drawn on (provided by the contour stage). */
+import { BAND_STRIDE } from '../contour/band.js';
+
+/** Floats per packed cell: 4 corner values, width, height (mm), then the smallest and largest corner value. */
+export { BAND_STRIDE };
+
+/** Cell areas binned by corner range (see the contour stage's cellRangeHistogram). */
+export interface BandHistogram {
+  readonly gmin: number;
+  readonly gmax: number;
+  /** mm², the whole domain. */
+  readonly total: number;
+  /** Area (mm²) of the cells whose smallest / largest corner value is in bin k of [gmin, gmax], k = 0 … bins. */
+  readonly minHist: Float64Array;
+  readonly maxHist: Float64Array;
+}
+
+/** The cells that meet a bracket [lo, hi], packed BAND_STRIDE floats each, and the area of those full on it. */
+export interface Band {
+  readonly fullBase: number;
+  readonly buf: Float64Array;
+  readonly count: number;
+}
+
+/** What the search needs of the lattice the contour is drawn on (provided by the contour stage). */
 export interface LevelAreaModel {
-  /** Number of lattice cells. */
-  readonly cellCount: number;
-  /** Smallest and largest corner value of each cell. */
-  readonly cellMin: Float64Array;
-  readonly cellMax: Float64Array;
-  /** Area of the cell in mm² (its area when it is entirely solid). */
-  fullArea(cell: number): number;
-  /** Area in mm² of the part of the cell at or above `level`. */
-  cellArea(cell: number, level: number): number;
+  histogram(bins: number): BandHistogram;
+  pack(lo: number, hi: number): Band;
+  /** Area in mm² at `level` of the packed cell at buf[o] (0 if its max < level, full if its min ≥ level). */
+  packedArea(buf: Float64Array, o: number, level: number): number;
 }
 
 export interface RawLevelResult {
@@ -27,63 +50,165 @@ export interface RawLevelResult {
   readonly level: number;
   /** Raw region area at that level, mm². */
   readonly area: number;
-  /** Bisection steps taken. */
+  /** Root-finding steps taken (area evaluations after the bracket). */
   readonly steps: number;
 }
 
-/**
- * Level L such that the raw region area A(L) equals `targetArea` (mm²) to `relTol` (relative to the target)
- * or until the bracket can no longer shrink. Returns the bracket end nearer the target when the target lies
- * outside [A(max), A(min)].
- */
-export function levelForArea(model: LevelAreaModel, targetArea: number, relTol = 1e-7): RawLevelResult {
-  const n = model.cellCount;
-  const { cellMin, cellMax } = model;
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let c = 0; c < n; c++) {
-    if (cellMin[c] < lo) lo = cellMin[c];
-    if (cellMax[c] > hi) hi = cellMax[c];
+const BINS = 1024;
+
+/** Bracket [lo, hi] with A(lo) ≥ target ≥ A(hi), from binned bounds on A (step 1 above). */
+function bracket(h: BandHistogram, targetArea: number): { lo: number; hi: number } {
+  const bins = h.minHist.length - 1;
+  const minS = Float64Array.from(h.minHist);
+  const maxS = Float64Array.from(h.maxHist);
+  // Suffix sums: S[k] = area of the cells whose value falls in bins ≥ k.
+  for (let k = bins - 1; k >= 0; k--) {
+    minS[k] += minS[k + 1];
+    maxS[k] += maxS[k + 1];
   }
-  // Active cells: range meets [lo, hi]. `fullBase`: area of cells with min ≥ hi (full for every L ≤ hi).
-  let active = new Int32Array(n);
-  for (let c = 0; c < n; c++) active[c] = c;
-  let activeCount = n;
-  let fullBase = 0;
-  const areaAt = (level: number): number => {
-    let a = fullBase;
-    for (let k = 0; k < activeCount; k++) {
-      const c = active[k];
-      if (cellMin[c] >= level) a += model.fullArea(c);
-      else if (cellMax[c] >= level) a += model.cellArea(c, level);
+  const edge = (k: number) => h.gmin + (k * (h.gmax - h.gmin)) / bins;
+  // A(e_k) ≥ (cells with min in bins ≥ k+1); the one-bin margin covers rounding at the bin edges.
+  let lo = h.gmin;
+  for (let k = bins - 1; k >= 1; k--) {
+    if (minS[k + 1] >= targetArea) {
+      lo = edge(k);
+      break;
     }
+  }
+  // A(e_k) ≤ (cells with max in bins ≥ k−1).
+  let hi = h.gmax;
+  for (let k = 1; k < bins; k++) {
+    if (maxS[k - 1] <= targetArea) {
+      hi = edge(k);
+      break;
+    }
+  }
+  return hi > lo ? { lo, hi } : { lo: h.gmin, hi: h.gmax };
+}
+
+/** A bracket of the level with its cells classified: the start of every search that fits inside it. */
+interface PackedBracket {
+  readonly lo: number;
+  readonly hi: number;
+  readonly aLo: number;
+  readonly aHi: number;
+  /** Area of the cells surely full on [lo, hi], mm². */
+  readonly fullBase: number;
+  /** The other cells that meet [lo, hi], packed by model.pack. */
+  readonly buf: Float64Array;
+  readonly count: number;
+}
+
+/** Step 2: classify the cells once for the bracket [lo, hi]. */
+function packBracket(model: LevelAreaModel, lo: number, hi: number): PackedBracket {
+  const band = model.pack(lo, hi);
+  const at = (level: number) => {
+    let a = band.fullBase;
+    for (let k = 0; k < band.count; k++) a += model.packedArea(band.buf, BAND_STRIDE * k, level);
     return a;
   };
-  const aLo = areaAt(lo);
-  const aHi = areaAt(hi);
-  if (targetArea >= aLo) return { level: lo, area: aLo, steps: 0 };
-  if (targetArea <= aHi) return { level: hi, area: aHi, steps: 0 };
-  const tol = Math.abs(targetArea) * relTol;
-  let steps = 0;
-  let best = { level: lo, area: aLo };
-  for (; steps < 200; steps++) {
-    const mid = 0.5 * (lo + hi);
-    if (!(mid > lo && mid < hi)) break;
-    const a = areaAt(mid);
-    if (Math.abs(a - targetArea) < Math.abs(best.area - targetArea)) best = { level: mid, area: a };
-    if (Math.abs(a - targetArea) <= tol) break;
-    if (a > targetArea) lo = mid;
-    else hi = mid;
-    // Narrow the active set to cells whose range meets [lo, hi]; cells entirely ≥ hi become part of the base.
-    let m = 0;
-    const next = active;
-    for (let k = 0; k < activeCount; k++) {
-      const c = active[k];
-      if (cellMin[c] >= hi) fullBase += model.fullArea(c);
-      else if (cellMax[c] >= lo) next[m++] = c;
+  return { lo, hi, aLo: at(lo), aHi: at(hi), fullBase: band.fullBase, buf: band.buf, count: band.count };
+}
+
+/**
+ * Finds levels for raw region areas on one model. The first search bins and packs the cells (steps 1–2);
+ * later searches whose target lies in the same bracket — the volume search asks two or three times for
+ * nearly the same area — start from the packed cells and cost only a few passes over the boundary cells.
+ */
+export class LevelSolver {
+  private packed: PackedBracket | undefined;
+  /** Working copy of the packed cells for one search (narrowed in place), reused across searches. */
+  private scratch = new Float64Array(0);
+
+  constructor(private readonly model: LevelAreaModel) {}
+
+  /**
+   * Level L such that the raw region area A(L) equals `targetArea` (mm²) to `relTol` (relative to the target)
+   * or until the bracket can no longer shrink. Returns the end of the value range when the target lies
+   * outside [A(max), A(min)].
+   *
+   * Root finding by regula falsi with the Illinois modification (M. Dowell, P. Jarratt, "A modified regula falsi
+   * method for computing the root of an equation", BIT 11:168–174, 1971, DOI 10.1007/BF01934364): superlinear
+   * on the smooth pieces of A(L), never leaving the bracket; a bisection step only if rounding puts the
+   * interpolated level on an end of the bracket.
+   */
+  solve(targetArea: number, relTol = 1e-7): RawLevelResult {
+    const model = this.model;
+    let p = this.packed;
+    if (!p || !(p.aLo >= targetArea && targetArea >= p.aHi)) {
+      const h = model.histogram(BINS);
+      if (!(h.gmax > h.gmin) || h.minHist.length < 2) return { level: h.gmin, area: h.total, steps: 0 };
+      const br = bracket(h, targetArea);
+      p = packBracket(model, br.lo, br.hi);
+      this.packed = p;
+      if (targetArea >= p.aLo) return { level: p.lo, area: p.aLo, steps: 0 };
+      if (targetArea <= p.aHi) return { level: p.hi, area: p.aHi, steps: 0 };
     }
-    activeCount = m;
-    active = next;
+    let { lo, hi, fullBase, count } = p;
+    // Evaluate on the shared packed cells until the first narrowing copies the survivors to the scratch buffer.
+    let buf = p.buf;
+    if (this.scratch.length < count * BAND_STRIDE) this.scratch = new Float64Array(count * BAND_STRIDE);
+    const scratch = this.scratch;
+    const areaAt = (level: number): number => {
+      let a = fullBase;
+      for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * k, level);
+      return a;
+    };
+    // Drop the packed cells that no longer meet [lo, hi] (full ones join fullBase).
+    const narrow = () => {
+      let keep = 0;
+      for (let k = 0; k < count; k++) {
+        const o = BAND_STRIDE * k;
+        if (buf[o + 6] >= hi) fullBase += buf[o + 4] * buf[o + 5];
+        else if (buf[o + 7] >= lo) {
+          if (keep !== k || buf !== scratch) {
+            const t = BAND_STRIDE * keep;
+            for (let q = 0; q < BAND_STRIDE; q++) scratch[t + q] = buf[o + q];
+          }
+          keep++;
+        }
+      }
+      count = keep;
+      buf = scratch;
+    };
+    const tol = Math.abs(targetArea) * relTol;
+    let narrowedWidth = hi - lo;
+    // f = A − target: positive at lo, negative at hi. Illinois: halve the weight of the end that stays put.
+    let fLo = p.aLo - targetArea;
+    let fHi = p.aHi - targetArea;
+    let side = 0;
+    let steps = 0;
+    let best = Math.abs(fLo) < Math.abs(fHi) ? { level: lo, area: p.aLo } : { level: hi, area: p.aHi };
+    for (; steps < 200; steps++) {
+      let mid = lo + (fLo / (fLo - fHi)) * (hi - lo);
+      if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
+      if (!(mid > lo && mid < hi)) break;
+      const a = areaAt(mid);
+      const f = a - targetArea;
+      if (Math.abs(f) < Math.abs(best.area - targetArea)) best = { level: mid, area: a };
+      if (Math.abs(f) <= tol) break;
+      if (f > 0) {
+        lo = mid;
+        fLo = f;
+        if (side === 1) fHi *= 0.5;
+        side = 1;
+      } else {
+        hi = mid;
+        fHi = f;
+        if (side === -1) fLo *= 0.5;
+        side = -1;
+      }
+      // Re-pack only when the bracket has halved: each pass costs as much as an evaluation.
+      if (hi - lo < 0.5 * narrowedWidth) {
+        narrow();
+        narrowedWidth = hi - lo;
+      }
+    }
+    return { level: best.level, area: best.area, steps };
   }
-  return { level: best.level, area: best.area, steps };
+}
+
+/** One search on its own (see LevelSolver.solve). */
+export function levelForArea(model: LevelAreaModel, targetArea: number, relTol = 1e-7): RawLevelResult {
+  return new LevelSolver(model).solve(targetArea, relTol);
 }

@@ -11,7 +11,7 @@
  * Struct. Multidisc. Optim. 41(4):495–505, 2010, DOI 10.1007/s00158-009-0452-7, in the limit β → ∞; here it is
  * applied to the polygon area rather than to the count of cells.
  */
-import { levelForArea, type LevelAreaModel } from './search.js';
+import { LevelSolver, type LevelAreaModel } from './search.js';
 
 /** What one full build at a level yields. */
 export interface BuildAtLevel<T> {
@@ -42,12 +42,14 @@ export function volumeLevel<T>(
   build: (level: number) => BuildAtLevel<T>,
   maxBuilds = 6,
 ): VolumeLevelResult<T> {
+  const solver = new LevelSolver(model);
   let aim = targetArea;
   let best: { level: number; build: BuildAtLevel<T>; err: number } | undefined;
   let builds = 0;
   const scale = targetArea > 0 ? targetArea : 1;
   for (; builds < maxBuilds; ) {
-    const raw = levelForArea(model, aim, 1e-9);
+    // The raw aim needs to be far more precise than the volume tolerance, not more.
+    const raw = solver.solve(aim, Math.min(1e-6, relTol / 100));
     const b = build(raw.level);
     builds++;
     const err = Math.abs(b.area - targetArea) / scale;

@@ -29,5 +29,7 @@ console.log(
     wallMs: performance.now() - t0,
     maxRssMb: process.resourceUsage().maxRSS / 1024,
     vertices: r.report.geometry.vertices,
+    builds: r.builds,
+    relErr: Math.abs(r.report.threshold.achievedFraction - r.report.threshold.targetFraction) / r.report.threshold.targetFraction,
   }),
 );

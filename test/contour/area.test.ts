@@ -4,7 +4,8 @@ import {
   cellArea,
   cellFullArea,
   contourGrid,
-  levelAreaModel,
+  levelBandModel,
+  BAND_STRIDE,
   regionArea,
   type SaddleRule,
 } from '../../src/contour/index.js';
@@ -100,14 +101,21 @@ describe('AreaLattice', () => {
     }
   });
 
-  it('levelAreaModel binds the saddle rule', () => {
+  it('the band model (histogram + packed cells) gives regionArea for every level in its bracket, all saddle rules', () => {
     const g = smoothField(30, 30, 41, 1);
     for (const rule of RULES) {
-      const m = levelAreaModel(g, rule);
-      let a = 0;
-      for (let c = 0; c < m.cellCount; c++) a += m.cellArea(c, 0.5);
-      expect(Math.abs(a / regionArea(g, 0.5, rule) - 1)).toBeLessThan(1e-12);
-      expect(m.fullArea(0)).toBeCloseTo(0.25, 15); // corner cell of a cell-centred grid: h/2 × h/2
+      const m = levelBandModel(g, rule);
+      const h = m.histogram(64);
+      // The histograms account for every cell: their totals are the domain area.
+      expect(h.minHist.reduce((x, y) => x + y, 0)).toBeCloseTo(h.total, 9);
+      expect(h.maxHist.reduce((x, y) => x + y, 0)).toBeCloseTo(h.total, 9);
+      expect(h.total).toBeCloseTo(30 * 30, 9);
+      const band = m.pack(0.4, 0.6);
+      for (const L of [0.4, 0.45, 0.5, 0.6]) {
+        let a = band.fullBase;
+        for (let k = 0; k < band.count; k++) a += m.packedArea(band.buf, BAND_STRIDE * k, L);
+        expect(Math.abs(a / regionArea(g, L, rule) - 1)).toBeLessThan(1e-12);
+      }
     }
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { levelForArea, type LevelAreaModel } from '../../src/threshold/search.js';
+import { BAND_STRIDE, levelForArea, type LevelAreaModel } from '../../src/threshold/search.js';
 import { volumeLevel } from '../../src/threshold/volume.js';
 
 /**
@@ -7,14 +7,23 @@ import { volumeLevel } from '../../src/threshold/volume.js';
  * (hi − L)/(hi − lo) of its unit area (a linear ramp across the cell). A(L) is then known in closed form.
  */
 function rampModel(los: number[], w: number): LevelAreaModel {
-  const cellMin = Float64Array.from(los);
-  const cellMax = Float64Array.from(los.map((l) => l + w));
+  const bins = (n: number, pick: (lo: number) => number, gmin: number, gmax: number) => {
+    const hist = new Float64Array(n + 1);
+    for (const lo of los) hist[Math.min(n, Math.floor(((pick(lo) - gmin) * n) / (gmax - gmin)))] += 1;
+    return hist;
+  };
+  const gmin = Math.min(...los);
+  const gmax = Math.max(...los) + w;
   return {
-    cellCount: los.length,
-    cellMin,
-    cellMax,
-    fullArea: () => 1,
-    cellArea: (c, L) => Math.min(1, Math.max(0, (cellMax[c] - L) / w)),
+    histogram: (n) => ({ gmin, gmax, total: los.length, minHist: bins(n, (lo) => lo, gmin, gmax), maxHist: bins(n, (lo) => lo + w, gmin, gmax) }),
+    pack: (lo, hi) => {
+      const cells = los.filter((l) => l < hi && l + w >= lo);
+      const buf = new Float64Array(cells.length * BAND_STRIDE);
+      // Packed as corners (lo, hi, lo, hi) of a unit cell, then w, h, min, max.
+      cells.forEach((l, k) => buf.set([l, l + w, l, l + w, 1, 1, l, l + w], k * BAND_STRIDE));
+      return { fullBase: los.filter((l) => l >= hi).length, buf, count: cells.length };
+    },
+    packedArea: (b, o, L) => Math.min(1, Math.max(0, (b[o + 7] - L) / (b[o + 7] - b[o + 6]))),
   };
 }
 

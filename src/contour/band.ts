@@ -1,0 +1,204 @@
+/**
+ * The level search's view of the area lattice, computed by streaming the grid row by row (no per-cell arrays):
+ *
+ * - cellRangeHistogram: the area of the lattice cells binned by their smallest and by their largest corner
+ *   value — bounds on the enclosed area A(L) at every bin edge;
+ * - packBand: for a level bracket [lo, hi], the area of the cells surely full on it, and the corner values of
+ *   the cells that meet it, packed for repeated evaluation (bandCellArea).
+ *
+ * Same lattice, sample placement, hard edge and saddle rules as contourGrid and regionArea (./area.ts):
+ * Σ over packed cells of bandCellArea + fullBase equals regionArea for every level in [lo, hi].
+ */
+import type { DensityGrid } from '../types.js';
+import { cellPolyArea } from './cell-area.js';
+import { fillRow, gridLattice, latticeValue } from './lattice.js';
+import type { SaddleRule } from './saddle.js';
+
+/** Floats per packed cell: v00, v10, v01, v11 (corner values), w, h (mm), min, max (of the corners). */
+export const BAND_STRIDE = 8;
+
+export interface CellRangeHistogram {
+  /** Smallest and largest lattice value (NaN samples count as −∞). */
+  readonly gmin: number;
+  readonly gmax: number;
+  /** Total lattice area, mm² (the domain area). */
+  readonly total: number;
+  /**
+   * Area (mm²) of the cells whose smallest (resp. largest) corner value falls in bin k = ⌊(v − gmin)·bins/(gmax − gmin)⌋,
+   * k = 0 … bins (the last entry holds v = gmax). Empty when gmax ≤ gmin or a bound is not finite.
+   */
+  readonly minHist: Float64Array;
+  readonly maxHist: Float64Array;
+}
+
+export interface PackedBand {
+  /** Area (mm²) of the cells whose smallest corner value is ≥ hi: full at every level of the bracket. */
+  readonly fullBase: number;
+  /** count × BAND_STRIDE floats. */
+  readonly buf: Float64Array;
+  readonly count: number;
+}
+
+/**
+ * Streams the area lattice two rows at a time. `cell(i, j)` is called with the corner values already in
+ * `lo`/`hi` (bottom/top row of lattice values); kept as a plain loop in each caller for speed, this helper
+ * only prepares the rows.
+ */
+class RowStream {
+  readonly xs: Float64Array;
+  readonly ys: Float64Array;
+  readonly cols: number;
+  lo: Float64Array;
+  hi: Float64Array;
+  private readonly lat: NonNullable<ReturnType<typeof gridLattice>>;
+
+  constructor(private readonly grid: DensityGrid) {
+    const lat = gridLattice(grid);
+    if (!lat) throw new Error('RowStream: empty lattice');
+    this.lat = lat;
+    this.xs = lat.x.coords;
+    this.ys = lat.y.coords;
+    this.cols = this.xs.length - 1;
+    this.lo = new Float64Array(this.cols + 1);
+    this.hi = new Float64Array(this.cols + 1);
+  }
+
+  /** Number of lattice rows of cells. */
+  get rows(): number {
+    return this.ys.length - 1;
+  }
+
+  /** Loads the bottom and top value rows of lattice cell row j (call with j = 0, 1, 2, … in order). */
+  load(j: number): void {
+    if (j === 0) fillRow(this.grid, this.lat.x.sample, this.lat.y.sample[0], this.lo, 0);
+    else {
+      const t = this.lo;
+      this.lo = this.hi;
+      this.hi = t;
+    }
+    fillRow(this.grid, this.lat.x.sample, this.lat.y.sample[j + 1], this.hi, 0);
+  }
+}
+
+/** Smallest / largest of four values (plain comparisons: much faster than Math.min with four arguments). */
+function min4(a: number, b: number, c: number, d: number): number {
+  const p = a < b ? a : b;
+  const q = c < d ? c : d;
+  return p < q ? p : q;
+}
+function max4(a: number, b: number, c: number, d: number): number {
+  const p = a > b ? a : b;
+  const q = c > d ? c : d;
+  return p > q ? p : q;
+}
+
+/** Smallest and largest lattice value: the samples, NaN as −∞ (the edge nodes repeat edge samples). */
+function valueBounds(grid: DensityGrid): [number, number] {
+  let gmin = Infinity;
+  let gmax = -Infinity;
+  const v = grid.values;
+  for (let k = 0; k < v.length; k++) {
+    const x = latticeValue(v[k]);
+    if (x < gmin) gmin = x;
+    if (x > gmax) gmax = x;
+  }
+  return [gmin, gmax];
+}
+
+/** Cell areas binned by their corner range (see CellRangeHistogram). One pass over the grid. */
+export function cellRangeHistogram(grid: DensityGrid, bins: number): CellRangeHistogram {
+  if (!gridLattice(grid)) return { gmin: 0, gmax: 0, total: 0, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
+  const [gmin, gmax] = valueBounds(grid);
+  const r = new RowStream(grid);
+  const { xs, ys, cols } = r;
+  const total = (xs[cols] - xs[0]) * (ys[r.rows] - ys[0]);
+  if (!(gmax > gmin) || !Number.isFinite(gmin) || !Number.isFinite(gmax)) {
+    return { gmin, gmax, total, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
+  }
+  const minHist = new Float64Array(bins + 1);
+  const maxHist = new Float64Array(bins + 1);
+  const scale = bins / (gmax - gmin);
+  for (let j = 0; j < r.rows; j++) {
+    r.load(j);
+    const { lo, hi } = r;
+    const h = ys[j + 1] - ys[j];
+    for (let i = 0; i < cols; i++) {
+      const a = lo[i];
+      const b = lo[i + 1];
+      const c = hi[i];
+      const d = hi[i + 1];
+      const mn = min4(a, b, c, d);
+      const mx = max4(a, b, c, d);
+      const area = (xs[i + 1] - xs[i]) * h;
+      const kmin = ((mn - gmin) * scale) | 0;
+      const kmax = ((mx - gmin) * scale) | 0;
+      minHist[kmin < bins ? kmin : bins] += area;
+      maxHist[kmax < bins ? kmax : bins] += area;
+    }
+  }
+  return { gmin, gmax, total, minHist, maxHist };
+}
+
+/** The cells meeting [lo, hi], packed, and the area of those full on it. Two passes over the grid. */
+export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand {
+  if (!gridLattice(grid)) return { fullBase: 0, buf: new Float64Array(0), count: 0 };
+  const r = new RowStream(grid);
+  const { xs, ys, cols } = r;
+  let count = 0;
+  for (let j = 0; j < r.rows; j++) {
+    r.load(j);
+    const bot = r.lo;
+    const top = r.hi;
+    for (let i = 0; i < cols; i++) {
+      if (min4(bot[i], bot[i + 1], top[i], top[i + 1]) < hi && max4(bot[i], bot[i + 1], top[i], top[i + 1]) >= lo) count++;
+    }
+  }
+  const buf = new Float64Array(count * BAND_STRIDE);
+  let fullBase = 0;
+  let o = 0;
+  for (let j = 0; j < r.rows; j++) {
+    r.load(j);
+    const bot = r.lo;
+    const top = r.hi;
+    const h = ys[j + 1] - ys[j];
+    for (let i = 0; i < cols; i++) {
+      const a = bot[i];
+      const b = bot[i + 1];
+      const c = top[i];
+      const d = top[i + 1];
+      const mn = min4(a, b, c, d);
+      if (mn >= hi) {
+        fullBase += (xs[i + 1] - xs[i]) * h;
+        continue;
+      }
+      const mx = max4(a, b, c, d);
+      if (mx < lo) continue;
+      buf[o] = a;
+      buf[o + 1] = b;
+      buf[o + 2] = c;
+      buf[o + 3] = d;
+      buf[o + 4] = xs[i + 1] - xs[i];
+      buf[o + 5] = h;
+      buf[o + 6] = mn;
+      buf[o + 7] = mx;
+      o += BAND_STRIDE;
+    }
+  }
+  return { fullBase, buf, count };
+}
+
+/** Area (mm²) at `level` of the packed cell at buf[o] (as cellArea would give for that cell). */
+export function bandCellArea(buf: Float64Array, o: number, level: number, saddle: SaddleRule): number {
+  if (buf[o + 6] >= level) return buf[o + 4] * buf[o + 5];
+  if (buf[o + 7] < level) return 0;
+  return cellPolyArea(buf[o], buf[o + 1], buf[o + 2], buf[o + 3], level, buf[o + 4], buf[o + 5], saddle);
+}
+
+/** The level search's model of a grid (src/threshold/search.ts LevelAreaModel), with the saddle rule bound. */
+export function levelBandModel(grid: DensityGrid, saddle: SaddleRule) {
+  return {
+    histogram: (bins: number) => cellRangeHistogram(grid, bins),
+    pack: (lo: number, hi: number) => packBand(grid, lo, hi),
+    packedArea: (buf: Float64Array, o: number, level: number) => bandCellArea(buf, o, level, saddle),
+  };
+}
