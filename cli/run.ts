@@ -3,7 +3,7 @@
  * stdout carries only the product (summary or JSON); warnings and errors go to stderr.
  */
 import { existsSync } from 'node:fs';
-import { basename, dirname, extname, join, resolve } from 'node:path';
+import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { RhoformError } from '../src/errors.js';
 import { build, inspect } from '../src/pipeline.js';
@@ -56,6 +56,12 @@ function stem(file: string): string {
   return ext ? b.slice(0, -ext.length) : b;
 }
 
+/** A path as a person would type it here: relative to the working folder when inside it, else absolute. */
+function displayPath(cwd: string, path: string): string {
+  const rel = relative(cwd, path);
+  return rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
+}
+
 function useColor(args: ParsedArgs, io: Io): boolean {
   if (args.cli.color === false) return false;
   if (io.env.NO_COLOR !== undefined && io.env.NO_COLOR !== '') return false;
@@ -76,7 +82,7 @@ function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(io.cwd, opts.outDir), stem(opts.file));
   const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
-  report.outputs = paths.map((p) => ({ file: p.path, format: p.format }));
+  report.outputs = paths.map((p) => ({ file: displayPath(io.cwd, p.path), format: p.format }));
   const planned: PlannedOutput[] = [];
   let svg: string | undefined;
   for (const p of paths) {
@@ -101,7 +107,7 @@ function runInspect(args: ParsedArgs, io: Io): number {
   const r = inspect({ name: file, bytes }, settings);
   for (const w of r.warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) {
-    io.stdout(formatJson({ schemaVersion: r.schemaVersion, tool: r.tool, input: r.input, histogram: r.histogram }));
+    io.stdout(formatJson({ schemaVersion: r.schemaVersion, tool: r.tool, input: r.input, greyShare: r.greyShare, histogram: r.histogram }));
     return EXIT_OK;
   }
   if (args.cli.quiet) return EXIT_OK;
@@ -133,7 +139,7 @@ function runDemo(args: ParsedArgs, io: Io): number {
   // The demo replaces its own earlier output (and only that): the same names in its own folder.
   const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir });
   if (!args.cli.json && !args.cli.quiet) {
-    io.stdout(`\nThe demo grid is ${DEMO.file} (see fixtures/grids/demo-bracket.md); its files are in ${resolve(io.cwd, outDir)}\n`);
+    io.stdout(`\nThe demo grid is ${DEMO.file} (a bracket of our own invention: fixtures/grids/demo-bracket.md).\nIts DXF, SVG and reports are in ${resolve(io.cwd, outDir)}/\n`);
   }
   return code;
 }

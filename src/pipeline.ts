@@ -200,6 +200,14 @@ export function build(input: InputFile, s: Settings): BuildResult {
     ({ raw, sm: smoothed } = found.build.value);
   }
   lap('threshold');
+  if (mode === 'volume' && target > 0 && domainArea > 0) {
+    const rel = Math.abs(smoothed.areaAfter / domainArea - target) / target;
+    if (rel > s.volumeTolerance) {
+      warnings.push(
+        `the volume search reached ${(100 * smoothed.areaAfter / domainArea).toFixed(3)} % against a target of ${(100 * target).toFixed(3)} % (relative error ${rel.toExponential(2)} > --volume-tolerance ${s.volumeTolerance}); the grid is too coarse or too binary for the area to vary smoothly with the level`,
+      );
+    }
+  }
   timings.threshold -= tContour + tSmooth;
   timings.contour = tContour;
   timings.smooth = tSmooth;

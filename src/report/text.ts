@@ -39,11 +39,14 @@ export function formatText(r: Report, opts: TextOptions): string {
     const st = ch.status === 'pass' ? paint(c, '32', 'pass') : ch.status === 'warn' ? paint(c, '33', 'warn') : paint(c, '31', 'FAIL');
     rows.push([st, `${ch.id}: ${fmt(ch.measured)} ${ch.comparison} ${fmt(ch.limit)} ${ch.unit} — ${ch.message}`]);
   }
-  if (r.checks.length === 0) rows.push(['checks', 'none requested']);
   for (const o of r.outputs) rows.push(['wrote', o.file]);
   const s = r.summary;
-  const status = s.status === 'pass' ? paint(c, '32;1', 'PASS') : s.status === 'warn' ? paint(c, '33;1', 'WARN') : paint(c, '31;1', 'FAIL');
-  rows.push(['result', `${status}: ${s.pass} passed, ${s.warn} warned, ${s.fail} failed`]);
+  if (r.checks.length === 0) {
+    rows.push(['result', 'geometry and report written; no manufacturability checks ran']);
+  } else {
+    const status = s.status === 'pass' ? paint(c, '32;1', 'PASS') : s.status === 'warn' ? paint(c, '33;1', 'WARN') : paint(c, '31;1', 'FAIL');
+    rows.push(['result', `${status}: ${s.pass} passed, ${s.warn} warned, ${s.fail} failed`]);
+  }
   const width = Math.max(...rows.map(([k]) => k.replace(/\u001b\[[0-9;]*m/g, '').length));
   const lines = rows.map(([k, v]) => `${k}${' '.repeat(width - k.replace(/\u001b\[[0-9;]*m/g, '').length)}  ${v}`);
   lines.push('');
