@@ -139,21 +139,13 @@ export function cellRangeHistogram(grid: DensityGrid, bins: number): CellRangeHi
   return { gmin, gmax, total, minHist, maxHist };
 }
 
-/** The cells meeting [lo, hi], packed, and the area of those full on it. Two passes over the grid. */
+/** The cells meeting [lo, hi], packed, and the area of those full on it. One pass over the grid. */
 export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand {
   if (!gridLattice(grid)) return { fullBase: 0, buf: new Float64Array(0), count: 0 };
   const r = new RowStream(grid);
   const { xs, ys, cols } = r;
-  let count = 0;
-  for (let j = 0; j < r.rows; j++) {
-    r.load(j);
-    const bot = r.lo;
-    const top = r.hi;
-    for (let i = 0; i < cols; i++) {
-      if (min4(bot[i], bot[i + 1], top[i], top[i + 1]) < hi && max4(bot[i], bot[i + 1], top[i], top[i + 1]) >= lo) count++;
-    }
-  }
-  const buf = new Float64Array(count * BAND_STRIDE);
+  // Grown by doubling: the band is usually a small share of the grid, so no counting pass.
+  let buf = new Float64Array(BAND_STRIDE * Math.max(1024, (cols * r.rows) >>> 4));
   let fullBase = 0;
   let o = 0;
   for (let j = 0; j < r.rows; j++) {
@@ -173,6 +165,11 @@ export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand 
       }
       const mx = max4(a, b, c, d);
       if (mx < lo) continue;
+      if (o + BAND_STRIDE > buf.length) {
+        const bigger = new Float64Array(buf.length * 2);
+        bigger.set(buf);
+        buf = bigger;
+      }
       buf[o] = a;
       buf[o + 1] = b;
       buf[o + 2] = c;
@@ -184,7 +181,7 @@ export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand 
       o += BAND_STRIDE;
     }
   }
-  return { fullBase, buf, count };
+  return { fullBase, buf, count: o / BAND_STRIDE };
 }
 
 /** Area (mm²) at `level` of the packed cell at buf[o] (as cellArea would give for that cell). */

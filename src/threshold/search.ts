@@ -119,6 +119,8 @@ export class LevelSolver {
   private packed: PackedBracket | undefined;
   /** Working copy of the packed cells for one search (narrowed in place), reused across searches. */
   private scratch = new Float64Array(0);
+  /** Every (level, area) evaluated inside the packed bracket: later searches start from the tightest pair. */
+  private known: { level: number; area: number }[] = [];
 
   constructor(private readonly model: LevelAreaModel) {}
 
@@ -141,10 +143,24 @@ export class LevelSolver {
       const br = bracket(h, targetArea);
       p = packBracket(model, br.lo, br.hi);
       this.packed = p;
+      this.known = [
+        { level: p.lo, area: p.aLo },
+        { level: p.hi, area: p.aHi },
+      ];
       if (targetArea >= p.aLo) return { level: p.lo, area: p.aLo, steps: 0 };
       if (targetArea <= p.aHi) return { level: p.hi, area: p.aHi, steps: 0 };
     }
-    let { lo, hi, fullBase, count } = p;
+    let { fullBase, count } = p;
+    // Warm start: the tightest known pair around the target (A is non-increasing in the level).
+    let lo = p.lo;
+    let aLo = p.aLo;
+    let hi = p.hi;
+    let aHi = p.aHi;
+    for (const k of this.known) {
+      if (k.area >= targetArea && k.level > lo) ({ level: lo, area: aLo } = k);
+      if (k.area <= targetArea && k.level < hi) ({ level: hi, area: aHi } = k);
+    }
+    const known = this.known;
     // Evaluate on the shared packed cells until the first narrowing copies the survivors to the scratch buffer.
     let buf = p.buf;
     if (this.scratch.length < count * BAND_STRIDE) this.scratch = new Float64Array(count * BAND_STRIDE);
@@ -172,18 +188,24 @@ export class LevelSolver {
       buf = scratch;
     };
     const tol = Math.abs(targetArea) * relTol;
-    let narrowedWidth = hi - lo;
+    let narrowedWidth = p.hi - p.lo;
+    if (hi - lo < 0.5 * narrowedWidth) {
+      narrow();
+      narrowedWidth = hi - lo;
+    }
     // f = A − target: positive at lo, negative at hi. Illinois: halve the weight of the end that stays put.
-    let fLo = p.aLo - targetArea;
-    let fHi = p.aHi - targetArea;
+    let fLo = aLo - targetArea;
+    let fHi = aHi - targetArea;
     let side = 0;
     let steps = 0;
-    let best = Math.abs(fLo) < Math.abs(fHi) ? { level: lo, area: p.aLo } : { level: hi, area: p.aHi };
+    let best = Math.abs(fLo) < Math.abs(fHi) ? { level: lo, area: aLo } : { level: hi, area: aHi };
+    if (Math.abs(best.area - targetArea) <= tol) return { level: best.level, area: best.area, steps };
     for (; steps < 200; steps++) {
       let mid = lo + (fLo / (fLo - fHi)) * (hi - lo);
       if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
       if (!(mid > lo && mid < hi)) break;
       const a = areaAt(mid);
+      known.push({ level: mid, area: a });
       const f = a - targetArea;
       if (Math.abs(f) < Math.abs(best.area - targetArea)) best = { level: mid, area: a };
       if (Math.abs(f) <= tol) break;
