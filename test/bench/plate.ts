@@ -3,20 +3,10 @@
  * three cells wide), about one hole per 3000 cells and about 60 % solid, so boundary length grows with size.
  * Deterministic (a fixed-seed generator). Rows are returned top row first, as an NPY/CSV file holds them.
  */
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from '../support/random.js';
 
 export function platePattern(cols: number, rows: number, seed = 7): Float64Array {
-  const rnd = mulberry32(seed);
+  const rnd = rng(seed);
   const cells = cols * rows;
   const holes = Math.max(1, Math.round(cells / 3000));
   // 40 % void in `holes` discs: π r² · holes = 0.4 · cells.

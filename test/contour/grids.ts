@@ -1,5 +1,6 @@
 /** Grid builders for the contour tests (test-only helpers; every value is computed from a formula here). */
 import type { DensityGrid } from '../../src/types.js';
+import { rng } from '../support/random.js';
 
 export function makeGrid(
   nx: number,
@@ -16,17 +17,7 @@ export function makeGrid(
   return { nx, ny, cellSize: [hx, hy], origin: opts.origin ?? [0, 0], values, placement };
 }
 
-/** Deterministic pseudo-random numbers in [0, 1) (mulberry32). */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { rng };
 
 /** A smooth random field in [0, 1]: white noise blurred by `passes` 3×3 box filters, then rescaled to [0, 1]. */
 export function smoothField(nx: number, ny: number, seed: number, passes = 4, voidBorder = 0): DensityGrid {

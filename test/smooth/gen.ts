@@ -3,18 +3,9 @@
  * lattice-edge crossing), plates with many round holes, random star-shaped blobs. mm, y up.
  */
 import type { Point, PolygonSet, Ring } from '../../src/types.js';
+import { rng } from '../support/random.js';
 
-/** Small seeded PRNG (mulberry32), so property tests are repeatable. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { rng };
 
 /**
  * Crossings of the circle (cx, cy, r) with the lattice lines x = k·h and y = k·h, in angular order
