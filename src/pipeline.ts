@@ -58,6 +58,8 @@ export interface InspectResult {
   readonly histogram: Histogram;
   /** Share (0..1) of grey samples (0.1 < ρ < 0.9), after range mapping. */
   readonly greyShare: number;
+  /** Layout read ('long' infers the cell size from the coordinates). */
+  readonly layout: 'grid' | 'long';
   readonly warnings: string[];
 }
 
@@ -108,6 +110,7 @@ export function inspect(input: InputFile, s: Settings): InspectResult {
     input: d.input,
     histogram: histogram(d.mapped, 10, 0, 1),
     greyShare: d.greyShare,
+    layout: read.layout,
     warnings: [...read.warnings],
   };
 }
@@ -219,7 +222,15 @@ export function build(input: InputFile, s: Settings): BuildResult {
   const pixelFraction = level === null ? (mode === 'constant' && pg.min >= 0.5 ? 1 : 0) : pixels / v.length;
 
   const geometry = summarizeGeometry(smoothed.polygons, domainArea);
-  const settings: Record<string, unknown> = { ...s, tolerance, smoothIterations: s.smooth };
+  // Long-form CSV infers the cell size from the coordinates: report what was used, and that it was not assumed.
+  const inferred = read.layout === 'long';
+  const settings: Record<string, unknown> = {
+    ...s,
+    cellSize: [hx, hy],
+    cellSizeDefaulted: s.cellSizeDefaulted && !inferred,
+    layout: read.layout,
+    tolerance,
+  };
   const report: Report = {
     schemaVersion: 1,
     tool: { name: 'rhoform', version: VERSION },

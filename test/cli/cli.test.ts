@@ -127,6 +127,25 @@ describe('CLI contract (DESIGN §6)', () => {
     expect(cli(['build', 'disc.csv', '--formats', 'json', '--force'], dir, {}, false).stdout).not.toMatch(/\u001b\[/);
   });
 
+  it('long form (x;y;density, decimal comma, shuffled) builds the same part as the grid form; its cell size is inferred', () => {
+    const dir = tempDir();
+    const grid = discCsv();
+    writeFileSync(join(dir, 'disc.csv'), grid);
+    // The same values as centroids of 2 mm cells, y up (file row 1 is the top row), in a scrambled order.
+    const rows = grid.trim().split('\n').map((l) => l.split(','));
+    const lines: string[] = [];
+    rows.forEach((row, r) => row.forEach((v, c) => lines.push(`${c * 2 + 1};${(rows.length - 1 - r) * 2 + 1};${v.replace('.', ',')}`)));
+    lines.sort((a, b) => (a.length * 31 + a.charCodeAt(2)) % 17 - (b.length * 31 + b.charCodeAt(2)) % 17 || a.localeCompare(b));
+    writeFileSync(join(dir, 'long.csv'), `x;y;density\n${lines.join('\n')}\n`);
+    const a = JSON.parse(cli(['build', 'disc.csv', '--cell-size', '2', '--json', '--formats', 'json'], dir).stdout);
+    const b = JSON.parse(cli(['build', 'long.csv', '--decimal-comma', '--json', '--formats', 'json'], dir).stdout);
+    expect(b.settings.layout).toBe('long');
+    expect(b.settings.cellSizeDefaulted).toBe(false);
+    expect(b.input.cellSize).toEqual([2, 2]);
+    expect(b.threshold.level).toBeCloseTo(a.threshold.level, 12);
+    expect(b.geometry.area).toBeCloseTo(a.geometry.area, 9);
+  });
+
   it('demo writes into its folder and replaces its own earlier output', () => {
     const dir = tempDir();
     const a = cli(['demo', '--out-dir', 'd', '--quiet'], dir);
