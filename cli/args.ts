@@ -1,5 +1,5 @@
 /**
- * Strict argv parsing (DESIGN §6). An unknown option or a bad value is a UsageError naming the option.
+ * Strict argv parsing (docs/cli.md). An unknown option or a bad value is a UsageError naming the option.
  * Accepts `--name value` and `--name=value`; flags take no value.
  */
 import { UsageError } from '../src/errors.js';

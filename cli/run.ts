@@ -27,7 +27,7 @@ export interface Io {
   readonly cwd: string;
 }
 
-/** Exit codes of DESIGN §6. */
+/** Exit codes of docs/cli.md. */
 export const EXIT_OK = 0;
 export const EXIT_CHECK_FAILED = 1;
 export const EXIT_ERROR = 2;

@@ -1,5 +1,5 @@
 /**
- * The only place that knows the order of the stages (DESIGN §1):
+ * The only place that knows the order of the stages (DEVELOPERS.md, layout):
  * read → prepare → threshold (volume-preserving, on the smoothed area) → contour → smooth → report → write.
  * Pure: bytes and settings in, strings and a report out. The CLI does every file operation.
  */

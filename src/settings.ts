@@ -1,6 +1,6 @@
 /**
  * Every option of a run, resolved, with its default. The CLI parses argv into a Partial<Settings>;
- * `resolveSettings` fills the defaults; the report prints the result (DESIGN §7 `settings`).
+ * `resolveSettings` fills the defaults; the report prints the result (docs/report-schema.md `settings`).
  */
 /** How a saddle cell of marching squares is resolved (docs/contour.md). */
 export type SaddleRuleName = 'decider' | 'join' | 'split';

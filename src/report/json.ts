@@ -1,4 +1,4 @@
-/** The JSON report (DESIGN §7): one object, two-space indented, non-finite numbers as null. */
+/** The JSON report (docs/report-schema.md): one object, two-space indented, non-finite numbers as null. */
 import type { Report } from '../types.js';
 
 export function formatJson(report: Report | object): string {

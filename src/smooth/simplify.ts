@@ -4,7 +4,7 @@
  * Method: U. Ramer, "An iterative procedure for the polygonal approximation of plane curves", Computer
  * Graphics and Image Processing 1(3):244–256, 1972, DOI 10.1016/S0146-664X(72)80017-0; D.H. Douglas and
  * T.K. Peucker, "Algorithms for the reduction of the number of points required to represent a digitized line
- * or its caricature", Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727 [SOURCES.md §4.3].
+ * or its caricature", Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727 [docs/references.md §4.3].
  *
  * Keep the end points of a span; find the interior vertex farthest from the segment joining them; if that
  * distance exceeds ε keep it and treat both halves the same way, else drop every interior vertex. Distances are

@@ -2,9 +2,9 @@
  * Taubin λ|μ smoothing of closed polylines with the umbrella (uniform) Laplacian.
  *
  * Method: G. Taubin, "Curve and surface smoothing without shrinkage", Proc. ICCV 1995 (IEEE Xplore document
- * 466848), DOI 10.1109/ICCV.1995.466848 [SOURCES.md §4.1: link seen through a secondary source, DOI from
+ * 466848), DOI 10.1109/ICCV.1995.466848 [docs/references.md §4.1: link seen through a secondary source, DOI from
  * memory]. Also G. Taubin, "A signal processing approach to fair surface design", Proc. SIGGRAPH '95,
- * pp. 351–358, DOI 10.1145/218380.218473 [SOURCES.md §4.1: DOI from memory].
+ * pp. 351–358, DOI 10.1145/218380.218473 [docs/references.md §4.1: DOI from memory].
  *
  * For a closed ring, Δx_i = ½(x_{i−1} + x_{i+1}) − x_i; one pair is x ← x + λΔx followed by x ← x + μΔx
  * (0 < λ < −μ), both steps computed from the positions before the step (Jacobi). A regular N-gon is an

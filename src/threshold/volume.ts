@@ -1,5 +1,5 @@
 /**
- * Volume-preserving threshold on the area of the SMOOTHED polygons (DESIGN §4).
+ * Volume-preserving threshold on the area of the SMOOTHED polygons (docs/threshold.md).
  *
  * The raw region area A(L) is found cell by cell (./search.ts). Smoothing and simplification then change the
  * area by a small amount δ that hardly depends on the level near the answer, so the search aims the raw area at

@@ -1,7 +1,7 @@
 /**
  * The fixed parts of an R2000 (AC1015) DXF file: HEADER, CLASSES, TABLES, BLOCKS and OBJECTS.
  *
- * Structure per the DXF Reference (Autodesk, AutoCAD DXF, 2015–2026 editions) and SOURCES.md §7.1:
+ * Structure per the DXF Reference (Autodesk, AutoCAD DXF, 2015–2026 editions) and docs/references.md §7.1:
  * R13+ files need HEADER with $ACADVER and $HANDSEED, CLASSES (may be empty), the nine symbol tables with
  * their standard records, BLOCKS with *Model_Space and *Paper_Space, ENTITIES and OBJECTS with the root
  * dictionary holding ACAD_GROUP. Every object carries its handle (5; 105 for DIMSTYLE) and owner (330).
@@ -55,9 +55,9 @@ export const FIRST_ENTITY_HANDLE = 0x30;
 
 /** Drawing-wide values of the header and the active viewport, in output units. */
 export interface DxfHeaderValues {
-  /** 4 = millimetres, 1 = inches ($INSUNITS, SOURCES.md §7.2). */
+  /** 4 = millimetres, 1 = inches ($INSUNITS, docs/references.md §7.2). */
   insunits: 1 | 4;
-  /** 1 = metric, 0 = English ($MEASUREMENT, SOURCES.md §7.2). */
+  /** 1 = metric, 0 = English ($MEASUREMENT, docs/references.md §7.2). */
   measurement: 0 | 1;
   extmin: readonly [number, number];
   extmax: readonly [number, number];

@@ -1,7 +1,7 @@
 /**
  * DXF writer: PolygonSet (mm, y up) → an AutoCAD R2000 (AC1015) ASCII DXF drawing.
  *
- * File layout and group codes per the DXF Reference (Autodesk, AutoCAD DXF) as summarised in SOURCES.md §7:
+ * File layout and group codes per the DXF Reference (Autodesk, AutoCAD DXF) as summarised in docs/references.md §7:
  * - every ring is a closed LWPOLYLINE (90 = vertex count, 70 = 1 closed, the first vertex not repeated);
  *   outer rings on layer `outline`, holes on layer `hole`;
  * - extras: rings → closed LWPOLYLINE, circles → CIRCLE, markers → POINT + TEXT, on their own layer;

@@ -6,7 +6,7 @@
  * - This is the only y-down conversion of the tool: y' = maxY − y (then divided by 25.4 for inches);
  *   x stays as in the model. The viewBox is `minX 0 width height`.
  * - The part is one `<path>` with `fill-rule="evenodd"`: every outer ring and hole is a sub-path `M … Z`, so
- *   holes cut whatever their winding (SVG 1.1 §11.3 'fill-rule'; SOURCES.md §7.4).
+ *   holes cut whatever their winding (SVG 1.1 §11.3 'fill-rule'; docs/references.md §7.4).
  * - Optional groups, bottom to top: `underlay` (caller markup), the part, `passive`, `repair`, `finding`
  *   (numbered circle markers).
  * - Numbers: at most 3 decimals in mm, 4 in inches (1 µm / 2.5 µm), no exponent, no "-0"; deterministic.

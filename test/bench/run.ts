@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: time each stage and the whole process, and the peak memory, on generated grids
- * (DESIGN §10; targets in the issues). Prints a Markdown table; nothing here runs in the unit tests.
+ * (docs/performance.md; targets in the issues). Prints a Markdown table; nothing here runs in the unit tests.
  *
  * For each size, the whole CLI (`build` → DXF + SVG + JSON) runs in a fresh Node process several times;
  * the median wall time is reported with that process's peak RSS, and a second child prints the stage times.

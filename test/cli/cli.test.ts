@@ -18,7 +18,7 @@ function discCsv(): string {
   return `${rows.join('\n')}\n`;
 }
 
-describe('CLI contract (DESIGN §6)', () => {
+describe('CLI contract (docs/cli.md)', () => {
   it('build writes DXF, SVG, JSON and HTML and exits 0', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'disc.csv'), discCsv());

@@ -9,12 +9,12 @@ function cell(b00: number, b10: number, b01: number, b11: number): DensityGrid {
   return { nx: 2, ny: 2, cellSize: [1, 1], origin: [0, 0], values: Float64Array.of(b00, b10, b01, b11), placement: 'nodes' };
 }
 
-/** Saddle value of the bilinear interpolant, SOURCES.md §3.4 (Nielson & Hamann 1991). */
+/** Saddle value of the bilinear interpolant, docs/references.md §3.4 (Nielson & Hamann 1991). */
 const saddleValue = (b00: number, b10: number, b01: number, b11: number) => (b00 * b11 - b10 * b01) / (b00 + b11 - b10 - b01);
 
 describe('saddle cells', () => {
   it('decider separates the high corners when the saddle value is below the level', () => {
-    // SOURCES.md §3.4 [D]: B00=0.95, B11=0.55, B10=B01=0.30, L=0.5 → saddle 0.4806 < L → separate
+    // docs/references.md §3.4 [D]: B00=0.95, B11=0.55, B10=B01=0.30, L=0.5 → saddle 0.4806 < L → separate
     // (the centre average 0.525 would join them)
     const [b00, b10, b01, b11] = [0.95, 0.3, 0.3, 0.55];
     expect(saddleValue(b00, b10, b01, b11)).toBeCloseTo(0.4806, 4);
@@ -34,7 +34,7 @@ describe('saddle cells', () => {
   });
 
   it('decider joins the high corners when the saddle value is above the level', () => {
-    // SOURCES.md §3.4 [D]: B00=0.2, B10=0.9, B01=0.8, B11=0.3 → saddle 0.55 ≥ 0.5 → join
+    // docs/references.md §3.4 [D]: B00=0.2, B10=0.9, B01=0.8, B11=0.3 → saddle 0.55 ≥ 0.5 → join
     const [b00, b10, b01, b11] = [0.2, 0.9, 0.8, 0.3];
     expect(saddleValue(b00, b10, b01, b11)).toBeCloseTo(0.55, 12);
     expect(joinsSolid(b10, b01, b00, b11, 0.5, 'decider')).toBe(true);
@@ -45,7 +45,7 @@ describe('saddle cells', () => {
   });
 
   it('decider follows the saddle value on both sides of the level, for both diagonals', () => {
-    // SOURCES.md §3.4: joined ⇔ (B00·B11 − B10·B01)/(B00 + B11 − B10 − B01) ≥ L, checked on many random cells
+    // docs/references.md §3.4: joined ⇔ (B00·B11 − B10·B01)/(B00 + B11 − B10 − B01) ≥ L, checked on many random cells
     let seed = 7;
     const rnd = () => ((seed = (seed * 16807) % 2147483647) - 1) / 2147483646;
     let checked = 0;

@@ -13,7 +13,7 @@ const grid = (values: number[], nx: number, ny: number, placement: 'cells' | 'no
 });
 
 describe('measure of non-discreteness M_nd', () => {
-  // SOURCES.md §2.4: Sigmund 2007, M_nd = 100/n Σ 4ρ(1−ρ); test values [D]: ρ ≡ 0.5 → 100, binary → 0, ρ ≡ 0.25 → 75.
+  // docs/references.md §2.4: Sigmund 2007, M_nd = 100/n Σ 4ρ(1−ρ); test values [D]: ρ ≡ 0.5 → 100, binary → 0, ρ ≡ 0.25 → 75.
   it('is 100 % for a field of 0.5 (Sigmund 2007)', () => {
     expect(fieldStats(grid(new Array(12).fill(0.5), 4, 3)).greyLevel).toBeCloseTo(100, 12);
   });

@@ -1,7 +1,7 @@
 /**
  * readNpy refusals. Bad files come from fixtures/make/make_npy_fixtures.py: dtypes and shapes numpy 2.4
  * writes but rhoform does not read, and damaged or hand-made headers that numpy 2.4 refuses as well
- * (the script checks that). Format facts: SOURCES.md §6 / NEP 1 (R. Kern, "A simple file format for
+ * (the script checks that). Format facts: docs/references.md §6 / NEP 1 (R. Kern, "A simple file format for
  * NumPy arrays", 2007).
  */
 import { readFileSync } from 'node:fs';
@@ -70,7 +70,7 @@ describe('readNpy refusals on fixture files', () => {
 
 describe('readNpy size limits', () => {
   it('refuses a declared (100000, 100000) array by size before looking for its data', () => {
-    // 10^10 samples > the default maxCells 5·10^7 (DESIGN.md §6); the file holds no data at all
+    // 10^10 samples > the default maxCells 5·10^7 (docs/cli.md); the file holds no data at all
     const bytes = load('huge-header-only.npy');
     const err = refusal(bytes);
     expect(err.code).toBe('E_GRID_SIZE');
@@ -106,7 +106,7 @@ describe('readNpy on hand-made bytes (NEP 1 layout)', () => {
     const full = npyV1("{'descr': '<f8', 'fortran_order': False, 'shape': (1, 1), }", new Uint8Array(8));
     const err = refusal(full.subarray(0, 40));
     expect(err.code).toBe('E_NPY_TRUNCATED');
-    expect(err.detail).toContain('header of 118 bytes'); // 128 − 10: padded to 64 (SOURCES.md §6)
+    expect(err.detail).toContain('header of 118 bytes'); // 128 − 10: padded to 64 (docs/references.md §6)
   });
 
   it('a v3.0 header that is not UTF-8 is E_NPY_HEADER', () => {

@@ -55,7 +55,7 @@ describe('parsePyLiteral positions and rendering', () => {
   });
 
   it('accepts the Python 2 long suffix numpy still reads in old headers', () => {
-    // numpy/lib/_format_impl.py `_filter_header` strips the L of Python 2 longs (SOURCES.md §6 source)
+    // numpy/lib/_format_impl.py `_filter_header` strips the L of Python 2 longs (docs/references.md §6 source)
     expect(tagged(parsePyLiteral('(3L, 5L)'))).toEqual({ tuple: [3, 5] });
   });
 

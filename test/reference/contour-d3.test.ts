@@ -1,6 +1,6 @@
 /**
  * Compares our raw contour with d3-contour 4.0.3 (ISC, github.com/d3/d3-contour), an independent
- * marching-squares implementation (SOURCES.md §3.3).
+ * marching-squares implementation (docs/references.md §3.3).
  *
  * d3's frame: values row-major, value (i, j) at (i + 0.5, j + 0.5), x over [0, nx]; its rows are taken in the
  * order given, so with our bottom-up rows its y equals ours (h = 1, origin 0). Its corner test is `>=` (ties

@@ -19,8 +19,8 @@ describe('demo grid → DXF → dxf-parser', () => {
   it('reads back every ring as a closed LWPOLYLINE on its layer, vertices to the written precision', () => {
     const text = res.dxf();
     const dxf = new DxfParser().parseSync(text) as IDxf;
-    expect(dxf.header.$ACADVER).toBe('AC1015'); // SOURCES.md §7.1: R2000 = AC1015
-    expect(dxf.header.$INSUNITS).toBe(4); // SOURCES.md §7.2: 4 = millimetres
+    expect(dxf.header.$ACADVER).toBe('AC1015'); // docs/references.md §7.1: R2000 = AC1015
+    expect(dxf.header.$INSUNITS).toBe(4); // docs/references.md §7.2: 4 = millimetres
     const lw = dxf.entities.filter((e): e is ILwpolylineEntity => e.type === 'LWPOLYLINE');
     const polys = res.smoothed.polygons.polygons;
     const rings = polys.flatMap((p) => [{ ring: p.outer, layer: 'outline' }, ...p.holes.map((h) => ({ ring: h, layer: 'hole' }))]);
@@ -46,7 +46,7 @@ describe('demo grid → DXF → dxf-parser', () => {
     expect(again.svg()).toBe(res.svg());
   });
 
-  it('keeps the optimizer volume within 0.1 % of the target (DESIGN §4)', () => {
+  it('keeps the optimizer volume within 0.1 % of the target (docs/threshold.md)', () => {
     const t = res.report.threshold;
     expect(t.mode).toBe('volume');
     expect(Math.abs(t.achievedFraction - t.targetFraction) / t.targetFraction).toBeLessThanOrEqual(0.001);

@@ -43,7 +43,7 @@ describe('DXF re-read by dxf-parser', () => {
         expect(pl.layer).toBe(layer);
         // DXF Reference, LWPOLYLINE: group 70 bit 1 = closed; dxf-parser exposes it as `shape`.
         expect(pl.shape).toBe(true);
-        // Closed ring without a repeated end vertex (SOURCES.md §7.3).
+        // Closed ring without a repeated end vertex (docs/references.md §7.3).
         expect(pl.vertices).toHaveLength(ring.length);
         ring.forEach(([x, y], i) => {
           expect(Math.abs(pl.vertices[i].x - x / div)).toBeLessThanOrEqual(HALF_ULP6);
@@ -54,9 +54,9 @@ describe('DXF re-read by dxf-parser', () => {
 
     it(`writes $ACADVER AC1015, $INSUNITS and $MEASUREMENT for ${units}`, () => {
       const dxf = parse(writeDxf(sampleInput(units)));
-      // SOURCES.md §7.1: $ACADVER AC1015 = AutoCAD 2000.
+      // docs/references.md §7.1: $ACADVER AC1015 = AutoCAD 2000.
       expect(dxf.header['$ACADVER']).toBe('AC1015');
-      // SOURCES.md §7.2: $INSUNITS 4 = millimetres, 1 = inches; $MEASUREMENT 1 = metric, 0 = English.
+      // docs/references.md §7.2: $INSUNITS 4 = millimetres, 1 = inches; $MEASUREMENT 1 = metric, 0 = English.
       expect(dxf.header['$INSUNITS']).toBe(units === 'mm' ? 4 : 1);
       expect(dxf.header['$MEASUREMENT']).toBe(units === 'mm' ? 1 : 0);
       const div = units === 'in' ? 25.4 : 1;
@@ -98,7 +98,7 @@ describe('DXF re-read by dxf-parser', () => {
   it('declares our layers in the LAYER table', () => {
     const dxf = parse(writeDxf(sampleInput()));
     const layers = (dxf.tables as unknown as { layer: { layers: Record<string, unknown> } }).layer.layers;
-    // DESIGN.md §8 layer names; layer 0 is required in every drawing (SOURCES.md §7.1).
+    // docs/output-formats.md layer names; layer 0 is required in every drawing (docs/references.md §7.1).
     expect(Object.keys(layers).sort()).toEqual(['0', 'finding', 'hole', 'outline', 'passive', 'repair']);
   });
 

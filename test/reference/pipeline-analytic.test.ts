@@ -27,7 +27,7 @@ describe('whole pipeline on analytic shapes', () => {
     expect(g.holes).toBe(0);
     expect(Math.abs(g.area - Math.PI * r * r) / (Math.PI * r * r)).toBeLessThan(0.005);
     expect(Math.abs(g.perimeter - 2 * Math.PI * r) / (2 * Math.PI * r)).toBeLessThan(0.01);
-    // The final outline stays within the tolerance budget of the raw contour (DESIGN §6: 0.25 cell by default).
+    // The final outline stays within the tolerance budget of the raw contour (docs/cli.md: 0.25 cell by default).
     expect(res.report.smoothing.maxDeviation).toBeLessThanOrEqual(0.25 * h + 1e-12);
   });
 
@@ -51,12 +51,12 @@ describe('whole pipeline on analytic shapes', () => {
     const g = res.report.geometry;
     expect(g.polygons).toBe(1);
     expect(Math.abs(g.area - 6 * 80) / 480).toBeLessThan(0.005);
-    // The strut reaches both domain edges exactly (hard edge, DESIGN §3).
+    // The strut reaches both domain edges exactly (hard edge, docs/conventions.md).
     expect(g.bbox[0]).toBe(0);
     expect(g.bbox[2]).toBe(80);
   });
 
-  it('constant fields: 1 → the whole domain, 0 → nothing; both are answers (DESIGN §4)', () => {
+  it('constant fields: 1 → the whole domain, 0 → nothing; both are answers (docs/threshold.md)', () => {
     const one = run(npyOf(10, 6, 2, () => 1), { cellSize: [2, 2] });
     expect(one.report.threshold.mode).toBe('constant');
     expect(one.report.geometry.area).toBeCloseTo(20 * 12, 9);

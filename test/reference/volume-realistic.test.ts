@@ -1,7 +1,7 @@
 /**
  * Volume preservation on realistic optimizer output: grids written by a small SIMP optimizer with a density
  * filter (fixtures/make/optimize_demo.py; numpy wrote the files and the invariants in *.expect.json).
- * DESIGN §4 / issue: |achieved − target| ≤ 0.1 % of the target, the target being numpy's mean of the field.
+ * docs/threshold.md / issue: |achieved − target| ≤ 0.1 % of the target, the target being numpy's mean of the field.
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';

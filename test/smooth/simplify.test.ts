@@ -13,7 +13,7 @@ function segDist(px: number, py: number, ax: number, ay: number, bx: number, by:
 describe('rdpOpen', () => {
   it('reproduces the 10-point example with ε = 1', () => {
     const pts = [0, 0, 1, 0.1, 2, -0.1, 3, 5, 4, 6, 5, 7, 6, 8.1, 7, 9, 8, 9, 9, 9];
-    // SOURCES.md §4.3 [D] oracle
+    // docs/references.md §4.3 [D] oracle
     expect(Array.from(rdpOpen(Float64Array.from(pts), 1.0))).toEqual([0, 0, 2, -0.1, 3, 5, 7, 9, 9, 9]);
   });
 
@@ -56,7 +56,7 @@ describe('simplifyRing', () => {
     for (let i = 0; i < n; i++) if (keep[i]) kept.push(i);
     expect(kept.length).toBeGreaterThan(3);
     expect(kept.length).toBeLessThan(n / 10);
-    // RDP guarantee (SOURCES.md §4.3): every removed vertex lies within ε of the output; brute force per span
+    // RDP guarantee (docs/references.md §4.3): every removed vertex lies within ε of the output; brute force per span
     let worst = 0;
     for (let k = 0; k < kept.length; k++) {
       const a = kept[k], b = kept[(k + 1) % kept.length];

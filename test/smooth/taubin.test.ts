@@ -21,10 +21,10 @@ describe('taubinRing', () => {
   it('scales a regular 64-gon by (1 − λk)(1 − μk) per λ|μ pair', () => {
     const R = 10;
     const { xy } = taubinRing(ngon(64, R), { iterations: 1, lambda: 0.33, mu: -0.34, maxShift: Infinity });
-    // SOURCES.md §4.1 [D]: N=64, λ=0.33, μ=−0.34 → 1.0000456 per pair
+    // docs/references.md §4.1 [D]: N=64, λ=0.33, μ=−0.34 → 1.0000456 per pair
     for (const r of radii(xy)) expect(r / R).toBeCloseTo(1.0000456, 7);
     const k = 1 - Math.cos((2 * Math.PI) / 64);
-    // SOURCES.md §4.1 [S2]: transfer function f(k) = (1 − λk)(1 − μk)
+    // docs/references.md §4.1 [S2]: transfer function f(k) = (1 − λk)(1 − μk)
     for (const r of radii(xy)) expect(r / R).toBeCloseTo((1 - 0.33 * k) * (1 + 0.34 * k), 12);
   });
 
@@ -32,7 +32,7 @@ describe('taubinRing', () => {
     const R = 3;
     // μ = 0: each pair is one plain Laplacian step
     const { xy } = taubinRing(ngon(64, R), { iterations: 10, lambda: 0.5, mu: 0, maxShift: Infinity });
-    // SOURCES.md §4.1 [D]: factor 0.997592 per step, 10 steps → 0.976183
+    // docs/references.md §4.1 [D]: factor 0.997592 per step, 10 steps → 0.976183
     for (const r of radii(xy)) expect(r / R).toBeCloseTo(0.976183, 6);
   });
 

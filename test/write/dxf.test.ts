@@ -1,6 +1,6 @@
 /**
  * Structure of the DXF we write, checked tag by tag against the DXF Reference rules summarised in
- * SOURCES.md §7 (sections, handles, owners, LWPOLYLINE group codes) and for determinism.
+ * docs/references.md §7 (sections, handles, owners, LWPOLYLINE group codes) and for determinism.
  */
 import { describe, expect, it } from 'vitest';
 import { RhoformError } from '../../src/errors.js';
@@ -24,7 +24,7 @@ describe('DXF structure', () => {
   const pairs = dxfPairs(text);
 
   it('is made of code/value line pairs with CRLF line ends and ends with 0/EOF', () => {
-    // DXF Reference: a group code line, then a value line; the file ends with 0 EOF (SOURCES.md §7.1).
+    // DXF Reference: a group code line, then a value line; the file ends with 0 EOF (docs/references.md §7.1).
     expect(text.endsWith('  0\r\nEOF\r\n')).toBe(true);
     expect(text.split('\r\n').length % 2).toBe(1); // even line count + the empty tail after the last CRLF
     expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
@@ -32,7 +32,7 @@ describe('DXF structure', () => {
   });
 
   it('has the R2000 sections in order and $ACADVER AC1015', () => {
-    // SOURCES.md §7.1: R13+ needs HEADER, CLASSES, TABLES, BLOCKS, ENTITIES, OBJECTS.
+    // docs/references.md §7.1: R13+ needs HEADER, CLASSES, TABLES, BLOCKS, ENTITIES, OBJECTS.
     const sections = pairs.flatMap(([c, v], i) => (c === 0 && v === 'SECTION' ? [pairs[i + 1][1]] : []));
     expect(sections).toEqual(['HEADER', 'CLASSES', 'TABLES', 'BLOCKS', 'ENTITIES', 'OBJECTS']);
     const i = pairs.findIndex(([c, v]) => c === 9 && v === '$ACADVER');
@@ -42,7 +42,7 @@ describe('DXF structure', () => {
   it('has the required table records, blocks and root dictionary', () => {
     const ents = entities(pairs);
     const names = (type: string): string[] => ents.filter((e) => e.type === type).map((e) => first(e.tags, 2) ?? '');
-    // SOURCES.md §7.1 (ezdxf "Minimal DXF Content" for R13+)
+    // docs/references.md §7.1 (ezdxf "Minimal DXF Content" for R13+)
     expect(names('VPORT')).toEqual(['*Active']);
     expect(names('LTYPE')).toEqual(['ByBlock', 'ByLayer', 'Continuous']);
     expect(names('LAYER')).toContain('0');
@@ -58,7 +58,7 @@ describe('DXF structure', () => {
   });
 
   it('gives every object a unique handle, every owner an existing handle, and $HANDSEED above them all', () => {
-    // SOURCES.md §7.1: entities carry handle (5; DIMSTYLE uses 105) and owner (330).
+    // docs/references.md §7.1: entities carry handle (5; DIMSTYLE uses 105) and owner (330).
     const ents = entities(pairs).filter((e) => !['SECTION', 'ENDSEC', 'ENDTAB', 'EOF'].includes(e.type));
     const handles = ents.map((e) => first(e.tags, e.type === 'DIMSTYLE' ? 105 : 5));
     expect(handles.every((h) => h !== undefined && /^[0-9A-F]+$/.test(h))).toBe(true);
@@ -79,7 +79,7 @@ describe('DXF structure', () => {
     const rings = partRings(input);
     rings.forEach(({ ring, hole }, k) => {
       const tags = polylines[k].tags;
-      // SOURCES.md §7.3 (DXF Reference, LWPOLYLINE): 100 AcDbPolyline, 90 vertex count, 70 bit 1 closed.
+      // docs/references.md §7.3 (DXF Reference, LWPOLYLINE): 100 AcDbPolyline, 90 vertex count, 70 bit 1 closed.
       expect(tags.filter(([c]) => c === 100).map(([, v]) => v)).toEqual(['AcDbEntity', 'AcDbPolyline']);
       expect(first(tags, 8)).toBe(hole ? 'hole' : 'outline');
       expect(Number(first(tags, 90))).toBe(ring.length);

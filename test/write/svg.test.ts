@@ -56,7 +56,7 @@ describe('SVG writer', () => {
       const input = sampleInput(units);
       const [minX, minY, maxX, maxY] = input.domain;
       const svg = element(svgOf(units), 'svg');
-      // SOURCES.md §7.4: physical size via width/height with a unit plus a viewBox in the same unit.
+      // docs/references.md §7.4: physical size via width/height with a unit plus a viewBox in the same unit.
       const width = svg.width.match(/^([\d.]+)(mm|in)$/);
       const height = svg.height.match(/^([\d.]+)(mm|in)$/);
       expect(width?.[2]).toBe(units);
@@ -76,7 +76,7 @@ describe('SVG writer', () => {
       const text = svgOf(units);
       expect(text.match(/<path id="part"/g)).toHaveLength(1);
       const part = element(text, 'path', 'id="part"');
-      // SOURCES.md §7.4 (MDN): evenodd makes nested rings holes regardless of winding.
+      // docs/references.md §7.4 (MDN): evenodd makes nested rings holes regardless of winding.
       expect(part['fill-rule']).toBe('evenodd');
       const rings = parsePath(part.d);
       const expected = partRings(input);
