@@ -42,9 +42,15 @@ export function formatHtml(r: Report, pictures: HtmlPictures = {}): string {
               `<tr class="${c.status}"><td>${c.status}</td><td>${escapeHtml(c.id)}</td><td>${fmt(c.measured)} ${c.unit}</td><td>${c.comparison} ${fmt(c.limit)} ${c.unit}</td><td>${escapeHtml(c.message)}</td></tr>`,
           )
           .join('')}</table>`;
+  const cells = r.settings.values === 'nodes' ? [r.input.nx - 1, r.input.ny - 1] : [r.input.nx, r.input.ny];
+  const domain = `${fmt(cells[0] * r.input.cellSize[0])} × ${fmt(cells[1] * r.input.cellSize[1])} mm`;
   const picture = pictures.outlineSvg
-    ? `<figure><img alt="final outline" src="${dataUrl(pictures.outlineSvg)}"><figcaption>Final outline (material filled, holes cut), ${fmt(g.bbox[2] - g.bbox[0])} × ${fmt(g.bbox[3] - g.bbox[1])} mm.</figcaption></figure>`
+    ? `<figure><img alt="final outline" src="${dataUrl(pictures.outlineSvg)}"><figcaption>Final outline over the ${domain} domain (material filled, holes cut).</figcaption></figure>`
     : '';
+  const result =
+    r.checks.length === 0
+      ? '<p>Geometry and report written; no manufacturability checks ran.</p>'
+      : `<p>Result: <span class="status ${r.summary.status}">${r.summary.status.toUpperCase()}</span> — ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed.</p>`;
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escapeHtml(title)}</title>
@@ -57,7 +63,7 @@ th{font-weight:600;color:#47505c}figure{margin:1rem 0}img{max-width:100%;border:
 .cautions{background:#fff6e5;border-left:4px solid #d08c00;padding:.6rem 1rem}
 </style></head><body>
 <h1>${escapeHtml(title)}</h1>
-<p>Result: <span class="status ${r.summary.status}">${r.summary.status.toUpperCase()}</span> — ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed.</p>
+${result}
 <div class="cautions"><strong>Cautions</strong><ul>${r.cautions.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul></div>
 ${picture}
 <h2>Threshold</h2>
