@@ -2,7 +2,9 @@
 export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat } from './types.js';
 export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
 export { DEFAULT_SETTINGS, resolveSettings, type Settings, type OutputFormat, type SaddleRuleName } from './settings.js';
-export { build, inspect, loadGrid, type BuildResult, type InspectResult, type InputFile } from './pipeline.js';
+export { build, type BuildResult } from './pipeline.js';
+export { inspect, loadGrid, describeInput, type InspectResult, type InputFile } from './input.js';
+export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
 export { readGrid, detectFormat } from './read/detect.js';
 export { readCsv } from './read/csv.js';
 export { readNpy } from './read/npy.js';
