@@ -105,10 +105,13 @@ function valueBounds(grid: DensityGrid): [number, number] {
   return [gmin, gmax];
 }
 
-/** Cell areas binned by their corner range (see CellRangeHistogram). One pass over the grid. */
-export function cellRangeHistogram(grid: DensityGrid, bins: number): CellRangeHistogram {
+/**
+ * Cell areas binned by their corner range (see CellRangeHistogram). One pass over the grid.
+ * `bounds`: the smallest and largest sample value when the caller knows them (finite grids), saving a pass.
+ */
+export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: readonly [number, number]): CellRangeHistogram {
   if (!gridLattice(grid)) return { gmin: 0, gmax: 0, total: 0, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
-  const [gmin, gmax] = valueBounds(grid);
+  const [gmin, gmax] = bounds ?? valueBounds(grid);
   const r = new RowStream(grid);
   const { xs, ys, cols } = r;
   const total = (xs[cols] - xs[0]) * (ys[r.rows] - ys[0]);
@@ -191,10 +194,13 @@ export function bandCellArea(buf: Float64Array, o: number, level: number, saddle
   return cellPolyArea(buf[o], buf[o + 1], buf[o + 2], buf[o + 3], level, buf[o + 4], buf[o + 5], saddle);
 }
 
-/** The level search's model of a grid (src/threshold/search.ts LevelAreaModel), with the saddle rule bound. */
-export function levelBandModel(grid: DensityGrid, saddle: SaddleRule) {
+/**
+ * The level search's model of a grid (src/threshold/search.ts LevelAreaModel), with the saddle rule bound.
+ * `bounds`: the smallest and largest sample value, when known (then NaN-free grids only).
+ */
+export function levelBandModel(grid: DensityGrid, saddle: SaddleRule, bounds?: readonly [number, number]) {
   return {
-    histogram: (bins: number) => cellRangeHistogram(grid, bins),
+    histogram: (bins: number) => cellRangeHistogram(grid, bins, bounds),
     pack: (lo: number, hi: number) => packBand(grid, lo, hi),
     packedArea: (buf: Float64Array, o: number, level: number) => bandCellArea(buf, o, level, saddle),
   };

@@ -63,7 +63,7 @@ export function chooseThreshold<S extends { readonly areaBefore: number; readonl
     return { mode: 'volume', level: null, chosen: buildAt(null), warnings };
   }
   const targetArea = o.target * o.domainArea;
-  const found = volumeLevel(levelBandModel(grid, o.saddle), targetArea, o.volumeTolerance, (L) => {
+  const found = volumeLevel(levelBandModel(grid, o.saddle, [o.min, o.max]), targetArea, o.volumeTolerance, (L) => {
     const c = buildAt(L);
     return { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c };
   });
