@@ -4,7 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import { RhoformError } from './errors.js';
-import { fieldStats, histogram, type Histogram } from './field/stats.js';
+import { fieldStats, histogram, type FieldStats, type Histogram } from './field/stats.js';
 import { readGrid } from './read/detect.js';
 import type { ReadOptions, ReadResult } from './read/types.js';
 import type { Settings } from './settings.js';
@@ -65,12 +65,19 @@ function mapRange(grid: DensityGrid, [lo, hi]: readonly [number, number]): Densi
   return { ...grid, values: out };
 }
 
-export function describeInput(input: InputFile, read: ReadResult, s: Settings): { input: Report['input']; greyShare: number; mapped: DensityGrid } {
+/**
+ * The report's `input` block. `known`: statistics already gathered (prepareGrid's inputStats, the same numbers
+ * in the same pass as preparing); otherwise they are computed here.
+ */
+export function describeInput(
+  input: InputFile,
+  read: ReadResult,
+  s: Settings,
+  known?: FieldStats,
+): { input: Report['input']; greyShare: number } {
   const g = read.grid;
-  const raw = fieldStats(g);
-  const identity = s.valueRange[0] === 0 && s.valueRange[1] === 1;
-  const mapped = identity ? g : mapRange(g, s.valueRange);
-  const st = identity ? raw : fieldStats(mapped);
+  const raw = known ?? fieldStats(g);
+  const st = known ?? (isIdentity(s) ? raw : fieldStats(mapRange(g, s.valueRange)));
   return {
     input: {
       file: input.name,
@@ -86,19 +93,23 @@ export function describeInput(input: InputFile, read: ReadResult, s: Settings): 
       nonFinite: raw.nonFinite,
     },
     greyShare: st.greyShare,
-    mapped,
   };
+}
+
+function isIdentity(s: Settings): boolean {
+  return s.valueRange[0] === 0 && s.valueRange[1] === 1;
 }
 
 /** `rhoform inspect`: statistics only; never fails on non-finite values. */
 export function inspect(input: InputFile, s: Settings): InspectResult {
   const read = loadGrid(input, s);
   const d = describeInput(input, read, s);
+  const mapped = isIdentity(s) ? read.grid : mapRange(read.grid, s.valueRange);
   return {
     schemaVersion: 1,
     tool: { name: 'rhoform', version: VERSION },
     input: d.input,
-    histogram: histogram(d.mapped, 10, 0, 1),
+    histogram: histogram(mapped, 10, 0, 1),
     greyShare: d.greyShare,
     layout: read.layout,
     warnings: [...read.warnings],

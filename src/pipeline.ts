@@ -46,8 +46,8 @@ export function build(input: InputFile, s: Settings): BuildResult {
   };
   const read = loadGrid(input, s);
   lap('read');
-  const desc = describeInput(input, read, s);
   const prep = prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite });
+  const desc = describeInput(input, read, s, prep.inputStats);
   lap('prepare');
   const grid = prep.grid;
   const warnings = [...read.warnings, ...prep.warnings];

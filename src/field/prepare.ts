@@ -11,6 +11,7 @@
 import { RhoformError } from '../errors.js';
 import type { SamplePosition } from '../read/types.js';
 import type { DensityGrid } from '../types.js';
+import type { FieldStats } from './stats.js';
 
 /** Overshoot outside [0, 1] that is clipped with a warning rather than refused. */
 export const RANGE_OVERSHOOT = 0.05;
@@ -31,6 +32,12 @@ export interface PrepareResult {
   readonly min: number;
   readonly max: number;
   readonly mean: number;
+  /**
+   * Statistics of the input as `inspect` gives them, gathered in the same pass: range of the raw finite values,
+   * mean / grey level / grey share of the range-mapped finite values (equal to describing the mapped field
+   * with fieldStats, except that min and max are the raw values).
+   */
+  readonly inputStats: FieldStats;
   readonly warnings: string[];
 }
 
@@ -70,6 +77,12 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
   let min = Infinity;
   let max = -Infinity;
   let sum = 0;
+  // input statistics (finite values only)
+  let rawMin = Infinity;
+  let rawMax = -Infinity;
+  let mappedSum = 0;
+  let mnd = 0;
+  let grey = 0;
   for (let k = 0; k < n; k++) {
     const raw = src[k];
     if (!Number.isFinite(raw)) {
@@ -79,10 +92,15 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
       if (0 < min) min = 0;
       continue;
     }
+    if (raw < rawMin) rawMin = raw;
+    if (raw > rawMax) rawMax = raw;
     const v = lo === 0 && hi === 1 ? raw : (raw - lo) * scale;
+    mappedSum += v;
+    if (v > 0.1 && v < 0.9) grey++;
     if (v >= 0 && v <= 1) {
       out[k] = v;
       sum += v;
+      mnd += v * (1 - v);
       if (v < min) min = v;
       if (v > max) max = v;
     } else {
@@ -103,6 +121,16 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
     }
   }
   if (nonFinite > 0 && 0 > max) max = 0;
+  const finite = n - nonFinite;
+  const inputStats: FieldStats = {
+    count: n,
+    nonFinite,
+    min: finite > 0 ? rawMin : NaN,
+    max: finite > 0 ? rawMax : NaN,
+    mean: finite > 0 ? mappedSum / finite : NaN,
+    greyLevel: finite > 0 ? (400 * mnd) / finite : NaN,
+    greyShare: finite > 0 ? grey / finite : NaN,
+  };
   const warnings: string[] = [];
   if (nonFinite > 0) {
     if (options.nonFinite === 'error') {
@@ -136,5 +164,5 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
   } else if (clipped > 0) {
     warnings.push(`${clipped} value${clipped === 1 ? '' : 's'} slightly outside ${fmt(lo)}..${fmt(hi)} (≤ ${RANGE_OVERSHOOT} of the range) clipped`);
   }
-  return { grid: { ...grid, values: out }, nonFinite, clipped, warnings, min, max, mean: n > 0 ? sum / n : 0 };
+  return { grid: { ...grid, values: out }, nonFinite, clipped, warnings, min, max, mean: n > 0 ? sum / n : 0, inputStats };
 }

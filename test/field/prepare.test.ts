@@ -62,3 +62,31 @@ describe('prepare', () => {
     expect(g.values[0]).toBe(-0.01);
   });
 });
+
+describe('input statistics gathered while preparing', () => {
+  it('equal fieldStats of the range-mapped field (raw min and max), with NaN, ±Inf and overshoots', async () => {
+    const { fieldStats } = await import('../../src/field/stats.js');
+    let seed = 12345;
+    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    for (let trial = 0; trial < 120; trial++) {
+      const range = ([[0, 1], [0, 255], [-1, 1]] as [number, number][])[trial % 3];
+      const vals = Array.from({ length: 6 }, () => {
+        const u = rand();
+        if (u < 0.1) return NaN;
+        if (u < 0.15) return Infinity;
+        return range[0] + (range[1] - range[0]) * (rand() * 1.08 - 0.04);
+      });
+      const g = grid(vals);
+      const r = prepareGrid(g, locate, { valueRange: range, clip: true, nonFinite: 'void' });
+      const mapped = { ...g, values: Float64Array.from(vals, (v) => (v - range[0]) / (range[1] - range[0])) };
+      const want = fieldStats(mapped);
+      const raw = fieldStats(g);
+      expect(r.inputStats.nonFinite).toBe(want.nonFinite);
+      expect(r.inputStats.min).toBe(raw.min);
+      expect(r.inputStats.max).toBe(raw.max);
+      expect(r.inputStats.mean).toBeCloseTo(want.mean, 12);
+      expect(r.inputStats.greyLevel).toBeCloseTo(want.greyLevel, 10);
+      expect(r.inputStats.greyShare).toBeCloseTo(want.greyShare, 12);
+    }
+  });
+});
