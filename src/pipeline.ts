@@ -4,6 +4,7 @@
  * Pure: bytes and settings in, strings and a report out. The CLI does every file operation.
  */
 import { contourGrid } from './contour/index.js';
+import { RhoformError } from './errors.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { prepareGrid } from './field/prepare.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
@@ -35,6 +36,16 @@ export interface BuildResult {
   svg(): string;
 }
 
+/** Runs `f`; a RhoformError that names no file gets `name` (the stages are pure and do not know it). */
+function withFileName<T>(name: string, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof RhoformError && e.where && e.where.file === undefined) throw e.withFile(name);
+    throw e;
+  }
+}
+
 /** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
 export function build(input: InputFile, s: Settings): BuildResult {
   const timings: Record<string, number> = {};
@@ -46,7 +57,9 @@ export function build(input: InputFile, s: Settings): BuildResult {
   };
   const read = loadGrid(input, s);
   lap('read');
-  const prep = prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite });
+  const prep = withFileName(input.name, () =>
+    prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite }),
+  );
   const desc = describeInput(input, read, s, prep.inputStats);
   lap('prepare');
   const grid = prep.grid;

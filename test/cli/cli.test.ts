@@ -56,6 +56,21 @@ describe('CLI contract (docs/cli.md)', () => {
     expect(existsSync(join(dir, 'out'))).toBe(false);
   });
 
+  it('refusals of the grid name the file, line and column (non-finite, out of range)', () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, 'nan.csv'), '0,1\nnan,0.5\n');
+    writeFileSync(join(dir, 'over.csv'), '0,1\n0.5,1.3\n');
+    const a = cli(['build', 'nan.csv'], dir);
+    expect(a.code).toBe(2);
+    expect(a.stderr).toMatch(/E_GRID_NONFINITE: nan\.csv:2:1: expected finite densities, found NaN \(1 non-finite value/);
+    const b = cli(['build', 'over.csv'], dir);
+    expect(b.code).toBe(2);
+    expect(b.stderr).toMatch(/E_GRID_RANGE: over\.csv:2:5: expected values within 0\.\.1.*found 1\.3/);
+    expect(readdirSync(dir).sort()).toEqual(['nan.csv', 'over.csv']);
+    expect(cli(['build', 'nan.csv', '--non-finite', 'void', '--formats', 'json'], dir).code).toBe(0);
+    expect(cli(['build', 'over.csv', '--clip', '--formats', 'json'], dir).code).toBe(0);
+  });
+
   it('never overwrites without --force, and never the input', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'disc.csv'), discCsv());
