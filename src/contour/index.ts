@@ -1,11 +1,5 @@
 /** The contouring stage: raw iso-contours of density grids and their enclosed area (docs/contour.md). */
 export { contourGrid } from './contour.js';
-export {
-  regionArea,
-  buildAreaLattice,
-  cellArea,
-  cellFullArea,
-  type AreaLattice,
-} from './area.js';
+export { regionArea } from './area.js';
 export { levelBandModel, cellRangeHistogram, packBand, bandCellArea, BAND_STRIDE, type CellRangeHistogram, type PackedBand } from './band.js';
 export { type SaddleRule, SADDLE_RULES } from './saddle.js';

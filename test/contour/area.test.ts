@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
-  buildAreaLattice,
-  cellArea,
-  cellFullArea,
+  bandCellArea,
+  packBand,
   contourGrid,
   levelBandModel,
   BAND_STRIDE,
@@ -56,23 +55,26 @@ describe('regionArea', () => {
   });
 });
 
-describe('AreaLattice', () => {
+describe('area cell by cell (the band of the level search)', () => {
   for (const { name, g } of fields()) {
     it(`cells add up to regionArea, full and empty cells by their corner range (${name})`, () => {
-      const lat = buildAreaLattice(g);
+      // Every cell meets the bracket (−∞, ∞): the band is the whole lattice.
+      const all = packBand(g, -Infinity, Infinity);
+      expect(all.fullBase).toBe(0);
       // analytic: the cells tile the domain rectangle
       let tiled = 0;
-      for (let c = 0; c < lat.cellCount; c++) tiled += cellFullArea(lat, c);
+      for (let k = 0; k < all.count; k++) tiled += all.buf[BAND_STRIDE * k + 4] * all.buf[BAND_STRIDE * k + 5];
       const cx = g.placement === 'nodes' ? g.nx - 1 : g.nx;
       const cy = g.placement === 'nodes' ? g.ny - 1 : g.ny;
       expect(tiled).toBeCloseTo(cx * cy * g.cellSize[0] * g.cellSize[1], 9);
       for (const rule of RULES) {
         for (const L of [0.3, 0.55]) {
           let sum = 0;
-          for (let c = 0; c < lat.cellCount; c++) {
-            const a = cellArea(lat, c, L, rule);
-            if (lat.cellMin[c] >= L) expect(a).toBe(cellFullArea(lat, c));
-            else if (lat.cellMax[c] < L) expect(a).toBe(0);
+          for (let k = 0; k < all.count; k++) {
+            const o = BAND_STRIDE * k;
+            const a = bandCellArea(all.buf, o, L, rule);
+            if (all.buf[o + 6] >= L) expect(a).toBe(all.buf[o + 4] * all.buf[o + 5]);
+            else if (all.buf[o + 7] < L) expect(a).toBe(0);
             sum += a;
           }
           expect(Math.abs(sum / regionArea(g, L, rule) - 1)).toBeLessThan(1e-12);
@@ -84,19 +86,11 @@ describe('AreaLattice', () => {
   it('the straddling cells alone give the area over a level bracket', () => {
     // the use in the level search: A(L) = Σ full cells (min ≥ hi) + Σ straddling cells, for lo ≤ L ≤ hi
     const g = smoothField(80, 60, 31, 3);
-    const lat = buildAreaLattice(g);
-    const lo = 0.4;
-    const hi = 0.6;
-    let full = 0;
-    const active: number[] = [];
-    for (let c = 0; c < lat.cellCount; c++) {
-      if (lat.cellMin[c] >= hi) full += cellFullArea(lat, c);
-      else if (lat.cellMax[c] >= lo) active.push(c);
-    }
-    expect(active.length).toBeLessThan(lat.cellCount);
+    const band = packBand(g, 0.4, 0.6);
+    expect(band.count).toBeLessThan(packBand(g, -Infinity, Infinity).count);
     for (const L of [0.4, 0.47, 0.6]) {
-      let a = full;
-      for (const c of active) a += cellArea(lat, c, L, 'decider');
+      let a = band.fullBase;
+      for (let k = 0; k < band.count; k++) a += bandCellArea(band.buf, BAND_STRIDE * k, L, 'decider');
       expect(Math.abs(a / regionArea(g, L, 'decider') - 1)).toBeLessThan(1e-12);
     }
   });
@@ -121,10 +115,11 @@ describe('AreaLattice', () => {
 
   it('NaN samples make the cell range reach −∞', () => {
     const g = makeGrid(3, 3, (_x, _y, i, j) => (i === 1 && j === 1 ? NaN : 1));
-    const lat = buildAreaLattice(g);
-    expect(lat.cols).toBe(4);
-    expect(lat.rows).toBe(4);
-    expect(lat.cellMin[1 * 4 + 1]).toBe(-Infinity);
-    expect(lat.cellMax[1 * 4 + 1]).toBe(1);
+    // 3×3 cell-centred samples → a 4×4 lattice of cells; cell (1, 1) has the NaN sample as a corner.
+    const all = packBand(g, -Infinity, Infinity);
+    expect(all.count).toBe(16);
+    const o = BAND_STRIDE * (1 * 4 + 1);
+    expect(all.buf[o + 6]).toBe(-Infinity);
+    expect(all.buf[o + 7]).toBe(1);
   });
 });
