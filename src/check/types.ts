@@ -1,0 +1,33 @@
+/**
+ * Checks as data (DESIGN §5): a check measures and returns a Measurement; the runner (run.ts) applies the
+ * limit, the resolution band and the severity, and turns it into a CheckResult of the report.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
+ */
+import type { CheckResult } from '../types.js';
+import type { CheckId } from './ids.js';
+
+export type Severity = 'off' | 'warn' | 'fail';
+export type CheckUnit = CheckResult['unit'];
+
+/** A place in the report frame (mm, y up) with the value measured there (in the check's unit). */
+export interface RawLocation {
+  readonly x: number;
+  readonly y: number;
+  readonly measured: number;
+}
+
+/** What a check's measurement returns: data only, no verdict. */
+export interface Measurement {
+  /** The worst value found (check's unit); null when there is nothing to measure. */
+  readonly measured: number | null;
+  /** ± accuracy of the method, in the check's unit. */
+  readonly resolution: number;
+  /** One line: how the value was measured (shown in the report). */
+  readonly method: string;
+  /**
+   * Places that break the limit or come within `resolution` of it, in any order (the runner sorts them
+   * worst first and keeps 100). Each is one finding: a thin strut, a small hole, a tight corner, an island.
+   */
+  readonly locations: readonly RawLocation[];
+}
