@@ -4,7 +4,8 @@
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
  */
-import type { CheckResult } from '../types.js';
+import type { Morphology } from '../morph/types.js';
+import type { CheckResult, DensityGrid, PolygonSet, Report } from '../types.js';
 import type { CheckId } from './ids.js';
 
 export type Severity = 'off' | 'warn' | 'fail';
@@ -30,4 +31,32 @@ export interface Measurement {
    * worst first and keeps 100). Each is one finding: a thin strut, a small hole, a tight corner, an island.
    */
   readonly locations: readonly RawLocation[];
+}
+
+/** Everything a check may look at. Built once per run by the pipeline; read-only. */
+export interface CheckContext {
+  /** The final outline (after smoothing), mm, y up; outer rings CCW, holes CW. */
+  readonly polygons: PolygonSet;
+  /** The raw iso-contour the outline came from, mm. */
+  readonly raw: PolygonSet;
+  /** Domain rectangle [minX, minY, maxX, maxY], mm. */
+  readonly domain: readonly [number, number, number, number];
+  /** The prepared density grid (values 0..1). */
+  readonly grid: DensityGrid;
+  /** The report sections the checks read: input statistics, the threshold and the smoothing measures. */
+  readonly report: Pick<Report, 'input' | 'threshold' | 'smoothing' | 'settings'>;
+  /** The outline's deviation budget, mm (the resolved `--tolerance`). */
+  readonly tolerance: number;
+  /** The morphology engine for this outline, built on first use and shared by the size checks. */
+  morphology(): Morphology;
+}
+
+/** A registered check: its id, unit, comparison and how to measure; the runner does the rest. */
+export interface CheckDefinition {
+  readonly id: CheckId;
+  readonly unit: CheckUnit;
+  /** '>=': measured ≥ limit passes (sizes); '<=': measured ≤ limit passes (errors, areas of islands). */
+  readonly comparison: '>=' | '<=';
+  /** Measures against `limit` (in the check's unit). */
+  measure(ctx: CheckContext, limit: number): Measurement;
 }

@@ -1,0 +1,76 @@
+/**
+ * Public types of the morphology engine (src/morph/): local width of the solid and void phases, concave
+ * corners a tool cannot reach, and a local-thickness raster for pictures.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
+ * Outside the domain rectangle is open space (void) for both phases (DESIGN §5).
+ */
+import type { PolygonSet } from '../types.js';
+
+export type Phase = 'solid' | 'void';
+
+export interface MorphologyOptions {
+  /** Domain rectangle [minX, minY, maxX, maxY] in mm. */
+  readonly domain: readonly [number, number, number, number];
+  /** Raster pixel size in mm (square pixels), > 0. */
+  readonly pixel: number;
+}
+
+/** One place thinner than asked: its thinnest point (mm, y up) and the local width there (mm). */
+export interface WidthPlace {
+  readonly x: number;
+  readonly y: number;
+  readonly width: number;
+}
+
+export interface WidthSurvey {
+  /** Smallest local width (mm) over the counted medial axis of the phase; null when there is none. */
+  readonly min: number | null;
+  /** Where that smallest width is (mm); null when `min` is null. */
+  readonly minAt: { readonly x: number; readonly y: number } | null;
+  /** One entry per connected place whose local width is below the asked value, thinnest first. */
+  readonly places: readonly WidthPlace[];
+  /** ± accuracy of the widths, mm. */
+  readonly resolution: number;
+}
+
+/** A concave corner of the solid a disc of the tool radius cannot reach: where, and its radius (mm). */
+export interface CornerPlace {
+  readonly x: number;
+  readonly y: number;
+  readonly radius: number;
+}
+
+export interface CornerSurvey {
+  /** Tightest corner radius among the corners found (mm); null when no corner is tighter than the tool. */
+  readonly min: number | null;
+  /** One entry per corner (connected uncut region) deeper than the depth allowance, tightest first. */
+  readonly places: readonly CornerPlace[];
+  /** ± accuracy of the radii, mm. */
+  readonly resolution: number;
+}
+
+/** Local thickness of the solid on a coarse raster (for pictures). */
+export interface ThicknessMap {
+  /** Pixels across and up. */
+  readonly nx: number;
+  readonly ny: number;
+  /** The rectangle the raster covers, mm [minX, minY, maxX, maxY]. */
+  readonly domain: readonly [number, number, number, number];
+  /** values[j * nx + i], j counting up from the bottom row: local thickness in mm; NaN on void. */
+  readonly values: Float32Array;
+}
+
+export interface Morphology {
+  /** The raster pixel size used, mm. */
+  readonly pixel: number;
+  /** Local width of one phase (θ-simplified medial axis); places below `below` mm are listed. */
+  width(phase: Phase, below: number): WidthSurvey;
+  /** Concave corners of the solid that a disc of radius `toolRadius` (mm) leaves uncut deeper than `depth` (mm). */
+  corners(toolRadius: number, depth: number): CornerSurvey;
+  /** Local thickness raster of the solid, at most `maxSide` pixels along the longer side. */
+  thicknessMap(maxSide: number): ThicknessMap;
+}
+
+/** Builds the engine for one outline (implemented in src/morph/index.ts). */
+export type BuildMorphology = (polygons: PolygonSet, options: MorphologyOptions) => Morphology;
