@@ -7,6 +7,9 @@ export type SaddleRuleName = 'decider' | 'join' | 'split';
 
 export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html';
 
+/** A check's severity as set by `--severity <id>=off|warn|fail` (DESIGN §5). */
+export type SeverityName = 'off' | 'warn' | 'fail';
+
 export interface Settings {
   // input
   /** mm; [hx, hy]. */
@@ -35,6 +38,27 @@ export interface Settings {
   smoothMu: number;
   /** mm: largest allowed distance of the final outline from the raw contour; null = 0.25 × the smaller cell side. */
   tolerance: number | null;
+  // checks (docs/checks/; null = off unless a process preset sets it)
+  /** mm: smallest allowed local width of the solid (`--min-member`). */
+  minMember: number | null;
+  /** mm: smallest allowed hole or gap (`--min-hole`). */
+  minHole: number | null;
+  /** mm: radius of the milling tool; concave corners tighter than it are findings (`--tool-radius`). */
+  toolRadius: number | null;
+  /** mm²: islands up to this area are tolerated; 0 = every extra piece is an island (`--min-island-area`). */
+  minIslandArea: number;
+  /** mm²: smallest allowed hole area (`--min-hole-area`). */
+  minHoleArea: number | null;
+  /** %: M_nd of the input above which grey-level warns (`--grey-warn`). */
+  greyWarn: number;
+  /** Process preset id (`--process`); its limits fill the size limits not given explicitly. */
+  process: string | null;
+  /** mm: sheet thickness for the sheet-cutting presets (`--thickness`). */
+  thickness: number | null;
+  /** Per-check severity overrides (`--severity <id>=off|warn|fail`, repeatable). */
+  severity: Record<string, SeverityName>;
+  /** Lowest status that makes the exit code 1 (`--fail-on`). */
+  failOn: 'warn' | 'fail';
   // output
   formats: OutputFormat[];
   units: 'mm' | 'in';
@@ -59,13 +83,23 @@ export const DEFAULT_SETTINGS: Settings = {
   smoothLambda: 0.33,
   smoothMu: -0.34,
   tolerance: null,
+  minMember: null,
+  minHole: null,
+  toolRadius: null,
+  minIslandArea: 0,
+  minHoleArea: null,
+  greyWarn: 25,
+  process: null,
+  thickness: null,
+  severity: {},
+  failOn: 'fail',
   formats: ['dxf', 'svg', 'json', 'html'],
   units: 'mm',
 };
 
 /** Defaults filled in; `cellSizeDefaulted` follows from whether a cell size was given. */
 export function resolveSettings(partial: Partial<Settings>): Settings {
-  const s: Settings = { ...DEFAULT_SETTINGS, ...partial };
+  const s: Settings = { ...DEFAULT_SETTINGS, ...partial, severity: { ...(partial.severity ?? {}) } };
   s.cellSizeDefaulted = partial.cellSize === undefined;
   return s;
 }

@@ -112,6 +112,13 @@ export interface Report {
     rawVertices: number;
     vertices: number;
   };
+  /** The process preset used (`--process`), its own values with sources; absent without a preset. Additive. */
+  process?: {
+    id: string;
+    title: string;
+    thickness: number | null;
+    values: Record<'minMember' | 'minHole' | 'toolRadius', { value: number; source: string } | null>;
+  };
   checks: CheckResult[];
   repairs: { id: string; area: number; locations: Location[] }[];
   summary: { status: Status; pass: number; warn: number; fail: number };

@@ -1,0 +1,23 @@
+/**
+ * `min-inner-radius`: concave corners of the solid tighter than the milling tool's radius
+ * (docs/checks/min-inner-radius.md). The tool disc sweeps the void; the corners it cannot reach deeper than
+ * max(tolerance, 0.05 R) are findings, each with its own radius (DESIGN §5; SOURCES §8.4).
+ */
+import type { CheckDefinition } from './types.js';
+
+export const minInnerRadius: CheckDefinition = {
+  id: 'min-inner-radius',
+  unit: 'mm',
+  comparison: '>=',
+  measure(ctx, limit) {
+    const m = ctx.morphology();
+    const depth = Math.max(ctx.tolerance, 0.05 * limit);
+    const survey = m.corners(limit, depth);
+    return {
+      measured: survey.min,
+      resolution: survey.resolution,
+      method: `opening of the void by the tool disc (R = ${limit} mm); corners left uncut deeper than ${depth.toPrecision(3)} mm, each radius from the largest disc that reaches it`,
+      locations: survey.places.map((p) => ({ x: p.x, y: p.y, measured: p.radius })),
+    };
+  },
+};

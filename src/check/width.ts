@@ -1,0 +1,23 @@
+/**
+ * Shared measurement of the two local-width checks (member and hole): the survey of one phase becomes a
+ * Measurement — the thinnest width anywhere, and one location per connected place thinner than the limit.
+ * When the thinnest width lies within the resolution above the limit, its place is listed too, so the
+ * warning the runner gives (DESIGN §5) is located.
+ */
+import type { Morphology, Phase } from '../morph/types.js';
+import type { Measurement, RawLocation } from './types.js';
+
+export function widthMeasurement(m: Morphology, phase: Phase, limit: number): Measurement {
+  const survey = m.width(phase, limit);
+  const locations: RawLocation[] = survey.places.map((p) => ({ x: p.x, y: p.y, measured: p.width }));
+  if (survey.min !== null && survey.minAt !== null && survey.min >= limit && survey.min - limit <= survey.resolution) {
+    locations.push({ x: survey.minAt.x, y: survey.minAt.y, measured: survey.min });
+  }
+  const what = phase === 'solid' ? 'solid' : 'void';
+  return {
+    measured: survey.min,
+    resolution: survey.resolution,
+    method: `local width of the ${what} on the θ-simplified medial axis (θ = 120°), exact distances to the outline on a ${m.pixel.toPrecision(3)} mm raster`,
+    locations,
+  };
+}
