@@ -23,7 +23,10 @@ export function levelCurve(grid: Pick<DensityGrid, 'values'>, steps = 100): Leve
   for (let k = 0; k < v.length; k++) {
     const x = v[k];
     if (!(x >= 0)) continue;
-    const b = x >= 1 ? steps : Math.floor(x * steps);
+    let b = x >= 1 ? steps : Math.floor(x * steps);
+    // x·steps can round across a bin edge (0.29 · 100 = 28.999…): compare against the levels themselves.
+    if (b < steps && x >= (b + 1) / steps) b++;
+    else if (b > 0 && x < b / steps) b--;
     counts[b]++;
   }
   const levels: number[] = [];
