@@ -1,0 +1,102 @@
+/**
+ * A tiny PNG encoder for the pictures of the HTML report: 8-bit samples, no interlace, filter type 0 (None)
+ * on every scanline, the image data compressed by zlib (node:zlib deflateSync).
+ *
+ * Format: PNG (Portable Network Graphics) Specification, Version 1.0, T. Boutell et al., IETF RFC 2083 (1997),
+ * DOI 10.17487/RFC2083; also ISO/IEC 15948:2004. Chunk CRC: CRC-32 with the reflected polynomial 0xEDB88320
+ * over the chunk type and data (RFC 2083 §3.4 and Annex 15).
+ */
+import { deflateSync } from 'node:zlib';
+
+/** PNG colour types this encoder writes: 0 grey, 2 RGB, 4 grey + alpha, 6 RGB + alpha (8 bits per sample). */
+export type PngColorType = 0 | 2 | 4 | 6;
+
+/** A raster in PNG order: row 0 is the TOP row, samples interleaved per pixel (e.g. R,G,B,A). */
+export interface RasterImage {
+  readonly width: number;
+  readonly height: number;
+  readonly colorType: PngColorType;
+  /** width × height × samplesPerPixel(colorType) bytes, row-major from the top-left pixel. */
+  readonly data: Uint8Array;
+}
+
+/** Samples per pixel of a PNG colour type (RFC 2083 §4.1.1). */
+export function samplesPerPixel(colorType: PngColorType): number {
+  return colorType === 0 ? 1 : colorType === 2 ? 3 : colorType === 4 ? 2 : 4;
+}
+
+const CRC_TABLE = (() => {
+  const t = new Uint32Array(256);
+  for (let n = 0; n < 256; n++) {
+    let c = n;
+    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+    t[n] = c >>> 0;
+  }
+  return t;
+})();
+
+/** CRC-32 (RFC 2083 Annex 15; polynomial 0xEDB88320, initial and final XOR 0xFFFFFFFF) of `bytes[from, to)`. */
+export function crc32(bytes: Uint8Array, from = 0, to = bytes.length): number {
+  let c = 0xffffffff;
+  for (let i = from; i < to; i++) c = CRC_TABLE[(c ^ bytes[i]) & 0xff] ^ (c >>> 8);
+  return (c ^ 0xffffffff) >>> 0;
+}
+
+function chunk(type: string, data: Uint8Array): Uint8Array {
+  const out = new Uint8Array(12 + data.length);
+  const view = new DataView(out.buffer);
+  view.setUint32(0, data.length);
+  for (let i = 0; i < 4; i++) out[4 + i] = type.charCodeAt(i);
+  out.set(data, 8);
+  view.setUint32(8 + data.length, crc32(out, 4, 8 + data.length));
+  return out;
+}
+
+/**
+ * Encodes `image` as a PNG file (bytes). Every scanline gets filter type 0; the whole image is one IDAT chunk.
+ * Throws a RangeError on a bad size or a data length that does not match.
+ */
+export function encodePng(image: RasterImage): Uint8Array {
+  const { width, height, colorType, data } = image;
+  if (!(Number.isInteger(width) && width > 0 && Number.isInteger(height) && height > 0)) {
+    throw new RangeError(`PNG size: expected positive integers, found ${width}×${height}`);
+  }
+  const spp = samplesPerPixel(colorType);
+  const stride = width * spp;
+  if (data.length !== stride * height) {
+    throw new RangeError(`PNG data: expected ${stride * height} bytes, found ${data.length}`);
+  }
+  const ihdr = new Uint8Array(13);
+  const v = new DataView(ihdr.buffer);
+  v.setUint32(0, width);
+  v.setUint32(4, height);
+  ihdr[8] = 8; // bit depth
+  ihdr[9] = colorType;
+  ihdr[10] = 0; // compression method 0: deflate
+  ihdr[11] = 0; // filter method 0
+  ihdr[12] = 0; // no interlace
+  const raw = new Uint8Array((stride + 1) * height);
+  for (let j = 0; j < height; j++) {
+    raw[j * (stride + 1)] = 0; // filter type None
+    raw.set(data.subarray(j * stride, (j + 1) * stride), j * (stride + 1) + 1);
+  }
+  const idat = new Uint8Array(deflateSync(raw, { level: 9 }));
+  const parts = [
+    Uint8Array.of(0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a),
+    chunk('IHDR', ihdr),
+    chunk('IDAT', idat),
+    chunk('IEND', new Uint8Array(0)),
+  ];
+  const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
+  let o = 0;
+  for (const p of parts) {
+    out.set(p, o);
+    o += p.length;
+  }
+  return out;
+}
+
+/** `data:image/png;base64,…` URL of an encoded PNG. */
+export function pngDataUrl(png: Uint8Array): string {
+  return `data:image/png;base64,${Buffer.from(png.buffer, png.byteOffset, png.byteLength).toString('base64')}`;
+}
