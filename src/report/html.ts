@@ -1,106 +1,183 @@
 /**
- * The HTML report: one self-contained page (no network), a pure function of one Report plus the pictures
- * the pipeline drew (SVG strings, embedded as data URLs).
+ * The HTML report: one self-contained page (no network, no script; pictures as inline SVG and PNG data
+ * URLs), a pure function of one Report plus optional picture data. Lengths in mm, report frame y up with
+ * the origin at the lower-left corner of the grid.
  */
-import type { Report } from '../types.js';
+import type { CheckResult, Report } from '../types.js';
+import { escapeHtml } from './escape.js';
+import { figuresHtml, type HtmlPictures } from './figures.js';
+import { numberFindings, type NumberedFinding } from './findings.js';
 import { fmt, pct } from './number.js';
+import { PAGE_CSS } from './page-style.js';
+import { limitText, processLimits, resolutionText, withUnit } from './units.js';
 
-export interface HtmlPictures {
-  /** The final outline as a standalone SVG document. */
-  readonly outlineSvg?: string;
-}
+export { escapeHtml } from './escape.js';
+export type { HtmlPictures } from './figures.js';
 
-export function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch] as string);
-}
+const e = escapeHtml;
 
-function dataUrl(svg: string): string {
-  return `data:image/svg+xml;base64,${Buffer.from(svg, 'utf8').toString('base64')}`;
-}
-
-function table(rows: readonly (readonly [string, string])[]): string {
-  return `<table>${rows.map(([k, v]) => `<tr><th>${escapeHtml(k)}</th><td>${escapeHtml(v)}</td></tr>`).join('')}</table>`;
+function kv(rows: readonly (readonly [string, string])[]): string {
+  return `<table class="kv">${rows.map(([k, v]) => `<tr><th>${e(k)}</th><td>${e(v)}</td></tr>`).join('')}</table>`;
 }
 
 function settingValue(v: unknown): string {
-  if (v === null) return 'auto';
-  if (Array.isArray(v)) return v.join(', ');
+  if (v === null || v === undefined) return '— (not set)';
+  if (Array.isArray(v)) return v.map((x) => String(x)).join(', ');
+  if (typeof v === 'object') return JSON.stringify(v);
   return String(v);
 }
 
-export function formatHtml(r: Report, pictures: HtmlPictures = {}): string {
+const STATUS_WORD = { pass: 'PASS', warn: 'WARN', fail: 'FAIL' } as const;
+
+function badge(status: CheckResult['status']): string {
+  return `<span class="badge ${status}">${STATUS_WORD[status]}</span>`;
+}
+
+function header(r: Report, findings: readonly NumberedFinding[]): string {
+  const s = r.summary;
+  const result =
+    r.checks.length === 0
+      ? '<p class="result"><span class="badge none">NO CHECKS</span> Geometry and report written; no manufacturability checks ran.</p>'
+      : `<p class="result">${badge(s.status)} ${r.checks.length} check${r.checks.length === 1 ? '' : 's'}: ${s.pass} passed, ${s.warn} warned, ${s.fail} failed` +
+        `${findings.length > 0 ? `; ${findings.length} located finding${findings.length === 1 ? '' : 's'}` : ''}.</p>`;
+  const t = r.threshold;
+  const g = r.geometry;
+  const [hx, hy] = r.input.cellSize;
+  const nodes = r.settings.values === 'nodes';
+  const cells = nodes ? [r.input.nx - 1, r.input.ny - 1] : [r.input.nx, r.input.ny];
+  const key: [string, string][] = [
+    ['grid', `${r.input.nx} × ${r.input.ny} ${nodes ? 'nodes' : 'cells'}`],
+    ['cell', hx === hy ? `${fmt(hx)} mm${r.settings.cellSizeDefaulted === true ? ' (default)' : ''}` : `${fmt(hx)} × ${fmt(hy)} mm`],
+    ['domain', `${fmt(cells[0] * hx)} × ${fmt(cells[1] * hy)} mm`],
+    ['level', t.level === null ? '–' : fmt(t.level, 5)],
+    ['volume target', pct(t.targetFraction, 2)],
+    ['achieved', pct(t.achievedFraction, 2)],
+    ['pieces / holes', `${g.polygons} / ${g.holes}`],
+    ['area', `${fmt(g.area, 5)} mm²`],
+    ['grey level M_nd', `${fmt(r.input.greyLevel, 3)} %`],
+  ];
+  return (
+    `<header><h1>rhoform report <span class="file">${e(r.input.file)}</span></h1>${result}` +
+    `<dl class="keys">${key.map(([k, v]) => `<div><dt>${e(k)}</dt><dd>${e(v)}</dd></div>`).join('')}</dl></header>`
+  );
+}
+
+function cautionsBox(r: Report): string {
+  const proc = r.settings.process;
+  const preset =
+    typeof proc === 'string' && proc !== ''
+      ? `<p><strong>Process preset ${e(proc)}:</strong> limits used ${e(processLimits(r.settings))}. These are generic starting values; the limits of your fabricator, machine and material govern.</p>`
+      : '';
+  return `<section class="cautions"><h2>Cautions</h2>${preset}<ul>${r.cautions.map((c) => `<li>${e(c)}</li>`).join('')}</ul></section>`;
+}
+
+function checksTable(r: Report): string {
+  if (r.checks.length === 0) return '<h2 id="checks">Checks</h2><p>No manufacturability checks were requested for this run.</p>';
+  const rows = r.checks.map(
+    (c) =>
+      `<tr class="${c.status}"><td>${badge(c.status)}</td><td class="id">${e(c.id)}</td><td class="n">${e(withUnit(c.measured, c.unit))}</td>` +
+      `<td class="n">${e(limitText(c))}</td><td class="n">${e(resolutionText(c))}</td><td>${e(c.method)}</td><td>${e(c.message)}</td></tr>`,
+  );
+  return (
+    '<h2 id="checks">Checks</h2><table class="grid checks"><thead><tr><th>status</th><th>check</th><th>measured</th><th>limit</th>' +
+    `<th>resolution</th><th>method</th><th>message</th></tr></thead><tbody>${rows.join('')}</tbody></table>`
+  );
+}
+
+function findingsTable(r: Report, findings: readonly NumberedFinding[]): string {
+  if (findings.length === 0) return '';
+  const unitOf = new Map(r.checks.map((c) => [c.id, c.unit] as const));
+  const rows = findings.map((f) => {
+    const L = f.location;
+    return (
+      `<tr id="finding-${f.n}" class="${f.status}"><td class="n">${f.n}</td><td>${badge(f.status)} ${e(f.checkId)}</td>` +
+      `<td class="n">${e(fmt(L.x))}</td><td class="n">${e(fmt(L.y))}</td><td class="n">${L.fileRow} / ${L.fileCol}</td>` +
+      `<td class="n">${e(withUnit(L.measured, unitOf.get(f.checkId) ?? '1'))}</td></tr>`
+    );
+  });
+  const more = r.checks
+    .filter((c) => c.status !== 'pass' && c.locationsTotal > c.locations.length)
+    .map((c) => `<li>${e(c.id)}: ${c.locationsTotal - c.locations.length} more place${c.locationsTotal - c.locations.length === 1 ? '' : 's'} not listed (the ${c.locations.length} worst are)</li>`);
+  return (
+    '<h2 id="findings">Findings</h2><p>Worst first within each check; x, y in mm (y up, origin at the lower-left corner of the grid); ' +
+    'row / column as in the input file, counted from 1.</p>' +
+    '<table class="grid findings"><thead><tr><th>#</th><th>check</th><th>x mm</th><th>y mm</th><th>file row / col</th><th>measured</th></tr></thead>' +
+    `<tbody>${rows.join('')}</tbody></table>${more.length > 0 ? `<ul class="more">${more.join('')}</ul>` : ''}`
+  );
+}
+
+function repairsSection(r: Report): string {
+  if (r.repairs.length === 0) return '';
+  const rows = r.repairs.map((p) => `<tr><td>${e(p.id)}</td><td class="n">${e(fmt(p.area, 5))} mm²</td><td class="n">${p.locations.length}</td></tr>`);
+  return `<h2>Repairs</h2><table class="grid"><thead><tr><th>repair</th><th>area change</th><th>places</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+}
+
+function details(r: Report): string {
   const t = r.threshold;
   const g = r.geometry;
   const s = r.smoothing;
+  const dA = s.rawArea > 0 ? (s.area - s.rawArea) / s.rawArea : 0;
+  return (
+    `<div class="cols"><section><h2>Threshold</h2>${kv([
+      ['mode', t.mode],
+      ['level', t.level === null ? '–' : fmt(t.level, 6)],
+      ['target volume fraction', pct(t.targetFraction)],
+      ['achieved (polygon area)', pct(t.achievedFraction)],
+      ['cells at or above the level', pct(t.pixelFraction)],
+      ['final fraction', pct(g.finalFraction)],
+    ])}</section><section><h2>Geometry</h2>${kv([
+      ['polygons / holes', `${g.polygons} / ${g.holes}`],
+      ['area', `${fmt(g.area, 6)} mm²`],
+      ['perimeter', `${fmt(g.perimeter, 6)} mm`],
+      ['vertices', String(g.vertices)],
+      ['bounding box', `${g.bbox.map((v) => fmt(v)).join(', ')} mm`],
+    ])}</section><section><h2>Smoothing</h2>${kv([
+      ['largest deviation from the raw contour', `${fmt(s.maxDeviation, 3)} mm`],
+      ['deviation budget', `${fmt(s.tolerance, 3)} mm`],
+      ['area raw → final', `${fmt(s.rawArea, 6)} → ${fmt(s.area, 6)} mm² (${(100 * dA).toFixed(3)} %)`],
+      ['vertices raw → final', `${s.rawVertices} → ${s.vertices}`],
+    ])}</section><section><h2>Input</h2>${kv([
+      ['file', r.input.file],
+      ['format', r.input.format],
+      ['size', `${r.input.nx} × ${r.input.ny}`],
+      ['cell size', `${r.input.cellSize.map((v) => fmt(v)).join(' × ')} mm`],
+      ['range', `${fmt(r.input.min)} … ${fmt(r.input.max)}`],
+      ['mean', fmt(r.input.mean, 6)],
+      ['grey level M_nd', `${fmt(r.input.greyLevel, 3)} %`],
+      ['non-finite values', String(r.input.nonFinite)],
+      ['sha256', r.input.sha256],
+    ])}</section></div>`
+  );
+}
+
+function listSection(title: string, items: readonly string[]): string {
+  return items.length > 0 ? `<h2>${e(title)}</h2><ul>${items.map((w) => `<li>${e(w)}</li>`).join('')}</ul>` : '';
+}
+
+/**
+ * The HTML report of `r`. `pictures` adds the figures (density with outline and numbered findings, local
+ * thickness, volume-vs-level curve); each is left out when its data is missing. Finding numbers are those
+ * of numberFindings (the same in the figures, the findings table, the text report and the DXF/SVG).
+ */
+export function formatHtml(r: Report, pictures: HtmlPictures = {}): string {
+  const findings = numberFindings(r);
   const title = `rhoform report — ${r.input.file}`;
-  const checks =
-    r.checks.length === 0
-      ? '<p>No manufacturability checks were requested for this run.</p>'
-      : `<table class="checks"><tr><th>status</th><th>check</th><th>measured</th><th>limit</th><th>message</th></tr>${r.checks
-          .map(
-            (c) =>
-              `<tr class="${c.status}"><td>${c.status}</td><td>${escapeHtml(c.id)}</td><td>${fmt(c.measured)} ${c.unit}</td><td>${c.comparison} ${fmt(c.limit)} ${c.unit}</td><td>${escapeHtml(c.message)}</td></tr>`,
-          )
-          .join('')}</table>`;
-  const cells = r.settings.values === 'nodes' ? [r.input.nx - 1, r.input.ny - 1] : [r.input.nx, r.input.ny];
-  const domain = `${fmt(cells[0] * r.input.cellSize[0])} × ${fmt(cells[1] * r.input.cellSize[1])} mm`;
-  const picture = pictures.outlineSvg
-    ? `<figure><img alt="final outline" src="${dataUrl(pictures.outlineSvg)}"><figcaption>Final outline over the ${domain} domain (material filled, holes cut).</figcaption></figure>`
-    : '';
-  const result =
-    r.checks.length === 0
-      ? '<p>Geometry and report written; no manufacturability checks ran.</p>'
-      : `<p>Result: <span class="status ${r.summary.status}">${r.summary.status.toUpperCase()}</span> — ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed.</p>`;
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(title)}</title>
-<style>
-body{font:15px/1.45 system-ui,sans-serif;margin:2rem auto;max-width:1100px;padding:0 1rem;color:#1d232b}
-h1{font-size:1.4rem}h2{font-size:1.1rem;margin-top:2rem;border-bottom:1px solid #d6dbe1}
-table{border-collapse:collapse;margin:.5rem 0}th,td{text-align:left;padding:.2rem .8rem .2rem 0;vertical-align:top}
-th{font-weight:600;color:#47505c}figure{margin:1rem 0}img{max-width:100%;border:1px solid #d6dbe1;background:#fff}
-.status{font-weight:700;padding:.1rem .5rem;border-radius:3px}.pass{color:#17692c}.warn{color:#8a5a00}.fail{color:#a11b1b}
-.cautions{background:#fff6e5;border-left:4px solid #d08c00;padding:.6rem 1rem}
-</style></head><body>
-<h1>${escapeHtml(title)}</h1>
-${result}
-<div class="cautions"><strong>Cautions</strong><ul>${r.cautions.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul></div>
-${picture}
-<h2>Threshold</h2>
-${table([
-  ['mode', t.mode],
-  ['level', t.level === null ? '–' : fmt(t.level, 6)],
-  ['target volume fraction', pct(t.targetFraction)],
-  ['achieved (polygon area)', pct(t.achievedFraction)],
-  ['cells at or above the level', pct(t.pixelFraction)],
-])}
-<h2>Geometry</h2>
-${table([
-  ['polygons / holes', `${g.polygons} / ${g.holes}`],
-  ['area', `${fmt(g.area, 6)} mm²`],
-  ['perimeter', `${fmt(g.perimeter, 6)} mm`],
-  ['vertices', `${g.vertices} (raw contour ${s.rawVertices})`],
-  ['largest deviation from the raw contour', `${fmt(s.maxDeviation, 3)} mm (budget ${fmt(s.tolerance, 3)} mm)`],
-  ['bounding box', `${g.bbox.map((v) => fmt(v)).join(', ')} mm`],
-])}
-<h2>Checks</h2>
-${checks}
-<h2>Input</h2>
-${table([
-  ['file', r.input.file],
-  ['format', r.input.format],
-  ['size', `${r.input.nx} × ${r.input.ny}`],
-  ['cell size', `${r.input.cellSize.map((v) => fmt(v)).join(' × ')} mm`],
-  ['range', `${fmt(r.input.min)} … ${fmt(r.input.max)}`],
-  ['mean', fmt(r.input.mean, 6)],
-  ['grey level M_nd', `${fmt(r.input.greyLevel, 3)} %`],
-  ['non-finite values', String(r.input.nonFinite)],
-  ['sha256', r.input.sha256],
-])}
-<h2>Settings</h2>
-${table(Object.entries(r.settings).map(([k, v]) => [k, settingValue(v)] as const))}
-${r.warnings.length ? `<h2>Warnings</h2><ul>${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : ''}
-<p><small>${escapeHtml(r.tool.name)} ${escapeHtml(r.tool.version)}</small></p>
+<title>${e(title)}</title>
+<style>${PAGE_CSS}</style></head><body>
+${header(r, findings)}
+${cautionsBox(r)}
+${figuresHtml(r, pictures, findings)}
+${checksTable(r)}
+${findingsTable(r, findings)}
+${repairsSection(r)}
+${details(r)}
+<h2 id="settings">Settings</h2>
+${kv(Object.entries(r.settings).map(([k, v]) => [k, settingValue(v)] as const))}
+${listSection('Warnings', r.warnings)}
+${listSection('Outputs', r.outputs.map((o) => `${o.file} (${o.format})`))}
+<footer>${e(r.tool.name)} ${e(r.tool.version)} · lengths in mm, y up, origin at the lower-left corner of the grid</footer>
 </body></html>
 `;
 }
