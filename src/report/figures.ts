@@ -10,7 +10,7 @@ import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
 import { escapeHtml } from './escape.js';
 import type { NumberedFinding } from './findings.js';
 import { fmt } from './number.js';
-import { encodePng, pngDataUrl } from './png.js';
+import { dataUrl, encodePng, pngDataUrl } from './png.js';
 import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';
 import {
   domainRect,
@@ -103,7 +103,7 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
       ),
     );
   } else if (p.outlineSvg) {
-    const url = `data:image/svg+xml;base64,${Buffer.from(p.outlineSvg, 'utf8').toString('base64')}`;
+    const url = dataUrl('image/svg+xml', new TextEncoder().encode(p.outlineSvg));
     out.push(
       figure(++n, 'fig-outline', `<img alt="final outline" src="${url}">`, `Final outline over the ${escapeHtml(size)} domain (material filled, holes cut).`),
     );

@@ -96,7 +96,12 @@ export function encodePng(image: RasterImage): Uint8Array {
   return out;
 }
 
+/** A `data:<mime>;base64,…` URL (RFC 2397) of `bytes`. */
+export function dataUrl(mime: string, bytes: Uint8Array): string {
+  return `data:${mime};base64,${Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64')}`;
+}
+
 /** `data:image/png;base64,…` URL of an encoded PNG. */
 export function pngDataUrl(png: Uint8Array): string {
-  return `data:image/png;base64,${Buffer.from(png.buffer, png.byteOffset, png.byteLength).toString('base64')}`;
+  return dataUrl('image/png', png);
 }

@@ -128,13 +128,15 @@ export function domainRect(f: PlanFrame): string {
 }
 
 /**
- * Numbered markers: a ring at each location and its number beside it, fail red / warn amber, each a link
+ * Numbered markers: a ring at each location and its number beside it, fail red / warn amber (drawn last), each a link
  * to the finding's table row (`#finding-N`). Labels carry `data-n` so tests can read the numbers back.
  */
 export function findingMarkers(findings: readonly NumberedFinding[], f: PlanFrame): string {
   const r = 0.55 * f.font;
   const parts: string[] = [];
-  for (const fd of findings) {
+  // warnings first, failures last, so a failure is drawn on top where markers overlap (numbers unchanged)
+  const order = [...findings.filter((x) => x.status === 'warn'), ...findings.filter((x) => x.status === 'fail')];
+  for (const fd of order) {
     const x = fx(f, fd.location.x);
     const y = fy(f, fd.location.y);
     const title = `#${fd.n} ${fd.checkId}: ${fmt(fd.location.measured)} at x ${fmt(fd.location.x)} y ${fmt(fd.location.y)} mm`;

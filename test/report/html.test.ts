@@ -57,8 +57,10 @@ describe('HTML report', () => {
     const N = numbered.length;
     expect(N).toBe(7); // 5 stored member findings + 2 hole findings of sampleChecks()
     const fig1 = html.slice(html.indexOf('<figure id="fig-density"'), html.indexOf('</figure>', html.indexOf('<figure id="fig-density"')));
-    const inPicture = [...fig1.matchAll(/<g class="mk (warn|fail)" data-n="(\d+)">/g)].map((m) => [Number(m[2]), m[1]]);
-    expect(inPicture).toEqual(numbered.map((f) => [f.n, f.status]));
+    // drawing order puts failures on top; sorted by number, the markers are exactly the numbered findings
+    const inPicture = [...fig1.matchAll(/<g class="mk (warn|fail)" data-n="(\d+)">/g)].map((m) => [Number(m[2]), m[1]] as const);
+    expect([...inPicture].sort((a, b) => a[0] - b[0])).toEqual(numbered.map((f) => [f.n, f.status]));
+    expect(inPicture.at(-1)?.[1]).toBe('fail');
     const inTable = [...html.matchAll(/<tr id="finding-(\d+)" class="(warn|fail)"><td class="n">(\d+)<\/td><td><span class="badge \w+">\w+<\/span> ([\w-]+)<\/td>/g)];
     expect(inTable.map((m) => [Number(m[1]), Number(m[3]), m[4]])).toEqual(numbered.map((f) => [f.n, f.n, f.checkId]));
     expect(inTable.map((m) => Number(m[1]))).toEqual(Array.from({ length: N }, (_, i) => i + 1));
