@@ -1,0 +1,183 @@
+/**
+ * Concave corners of the solid that a milling tool of radius R cannot reach.
+ *
+ * Frame: pixel units of raster.ts inside; results in millimetres, y up, origin at the lower-left corner of the
+ * grid. Outside the domain is open space the tool may come from (the raster is padded by more than R).
+ *
+ * 1. Machinable void = the opening of the void by the disc B_R = the union of all discs of radius ≥ R inside the
+ *    void. A void pixel c with distance d(c) ≥ R is a tool position; pixel p is reached iff some such c has
+ *    |p − c|² − d(c)² ≤ 0 (power distance): one distance transform of the sampled function f(c) = −d(c)²
+ *    (Felzenszwalb & Huttenlocher 2012, DOI 10.4086/toc.2012.v008a019), which also returns the minimising c.
+ * 2. Sampling the tool positions at pixel centres misses discs whose centre falls between them; so a pixel left
+ *    unreached gets an exact second chance: the disc of radius R tangent to the boundary at the pixel's nearest
+ *    boundary point is tested against the nearby segments (it reaches the pixel when it fits). Along a wall whose
+ *    curvature radius is ≥ R this always succeeds, so no spurious uncut pixels line smooth walls.
+ * 3. Uncut pixels (void, inside the domain, unreached) are grouped by 8-connectivity; a group's depth is the
+ *    largest |p − c| − d(c) over its pixels (c = the power-nearest tool position); groups deeper than `depth`
+ *    are corners.
+ * 4. Corner radius: for boundary points f of the group (the nearest boundary points of its pixels, and its
+ *    polygon vertices that turn by ≥ 15° towards the void), the largest disc inside the void that contains f
+ *    — centred on the void-side normal at f, found by bisection on the radius against the exact segments. The
+ *    corner's radius is the smallest over its points, capped at R; a sharp vertex gives 0, a fillet of radius
+ *    ρ < R gives ρ, a slot narrower than 2R gives its half-width (uncut too: correct for a milling tool).
+ */
+import type { CornerPlace, CornerSurvey } from './types.js';
+import { clusterPixels } from './cluster.js';
+import { sampledTransform } from './edt.js';
+import type { NearestField } from './nearest.js';
+import { type Frame, toMm } from './raster.js';
+import { type SegmentSet, segDist2 as segD2 } from './segments.js';
+
+/** Smallest turn (radians) towards the void for a polygon vertex to be tried as a corner point. */
+const VERTEX_TURN = (15 * Math.PI) / 180;
+
+/** Padding (pixels) the raster needs for tool radius R (mm). */
+export function padFor(toolRadius: number, pixel: number): number {
+  return Math.ceil(toolRadius / pixel) + 2;
+}
+
+/** Corners of the solid a tool of radius `toolRadius` (mm) leaves uncut deeper than `depth` (mm). */
+export function cornerSurvey(
+  frame: Frame,
+  set: SegmentSet,
+  field: NearestField,
+  phase: Uint8Array,
+  toolRadius: number,
+  depth: number,
+): CornerSurvey {
+  const { nx, ny, box, pixel } = frame;
+  const { seg, vx, vy, dist } = field;
+  const geo = set.geo;
+  const N = nx * ny;
+  const R = toolRadius / pixel;
+
+  // nearest distance from (x, y) to the segments held by the 3×3 pixels around it (and `extra`)
+  const near = (x: number, y: number, extra: number): number => {
+    let best = Infinity;
+    if (extra >= 0) best = segD2(geo, extra, x, y);
+    const ci = Math.round(x), cj = Math.round(y);
+    for (let j = Math.max(0, cj - 1); j <= Math.min(ny - 1, cj + 1); j++) {
+      for (let i = Math.max(0, ci - 1); i <= Math.min(nx - 1, ci + 1); i++) {
+        const s = seg[j * nx + i];
+        if (s >= 0) best = Math.min(best, segD2(geo, s, x, y));
+      }
+    }
+    return Math.sqrt(best);
+  };
+  const slack = 1e-6 * Math.max(1, R);
+
+  // 1. power transform of the tool positions
+  const f = new Float64Array(N).fill(Infinity);
+  for (let p = 0; p < N; p++) if (phase[p] === 0 && dist[p] >= R) f[p] = -dist[p] * dist[p];
+  const pw = sampledTransform(f, nx, ny);
+
+  // 2.–3. uncut pixels with their depth
+  const ui: number[] = [], uj: number[] = [], ud: number[] = [];
+  const i0 = Math.max(0, Math.ceil(box[0])), i1 = Math.min(nx - 1, Math.floor(box[2]));
+  const j0 = Math.max(0, Math.ceil(box[1])), j1 = Math.min(ny - 1, Math.floor(box[3]));
+  for (let j = j0; j <= j1; j++) {
+    for (let i = i0; i <= i1; i++) {
+      const p = j * nx + i;
+      if (phase[p] !== 0 || seg[p] < 0) continue;
+      if (pw.value[p] <= 1e-6 * R * R) continue;
+      const s = seg[p];
+      const d = dist[p];
+      let nxv: number, nyv: number;
+      if (d > 1e-9) { nxv = -vx[p] / d; nyv = -vy[p] / d; } else { nxv = -set.normal[2 * s]; nyv = -set.normal[2 * s + 1]; }
+      const fx = i + vx[p], fy = j + vy[p];
+      if (near(fx + R * nxv, fy + R * nyv, s) >= R - slack) continue;
+      const c = pw.arg[p];
+      let dep = Infinity;
+      if (c >= 0) {
+        const ci = c % nx, cj = (c - ci) / nx;
+        dep = Math.hypot(i - ci, j - cj) - dist[c];
+      }
+      ui.push(i); uj.push(j); ud.push(dep);
+    }
+  }
+  const places: CornerPlace[] = [];
+  if (ui.length > 0) {
+    const ii = Int32Array.from(ui), jj = Int32Array.from(uj);
+    const { label, count } = clusterPixels(ii, jj, nx, ny, 0);
+    const deepest = new Int32Array(count).fill(-1);
+    for (let k = 0; k < ui.length; k++) {
+      const c = label[k];
+      if (deepest[c] < 0 || ud[k] > ud[deepest[c]]) deepest[c] = k;
+    }
+    const labelAt = new Int32Array(N).fill(-1);
+    for (let k = 0; k < ui.length; k++) labelAt[jj[k] * nx + ii[k]] = label[k];
+    const members: number[][] = Array.from({ length: count }, () => []);
+    for (let k = 0; k < ui.length; k++) members[label[k]].push(k);
+
+    // largest disc inside the void containing boundary point (x, y), centred along unit normal (nx, ny)
+    const radiusAt = (x: number, y: number, ux: number, uy: number, s: number): number => {
+      const fits = (r: number): boolean => near(x + r * ux, y + r * uy, s) >= r - slack;
+      if (fits(R)) return R;
+      let lo = 0, hi = R;
+      for (let it = 0; it < 40 && hi - lo > 1e-7 * R; it++) {
+        const mid = 0.5 * (lo + hi);
+        if (fits(mid)) lo = mid; else hi = mid;
+      }
+      return lo;
+    };
+
+    for (let c = 0; c < count; c++) {
+      const kd = deepest[c];
+      if (!(ud[kd] * pixel > depth)) continue;
+      const dx = ii[kd], dy = jj[kd];
+      let bestR = Infinity, bestX = dx, bestY = dy, bestD = Infinity;
+      const consider = (x: number, y: number, r: number): void => {
+        const dd = Math.hypot(x - dx, y - dy);
+        const tol = 1e-3 * R;
+        if (r < bestR - tol || (r <= bestR + tol && dd < bestD)) {
+          if (r < bestR) bestR = r;
+          bestX = x; bestY = y; bestD = dd;
+        }
+      };
+      const tried = new Set<number>();
+      for (const k of members[c]) {
+        const p = jj[k] * nx + ii[k];
+        const s = seg[p];
+        const d = dist[p];
+        const fx = ii[k] + vx[p], fy = jj[k] + vy[p];
+        let ux: number, uy: number;
+        const o = 5 * s;
+        const t = ((fx - geo[o]) * geo[o + 2] + (fy - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
+        if (t > 1e-9 && t < 1 - 1e-9) { ux = -set.normal[2 * s]; uy = -set.normal[2 * s + 1]; } else if (d > 1e-9) {
+          ux = -vx[p] / d; uy = -vy[p] / d;
+        } else continue;
+        consider(fx, fy, radiusAt(fx, fy, ux, uy, s));
+        // the end vertex of this segment, when it turns sharply towards the void and lies in this group
+        if (tried.has(s)) continue;
+        tried.add(s);
+        for (const [sa, sb] of [[s, set.next[s]], [set.prev[s], s]]) {
+          const ob = 5 * sb;
+          const x = geo[ob], y = geo[ob + 1];
+          const ax = set.normal[2 * sa], ay = set.normal[2 * sa + 1];
+          const bx = set.normal[2 * sb], by = set.normal[2 * sb + 1];
+          // turn towards the void: the direction rotates clockwise (solid on the left)
+          const turn = Math.atan2(ax * by - ay * bx, ax * bx + ay * by);
+          if (!(turn < -VERTEX_TURN)) continue;
+          if (!nearLabel(labelAt, nx, ny, x, y, c)) continue;
+          const sx = -(ax + bx), sy = -(ay + by);
+          const l = Math.hypot(sx, sy);
+          if (!(l > 1e-9)) continue;
+          consider(x, y, radiusAt(x, y, sx / l, sy / l, sb));
+        }
+      }
+      const m = toMm(frame, bestX, bestY);
+      places.push({ x: m.x, y: m.y, radius: Math.min(toolRadius, bestR * pixel) });
+    }
+    places.sort((a, b) => a.radius - b.radius);
+  }
+  return { min: places.length > 0 ? places[0].radius : null, places, resolution: 0.5 * pixel };
+}
+
+/** Whether a pixel of group `c` lies within one pixel of (x, y). */
+function nearLabel(labelAt: Int32Array, nx: number, ny: number, x: number, y: number, c: number): boolean {
+  const ci = Math.round(x), cj = Math.round(y);
+  for (let j = Math.max(0, cj - 1); j <= Math.min(ny - 1, cj + 1); j++) {
+    for (let i = Math.max(0, ci - 1); i <= Math.min(nx - 1, ci + 1); i++) if (labelAt[j * nx + i] === c) return true;
+  }
+  return false;
+}

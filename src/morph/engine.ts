@@ -1,0 +1,80 @@
+/**
+ * The morphology engine: one raster, one feature transform, then local widths, tool corners and a thickness
+ * picture on demand.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md). The raster has
+ * square pixels of `options.pixel` mm; pixel centres sit at domain origin + (i + ½)·pixel (plus a margin of
+ * open space around the domain). Outside the domain is open space (void) for both phases (DESIGN §5).
+ * Methods and accuracy: docs/checks/min-member-size.md, min-hole-size.md, min-inner-radius.md.
+ */
+import type { PolygonSet } from '../types.js';
+import type { CornerSurvey, Morphology, MorphologyOptions, Phase, ThicknessMap, WidthSurvey } from './types.js';
+import { cornerSurvey, padFor } from './corners.js';
+import { type MedialSamples, medialSamples } from './medial.js';
+import { type NearestField, nearestField } from './nearest.js';
+import { type Frame, makeFrame, phaseMask } from './raster.js';
+import { type SegmentSet, segmentsOf } from './segments.js';
+import { thicknessMap } from './thickness.js';
+import { widthSurvey } from './width.js';
+
+/** Open-space margin (pixels) of the first raster; corners() rebuilds with a wider one when the tool needs it. */
+const BASE_PAD = 6;
+/** Refuse rasters larger than this (pixels, margin included). */
+const MAX_RASTER = 64_000_000;
+
+interface Stage {
+  readonly frame: Frame;
+  readonly set: SegmentSet;
+  readonly field: NearestField;
+  readonly phase: Uint8Array;
+}
+
+function stage(polygons: PolygonSet, domain: MorphologyOptions['domain'], pixel: number, pad: number): Stage {
+  const frame = makeFrame(domain, pixel, pad);
+  if (frame.nx * frame.ny > MAX_RASTER) {
+    throw new RangeError(`buildMorphology: expected at most ${MAX_RASTER} pixels, found ${frame.nx} × ${frame.ny}`);
+  }
+  const set = segmentsOf(polygons, frame);
+  return { frame, set, field: nearestField(frame, set), phase: phaseMask(frame, set) };
+}
+
+/**
+ * Builds the engine for one outline. `polygons`: mm, y up, outer rings CCW, holes CW (every ring segment is
+ * boundary, domain-edge segments included); `options.domain` = [minX, minY, maxX, maxY] mm; `options.pixel` > 0
+ * mm (see choosePixel). The feature transform runs here; medial samples on the first width()/thicknessMap().
+ * Inputs are not modified.
+ */
+export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions): Morphology {
+  const { domain, pixel } = options;
+  if (!(pixel > 0) || !Number.isFinite(pixel)) throw new RangeError(`buildMorphology: expected pixel > 0, found ${pixel}`);
+  if (!domain.every(Number.isFinite) || !(domain[2] > domain[0]) || !(domain[3] > domain[1])) {
+    throw new RangeError(`buildMorphology: expected domain [minX, minY, maxX, maxY] with max > min, found ${domain.join(', ')}`);
+  }
+  const base = stage(polygons, domain, pixel, BASE_PAD);
+  let wide: Stage | undefined;
+  let samples: MedialSamples | undefined;
+  const medial = (): MedialSamples => (samples ??= medialSamples(base.frame, base.set, base.field, base.phase));
+  return {
+    pixel,
+    width(phase: Phase, below: number): WidthSurvey {
+      if (phase !== 'solid' && phase !== 'void') throw new RangeError(`width: expected 'solid' or 'void', found ${String(phase)}`);
+      if (Number.isNaN(below)) throw new RangeError('width: expected a limit in mm, found NaN');
+      return widthSurvey(base.frame, medial(), phase, below);
+    },
+    corners(toolRadius: number, depth: number): CornerSurvey {
+      if (!(toolRadius > 0) || !Number.isFinite(toolRadius)) throw new RangeError(`corners: expected a tool radius > 0 mm, found ${toolRadius}`);
+      if (!(depth >= 0)) throw new RangeError(`corners: expected a depth ≥ 0 mm, found ${depth}`);
+      const need = padFor(toolRadius, pixel);
+      let st = base;
+      if (need > base.frame.pad) {
+        if (!wide || wide.frame.pad < need) wide = stage(polygons, domain, pixel, need);
+        st = wide;
+      }
+      return cornerSurvey(st.frame, st.set, st.field, st.phase, toolRadius, depth);
+    },
+    thicknessMap(maxSide: number): ThicknessMap {
+      if (!(maxSide >= 1)) throw new RangeError(`thicknessMap: expected maxSide ≥ 1, found ${maxSide}`);
+      return thicknessMap(base.frame, base.field, base.phase, medial(), maxSide);
+    },
+  };
+}

@@ -1,0 +1,64 @@
+/**
+ * Local width of one phase from the medial samples (medial.ts).
+ *
+ * Local width at a medial point = the diameter of the largest disc inside the phase centred there (2r). Only
+ * points of the θ-simplified medial axis with θ ≥ 120° count (Foskey, Lin & Manocha 2003, DOI
+ * 10.1145/781606.781623, DOI from memory): a 90° corner of a thick part (θ = 90°) is never thin, while a strut
+ * (θ = 180°), a disc centre, a dangling tip and a wedge sharper than 60° (θ = 180° − angle) are.
+ *
+ * Frame of the results: millimetres, y up, origin at the lower-left corner of the grid.
+ */
+import type { Phase, WidthPlace, WidthSurvey } from './types.js';
+import { clusterPixels } from './cluster.js';
+import { COUNT_COS, type MedialSamples } from './medial.js';
+import { type Frame, toMm } from './raster.js';
+
+/** Empty pixels tolerated inside one place. */
+const PLACE_GAP = 2;
+
+/**
+ * Smallest counted width of `phase` and the connected places thinner than `below` (mm), one per place at its
+ * thinnest sample, thinnest first. `resolution` is half a pixel (docs/checks/min-member-size.md).
+ */
+export function widthSurvey(frame: Frame, samples: MedialSamples, phase: Phase, below: number): WidthSurvey {
+  const want = phase === 'solid' ? 1 : 0;
+  const px = frame.pixel;
+  const limit = below / px / 2; // radius, pixel units
+  let min = Infinity;
+  let at = -1;
+  const chosen: number[] = [];
+  for (let k = 0; k < samples.n; k++) {
+    if (samples.solid[k] !== want || samples.cos[k] > COUNT_COS) continue;
+    const r = samples.r[k];
+    if (r < min) {
+      min = r;
+      at = k;
+    }
+    if (r < limit) chosen.push(k);
+  }
+  const places: WidthPlace[] = [];
+  if (chosen.length > 0) {
+    const ii = new Int32Array(chosen.length), jj = new Int32Array(chosen.length);
+    chosen.forEach((k, m) => {
+      ii[m] = Math.min(frame.nx - 1, Math.max(0, Math.round(samples.x[k])));
+      jj[m] = Math.min(frame.ny - 1, Math.max(0, Math.round(samples.y[k])));
+    });
+    const { label, count } = clusterPixels(ii, jj, frame.nx, frame.ny, PLACE_GAP);
+    const bestOf = new Int32Array(count).fill(-1);
+    chosen.forEach((k, m) => {
+      const c = label[m];
+      if (bestOf[c] < 0 || samples.r[k] < samples.r[bestOf[c]]) bestOf[c] = k;
+    });
+    for (const k of bestOf) {
+      const p = toMm(frame, samples.x[k], samples.y[k]);
+      places.push({ x: p.x, y: p.y, width: 2 * samples.r[k] * px });
+    }
+    places.sort((a, b) => a.width - b.width);
+  }
+  return {
+    min: at < 0 ? null : 2 * min * px,
+    minAt: at < 0 ? null : toMm(frame, samples.x[at], samples.y[at]),
+    places,
+    resolution: 0.5 * px,
+  };
+}
