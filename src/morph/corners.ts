@@ -31,6 +31,9 @@ import { type SegmentSet, segDist2 as segD2 } from './segments.js';
 /** Smallest turn (radians) towards the void for a polygon vertex to be tried as a corner point. */
 const VERTEX_TURN = (15 * Math.PI) / 180;
 
+/** How far (pixel units) a disc may cut into the boundary and still count as fitting. */
+const FIT_SLACK = 0.01;
+
 /** Padding (pixels) the raster needs for tool radius R (mm). */
 export function padFor(toolRadius: number, pixel: number): number {
   return Math.ceil(toolRadius / pixel) + 2;
@@ -64,7 +67,9 @@ export function cornerSurvey(
     }
     return Math.sqrt(best);
   };
-  const slack = 1e-6 * Math.max(1, R);
+  // a disc may cut into the polygon by this much (pixel units) and still count as fitting: the chords of a
+  // polygonal arc poke into a tangent disc by up to r·Δ²/2 near their vertices (Δ = turn per vertex)
+  const slack = Math.max(FIT_SLACK, 1e-6 * R);
 
   // 1. power transform of the tool positions
   const f = new Float64Array(N).fill(Infinity);
@@ -143,9 +148,18 @@ export function cornerSurvey(
         let ux: number, uy: number;
         const o = 5 * s;
         const t = ((fx - geo[o]) * geo[o + 2] + (fy - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
-        if (t > 1e-9 && t < 1 - 1e-9) { ux = -set.normal[2 * s]; uy = -set.normal[2 * s + 1]; } else if (d > 1e-9) {
-          ux = -vx[p] / d; uy = -vy[p] / d;
-        } else continue;
+        if (t > 1e-6 && t < 1 - 1e-6) {
+          ux = -set.normal[2 * s]; uy = -set.normal[2 * s + 1];
+        } else {
+          // foot on a vertex: a vertex turning towards the void is touched along its bisector; a vertex turning
+          // away (a convex corner of the solid) along the direction to the pixel
+          const [sa, sb] = t <= 1e-6 ? [set.prev[s], s] : [s, set.next[s]];
+          const ax = set.normal[2 * sa], ay = set.normal[2 * sa + 1], bx = set.normal[2 * sb], by = set.normal[2 * sb + 1];
+          const l = Math.hypot(ax + bx, ay + by);
+          if (ax * by - ay * bx < 0 && l > 1e-9) { ux = -(ax + bx) / l; uy = -(ay + by) / l; } else if (d > 1e-9) {
+            ux = -vx[p] / d; uy = -vy[p] / d;
+          } else continue;
+        }
         consider(fx, fy, radiusAt(fx, fy, ux, uy, s));
         // the end vertex of this segment, when it turns sharply towards the void and lies in this group
         if (tried.has(s)) continue;

@@ -14,11 +14,13 @@
  * - the separation angle θ at c between the two feet (Foskey, Lin & Manocha, "Efficient computation of a
  *   simplified medial axis", Proc. 8th ACM Symposium on Solid Modeling and Applications, 2003,
  *   DOI 10.1145/781606.781623 — title and authors confirmed, DOI from memory).
+ * - a sample that a third segment comes closer to is snapped onto the medial vertex (vertex.ts).
  * Samples with θ ≥ 90° whose c lies in the domain are kept; the width checks count those with θ ≥ 120°.
  */
 import type { NearestField } from './nearest.js';
 import type { Frame } from './raster.js';
 import { type SegmentSet, sideOf } from './segments.js';
+import { snapToVertex } from './vertex.js';
 
 /** Medial samples, pixel units. */
 export interface MedialSamples {
@@ -103,7 +105,10 @@ export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField
     if (!(da > 1e-9 && db > 1e-9)) return;
     const cos = (ax * bx + ay * by) / (da * db);
     if (cos > 0) return;
-    push(cx, cy, 0.5 * (da + db), cos, sideOf(set, a, cx, cy) > 0 ? 1 : 0);
+    const solid = sideOf(set, a, cx, cy) > 0 ? 1 : 0;
+    const v = snapToVertex(set, seg, nx, ny, a, b, cx, cy, 0.5 * (da + db), solid === 1 ? 1 : -1);
+    if (v && v.x >= box[0] && v.x <= box[2] && v.y >= box[1] && v.y <= box[3]) push(v.x, v.y, v.r, v.cos, solid);
+    else push(cx, cy, 0.5 * (da + db), cos, solid);
   };
 
   for (let j = 0; j < ny; j++) {
