@@ -13,6 +13,7 @@
  *    closer than what they hold.
  * 2. Sweep: a forward raster pass (neighbours W, SW, S, SE, then E right-to-left) and its backward mirror
  *    (E, NE, N, NW, then W left-to-right): the 8-neighbour four-scan scheme; the pair of passes runs twice.
+ * 3. Polish: each pixel walks along the ring of its segment (previous / next) while that is closer.
  */
 import type { Frame } from './raster.js';
 import type { SegmentSet } from './segments.js';
@@ -70,10 +71,25 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   const vx = new Float32Array(N);
   const vy = new Float32Array(N);
   const dist = new Float32Array(N).fill(Infinity);
+  const d2 = (s: number, i: number, j: number): number => {
+    const o = 5 * s;
+    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
+    let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
+    u = u < 0 ? 0 : u > 1 ? 1 : u;
+    const ex = i - ax - u * dx, ey = j - ay - u * dy;
+    return ex * ex + ey * ey;
+  };
+  const { prev, next } = set;
   for (let j = 0, p = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++, p++) {
-      const s = seg[p];
+      let s = seg[p];
       if (s < 0) continue;
+      // walk along the ring while a neighbouring segment is closer: short segments of a curve have Voronoi
+      // wedges thinner than a pixel, which propagation between pixel centres can step over
+      let b = best[p];
+      for (let t = prev[s], e = d2(t, i, j); e < b && t !== s; t = prev[t], e = d2(t, i, j)) { s = t; b = e; }
+      for (let t = next[s], e = d2(t, i, j); e < b && t !== s; t = next[t], e = d2(t, i, j)) { s = t; b = e; }
+      seg[p] = s;
       const o = 5 * s;
       const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
       let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
