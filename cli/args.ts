@@ -3,6 +3,8 @@
  * Accepts `--name value` and `--name=value`; flags take no value.
  */
 import { UsageError } from '../src/errors.js';
+import { isCheckId } from '../src/check/ids.js';
+import { PROCESS_IDS } from '../src/check/process.js';
 import type { OutputFormat, Settings } from '../src/settings.js';
 
 export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'help' | 'version';
@@ -87,6 +89,29 @@ const OPTIONS: Record<string, OptionSpec> = {
   saddle: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.saddle = oneOf('--saddle', v, ['decider', 'join', 'split'] as const)) },
   smooth: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.smooth = num('--smooth', v, (x) => Number.isInteger(x) && x >= 0 && x <= 1000, 'a whole number of iterations from 0 to 1000')) },
   tolerance: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.tolerance = num('--tolerance', v, (x) => x >= 0, 'a length in mm ≥ 0')) },
+  // checks (docs/checks/)
+  'min-member': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minMember = num('--min-member', v, (x) => x > 0, 'a width in mm > 0')) },
+  'min-hole': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minHole = num('--min-hole', v, (x) => x > 0, 'a width in mm > 0')) },
+  'tool-radius': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.toolRadius = num('--tool-radius', v, (x) => x > 0, 'a radius in mm > 0')) },
+  'min-island-area': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minIslandArea = num('--min-island-area', v, (x) => x >= 0, 'an area in mm² ≥ 0')) },
+  'min-hole-area': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minHoleArea = num('--min-hole-area', v, (x) => x > 0, 'an area in mm² > 0')) },
+  'grey-warn': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.greyWarn = num('--grey-warn', v, (x) => x >= 0 && x <= 100, 'a percentage from 0 to 100')) },
+  process: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.process = oneOf('--process', v, PROCESS_IDS)) },
+  thickness: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.thickness = num('--thickness', v, (x) => x > 0, 'a sheet thickness in mm > 0')) },
+  severity: {
+    value: true,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => {
+      const eq = v.indexOf('=');
+      const id = eq >= 0 ? v.slice(0, eq) : v;
+      if (eq < 0 || !isCheckId(id)) {
+        throw new UsageError(`--severity: expected <check id>=off|warn|fail with a check id of docs/checks/, found ${JSON.stringify(v)}`);
+      }
+      const level = oneOf('--severity', v.slice(eq + 1), ['off', 'warn', 'fail'] as const);
+      o.settings.severity = { ...(o.settings.severity ?? {}), [id]: level };
+    },
+  },
+  'fail-on': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.failOn = oneOf('--fail-on', v, ['warn', 'fail'] as const)) },
   // output
   'out-dir': { value: true, commands: [...OUT_CMDS], apply: (v, o) => (o.cli.outDir = v) },
   formats: {

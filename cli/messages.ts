@@ -27,6 +27,18 @@ Geometry:
   --saddle decider|join|split  saddle rule of marching squares (default decider)
   --smooth <n>                 Taubin λ|μ iterations (default 2; 0 = off)
   --tolerance <mm>             largest deviation of the final outline from the raw contour (default 0.25 cell)
+Checks (docs/checks/; a check that is off is absent from the report):
+  --min-member <mm>            thinnest allowed member (local width of the solid)
+  --min-hole <mm>              narrowest allowed hole or gap
+  --tool-radius <mm>           milling tool radius: concave corners tighter than it are findings
+  --min-island-area <mm²>      islands up to this area are tolerated (default 0: every extra piece warns)
+  --min-hole-area <mm²>        smallest allowed hole area
+  --grey-warn <%>              warn when the input's M_nd is above this (default 25)
+  --process <id>               default limits of a process: laser-cut, waterjet-cut, milling, material-extrusion,
+                               vat-photopolymerization, pbf-polymer, pbf-metal (docs/processes.md)
+  --thickness <mm>             sheet thickness (required by laser-cut and waterjet-cut)
+  --severity <id>=off|warn|fail   change a check's severity (repeatable)
+  --fail-on warn|fail          exit 1 on warnings too (default: only on failures)
 Output:
   --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo)
   --formats dxf,svg,json,html  which files to write (default: all four)
@@ -36,8 +48,9 @@ Output:
   --quiet                      no summary on stdout
   --no-color                   no colour (also NO_COLOR)
 
-Exit codes: 0 every check passed, 1 a check failed (geometry still written), 2 bad input, usage or output error.
+Exit codes: 0 every check passed (warnings allowed unless --fail-on warn), 1 a check failed (geometry still
+written), 2 bad input, usage or output error (nothing written).
 
-Caution: re-analyse the final geometry before use; process limits are generic defaults; defer to local codes,
-the fabricator and licensed engineering practice.
+Caution: re-analyse the final geometry before use; process limits are generic defaults only; the fabricator's
+limits, local codes and licensed engineering practice govern.
 `;

@@ -68,8 +68,11 @@ function useColor(args: ParsedArgs, io: Io): boolean {
   return io.isTTY;
 }
 
-function finishReport(report: Report): number {
-  return report.summary.fail > 0 ? EXIT_CHECK_FAILED : EXIT_OK;
+/** Exit code of one grid's report (DESIGN §6): 1 when a check failed, or warned under `--fail-on warn`. */
+export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number {
+  if (report.summary.fail > 0) return EXIT_CHECK_FAILED;
+  if (failOn === 'warn' && report.summary.warn > 0) return EXIT_CHECK_FAILED;
+  return EXIT_OK;
 }
 
 function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
@@ -90,14 +93,14 @@ function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string;
     if (p.format === 'dxf') content = result.dxf();
     else if (p.format === 'svg') content = svg ??= result.svg();
     else if (p.format === 'json') content = formatJson(report);
-    else content = formatHtml(report, { outlineSvg: (svg ??= result.svg()) });
+    else content = formatHtml(report, result.pictures());
     planned.push({ path: p.path, content });
   }
   writeOutputsAtomically(planned, [inputPath], opts.force);
   for (const w of result.warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) io.stdout(formatJson(report));
   else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args, io) }));
-  return finishReport(report);
+  return reportExitCode(report, settings.failOn);
 }
 
 function runInspect(args: ParsedArgs, io: Io): number {

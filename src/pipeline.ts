@@ -3,12 +3,22 @@
  * read → prepare → threshold (volume-preserving, on the smoothed area) → contour → smooth → report → write.
  * Pure: bytes and settings in, strings and a report out. The CLI does every file operation.
  */
+import { resolveLimits } from './check/limits.js';
+import { locator } from './check/locate.js';
+import { planChecks } from './check/registry.js';
+import { runChecks, summarize } from './check/run.js';
+import type { CheckContext } from './check/types.js';
 import { contourGrid } from './contour/index.js';
 import { RhoformError } from './errors.js';
+import { levelCurve } from './field/curve.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { prepareGrid } from './field/prepare.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
+import { buildMorphology, choosePixel } from './morph/index.js';
+import type { Morphology } from './morph/types.js';
 import { CAUTIONS } from './report/cautions.js';
+import { numberFindings } from './report/findings.js';
+import type { HtmlPictures } from './report/html.js';
 import { summarizeGeometry } from './report/geometry.js';
 import type { Settings } from './settings.js';
 import { smoothPolygons, type SmoothResult } from './smooth/smooth.js';
@@ -34,7 +44,14 @@ export interface BuildResult {
   /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
   dxf(): string;
   svg(): string;
+  /** The picture data of the HTML report (the local-thickness map only when it is cheap or already built). */
+  pictures(): HtmlPictures;
 }
+
+/** Grids up to this many samples get a local-thickness picture even when no size check built the engine. */
+const THICKNESS_PICTURE_CELLS = 500_000;
+/** Longer side of the local-thickness picture, pixels. */
+const THICKNESS_PICTURE_SIDE = 600;
 
 /** Runs `f`; a RhoformError that names no file gets `name` (the stages are pure and do not know it). */
 function withFileName<T>(name: string, f: () => T): T {
@@ -105,6 +122,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
   const pixelFraction = level === null ? (mode === 'constant' && prep.min >= 0.5 ? 1 : 0) : pixels / v.length;
 
   const geometry = summarizeGeometry(smoothed.polygons, domainArea);
+  const { limits, process } = withFileName(input.name, () => resolveLimits(s));
   // Long-form CSV infers the cell size from the coordinates: report what was used, and that it was not assumed.
   const inferred = read.layout === 'long';
   const settings: Record<string, unknown> = {
@@ -113,6 +131,9 @@ export function build(input: InputFile, s: Settings): BuildResult {
     cellSizeDefaulted: s.cellSizeDefaulted && !inferred,
     layout: read.layout,
     tolerance,
+    minMember: limits.minMember,
+    minHole: limits.minHole,
+    toolRadius: limits.toolRadius,
   };
   const report: Report = {
     schemaVersion: 1,
@@ -142,7 +163,23 @@ export function build(input: InputFile, s: Settings): BuildResult {
     warnings,
     cautions: [...CAUTIONS],
   };
-  const writerInput = { polygons: smoothed.polygons, domain, units: s.units } as const;
+  if (process !== null) report.process = process;
+
+  // Checks (DESIGN §5): one morphology engine, built on first use and shared by the size checks.
+  let morph: Morphology | undefined;
+  const morphology = (): Morphology => (morph ??= buildMorphology(smoothed.polygons, { domain, pixel: choosePixel(grid.cellSize, domain) }));
+  const ctx: CheckContext = { polygons: smoothed.polygons, raw, domain, grid, report, tolerance, morphology };
+  const planned = planChecks(s, { tolerance, limits, mode });
+  report.checks = runChecks(planned, ctx, locator(grid, read.locate));
+  report.summary = summarize(report.checks);
+  lap('checks');
+
+  const findings = numberFindings(report);
+  const extras =
+    findings.length === 0
+      ? []
+      : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: `${f.n} ${f.checkId}` })) }];
+  const writerInput = { polygons: smoothed.polygons, domain, units: s.units, extras } as const;
   return {
     report,
     grid,
@@ -153,5 +190,12 @@ export function build(input: InputFile, s: Settings): BuildResult {
     builds,
     dxf: () => writeDxf(writerInput),
     svg: () => writeSvg(writerInput),
+    pictures: () => ({
+      grid,
+      polygons: smoothed.polygons,
+      domain,
+      curve: levelCurve(grid),
+      thickness: morph !== undefined || grid.values.length <= THICKNESS_PICTURE_CELLS ? morphology().thicknessMap(THICKNESS_PICTURE_SIDE) : undefined,
+    }),
   };
 }

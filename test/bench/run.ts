@@ -89,6 +89,28 @@ try {
   rows.push(
     `| CSV ${cols}×${rws} | ${(cols * rws / 1e6).toFixed(2)} M | **${median(reads).toFixed(0)} ms** | ${last?.timings.prepare.toFixed(0)} ms | ${last?.timings.threshold.toFixed(0)} ms | ${last?.timings.contour.toFixed(0)} ms | ${last?.timings.smooth.toFixed(0)} ms | ${last?.timings.dxf.toFixed(0)} ms | ${last?.timings.svg.toFixed(0)} ms | ${median(walls).toFixed(0)} ms | ${last?.maxRssMb.toFixed(0)} MB |`,
   );
+  // Checks on the 2000×1000 field: the checks stage in-process, and the whole process with and without limits.
+  const checkRows: string[] = ['| 2000×1000 NPY | limits | checks stage (median) | whole process (median wall) | findings |', '|---|---|---|---|---|'];
+  const plate = join(dir, 'plate-2000x1000.npy');
+  const variants: [string, Record<string, number>, string[]][] = [
+    ['defaults (volume, islands, fidelity, grey)', {}, []],
+    ['--min-member 3 --min-hole 3', { minMember: 3, minHole: 3 }, ['--min-member', '3', '--min-hole', '3']],
+    ['--min-member 3 --min-hole 3 --tool-radius 3', { minMember: 3, minHole: 3, toolRadius: 3 }, ['--min-member', '3', '--min-hole', '3', '--tool-radius', '3']],
+  ];
+  for (const [label, settings, flags] of variants) {
+    const stage: number[] = [];
+    let lastChild: (ChildOut & { checks?: { id: string; locationsTotal: number }[] }) | undefined;
+    for (let k = 0; k < 3; k++) {
+      lastChild = runChild([plate, out, JSON.stringify(settings)]);
+      stage.push(lastChild.timings.checks ?? NaN);
+    }
+    const walls: number[] = [];
+    for (let k = 0; k < 3; k++) walls.push(timeCli(['build', plate, '--out-dir', out, '--force', '--formats', 'dxf,svg,json', '--quiet', ...flags]));
+    const findings = (lastChild?.checks ?? []).map((c) => `${c.id} ${c.locationsTotal}`).join(', ');
+    checkRows.push(`| | ${label} | **${median(stage).toFixed(0)} ms** | ${median(walls).toFixed(0)} ms | ${findings} |`);
+    console.error(`done checks: ${label}`);
+  }
+  rows.push('', ...checkRows);
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }

@@ -32,7 +32,7 @@ describe('CLI contract (docs/cli.md)', () => {
     expect(report.geometry.polygons).toBe(1);
     expect(report.outputs).toHaveLength(4);
     expect(report.cautions.length).toBeGreaterThan(0);
-    expect(r.stdout).toMatch(/caution:/);
+    expect(r.stdout).toMatch(/^caution  Re-analyse|caution  This geometry/m);
   });
 
   it('--json prints the report on stdout and nothing else', () => {

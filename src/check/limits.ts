@@ -1,0 +1,30 @@
+/**
+ * The size limits in force: a `--process` preset fills the limits that were not given explicitly; explicit
+ * options always win (docs/processes.md). Also returns the preset's values with their sources for the report.
+ */
+import type { Settings } from '../settings.js';
+import { processLimits, processTitle, type PresetValue, type ProcessId } from './process.js';
+import type { ResolvedLimits } from './registry.js';
+
+export interface ProcessReport {
+  readonly id: string;
+  readonly title: string;
+  /** mm; null when the process needs none. */
+  readonly thickness: number | null;
+  /** The preset's own values (before explicit overrides), mm, with their sources. */
+  readonly values: { readonly minMember: PresetValue | null; readonly minHole: PresetValue | null; readonly toolRadius: PresetValue | null };
+}
+
+export function resolveLimits(s: Settings): { limits: ResolvedLimits; process: ProcessReport | null } {
+  if (s.process === null) return { limits: { minMember: s.minMember, minHole: s.minHole, toolRadius: s.toolRadius }, process: null };
+  const id = s.process as ProcessId;
+  const preset = processLimits(id, s.thickness);
+  return {
+    limits: {
+      minMember: s.minMember ?? preset.minMember?.value ?? null,
+      minHole: s.minHole ?? preset.minHole?.value ?? null,
+      toolRadius: s.toolRadius ?? preset.toolRadius?.value ?? null,
+    },
+    process: { id, title: processTitle(id), thickness: s.thickness, values: { minMember: preset.minMember, minHole: preset.minHole, toolRadius: preset.toolRadius } },
+  };
+}
