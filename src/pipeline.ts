@@ -168,7 +168,8 @@ export function build(input: InputFile, s: Settings): BuildResult {
   // Checks (DESIGN §5): one morphology engine, built on first use and shared by the size checks.
   let morph: Morphology | undefined;
   const morphology = (): Morphology => (morph ??= buildMorphology(smoothed.polygons, { domain, pixel: choosePixel(grid.cellSize, domain) }));
-  const ctx: CheckContext = { polygons: smoothed.polygons, raw, domain, grid, report, tolerance, morphology };
+  const smoothingDeviation = { max: smoothed.maxDeviation, resolution: smoothed.deviationResolution };
+  const ctx: CheckContext = { polygons: smoothed.polygons, raw, domain, grid, report, tolerance, smoothingDeviation, morphology };
   const planned = planChecks(s, { tolerance, limits, mode });
   report.checks = runChecks(planned, ctx, locator(grid, read.locate));
   report.summary = summarize(report.checks);

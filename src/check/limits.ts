@@ -18,7 +18,7 @@ export interface ProcessReport {
 export function resolveLimits(s: Settings): { limits: ResolvedLimits; process: ProcessReport | null } {
   if (s.process === null) return { limits: { minMember: s.minMember, minHole: s.minHole, toolRadius: s.toolRadius }, process: null };
   const id = s.process as ProcessId;
-  const preset = processLimits(id, s.thickness);
+  const preset = processLimits(id, s.thickness, s.toolRadius);
   return {
     limits: {
       minMember: s.minMember ?? preset.minMember?.value ?? null,

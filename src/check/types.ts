@@ -47,6 +47,12 @@ export interface CheckContext {
   readonly report: Pick<Report, 'input' | 'threshold' | 'smoothing' | 'settings'>;
   /** The outline's deviation budget, mm (the resolved `--tolerance`). */
   readonly tolerance: number;
+  /**
+   * The smoothing stage's own deviation measure (mm): the true directed Hausdorff distance from the outline to
+   * the raw contour is at most `max + resolution`. Lets outline-fidelity skip its located search when the
+   * outline is clearly within its limit. Absent when the caller has none.
+   */
+  readonly smoothingDeviation?: { readonly max: number; readonly resolution: number };
   /** The morphology engine for this outline, built on first use and shared by the size checks. */
   morphology(): Morphology;
 }

@@ -38,6 +38,11 @@ export interface SmoothResult {
    * Measured on first read (the volume search builds candidates it never reports).
    */
   readonly maxDeviation: number;
+  /**
+   * mm: how far the true directed Hausdorff distance may exceed `maxDeviation` — half the sample spacing of
+   * the measure (docs/smoothing.md §4). `maxDeviation` itself is never below the distance at its samples.
+   */
+  readonly deviationResolution: number;
   /** mm², raw (outer areas minus hole areas). */
   areaBefore: number;
   /** mm², final. */
@@ -110,10 +115,16 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
   const polygons = rebuild(final.rings, roles);
   const measured = final;
   let maxDeviation: number | undefined;
+  let spacing: number | undefined;
+  const deviationSpacing = () => (spacing ??= sampleSpacing(measured.rings, tolerance));
   return {
     polygons,
     get maxDeviation(): number {
-      return (maxDeviation ??= spanDeviation(measured.rings, measured.index, rawFlat, sampleSpacing(measured.rings, tolerance)));
+      return (maxDeviation ??= spanDeviation(measured.rings, measured.index, rawFlat, deviationSpacing()));
+    },
+    get deviationResolution(): number {
+      const h = deviationSpacing() / 2;
+      return Number.isFinite(h) ? h : 0;
     },
     areaBefore: totalArea(rawFlat),
     areaAfter: totalArea(final.rings),
