@@ -12,11 +12,14 @@ import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './
 
 /** Samples per limit length: the sampling step is limit / STEPS_PER_LIMIT (or finer; see `samplingStep`). */
 const STEPS_PER_LIMIT = 64;
-/** At most about this many samples along the whole outline (bounds the time on huge outlines). */
-const MAX_SAMPLES = 1e9;
+/**
+ * At most about this many samples along the whole outline: bounds time and memory on huge outlines and when
+ * the limit is 0 (`--tolerance 0`), where the limit gives no step at all.
+ */
+const MAX_SAMPLES = 4e6;
 
 /**
- * Sampling step (mm) along the final outline: limit/64, but no finer than perimeter/4·10⁶; when the limit is
+ * Sampling step (mm) along the final outline: limit/64, but no finer than perimeter/(4·10⁶); when the limit is
  * 0 the perimeter rule alone.
  */
 export function samplingStep(perimeter: number, limit: number): number {

@@ -40,7 +40,8 @@ export interface SmoothResult {
   readonly maxDeviation: number;
   /**
    * mm: how far the true directed Hausdorff distance may exceed `maxDeviation` — half the sample spacing of
-   * the measure (docs/smoothing.md §4). `maxDeviation` itself is never below the distance at its samples.
+   * the measure (docs/smoothing.md §4); Infinity when the tolerance is 0 (only vertices are sampled then).
+   * `maxDeviation` itself is never below the distance at its samples.
    */
   readonly deviationResolution: number;
   /** mm², raw (outer areas minus hole areas). */
@@ -123,8 +124,7 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
       return (maxDeviation ??= spanDeviation(measured.rings, measured.index, rawFlat, deviationSpacing()));
     },
     get deviationResolution(): number {
-      const h = deviationSpacing() / 2;
-      return Number.isFinite(h) ? h : 0;
+      return deviationSpacing() / 2;
     },
     areaBefore: totalArea(rawFlat),
     areaAfter: totalArea(final.rings),
