@@ -42,10 +42,14 @@ function packageRoot(): string {
   return resolve(here, '..');
 }
 
-/** The bundled demo: a grid of our own scenario and the settings it is meant to be built with. */
+/**
+ * The bundled demo: a grid of our own scenario and the settings it is meant to be built with — 2 mm cells, and
+ * the bracket is waterjet-cut from 8 mm aluminium sheet (fixtures/grids/demo-bracket.md), so the checks use
+ * that process's generic limits.
+ */
 export const DEMO = {
   file: 'fixtures/grids/demo-bracket.npy',
-  settings: { cellSize: [2, 2] } as Partial<Settings>,
+  settings: { cellSize: [2, 2], process: 'waterjet-cut', thickness: 8 } as Partial<Settings>,
 };
 
 const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };

@@ -44,16 +44,21 @@ function fmtValue(x: number): string {
 
 const UNIT_TEXT: Record<CheckResult['unit'], string> = { mm: ' mm', mm2: ' mm²', '%': ' %', '1': '' };
 
-function message(p: PlannedCheck, status: Status, measured: number | null, total: number): string {
-  const u = UNIT_TEXT[p.def.unit];
+/**
+ * One line for people. The measured value and the limit are fields of their own (and columns of the text
+ * and HTML tables), so the message says what the value is and what the verdict rests on.
+ */
+function message(p: PlannedCheck, status: Status, measured: number | null, resolution: number, total: number): string {
   if (measured === null) return `nothing to measure: ${p.none}`;
-  const cmp = p.def.comparison === '>=' ? '≥' : '≤';
-  const head = `${p.label} ${fmtValue(measured)}${u}, limit ${cmp} ${fmtValue(p.limit)}${u}`;
-  if (status === 'pass') return head;
-  const where = total === 0 ? '' : `; ${total} ${p.place}${total === 1 ? '' : 's'}`;
-  return status === 'warn' && !(p.def.comparison === '>=' ? measured < p.limit : measured > p.limit)
-    ? `${head}: within the method's resolution of the limit${where}`
-    : `${head}${where}`;
+  const u = UNIT_TEXT[p.def.unit];
+  const broken = p.def.comparison === '>=' ? measured < p.limit : measured > p.limit;
+  const side = p.def.comparison === '>=' ? 'below' : 'above';
+  const places = `${total} ${p.place}${total === 1 ? '' : 's'}`;
+  if (status === 'warn' && resolution > 0 && Math.abs(measured - p.limit) <= resolution) {
+    return `${p.label} within ± ${fmtValue(resolution)}${u} of the limit: too close to call${total > 0 ? ` (${places})` : ''}`;
+  }
+  if (!broken) return `${p.label} within the limit`;
+  return total > 0 ? `${places} ${side} the limit` : `${p.label} ${side} the limit`;
 }
 
 /** Runs every planned check in order; a check's exception propagates (it is a bug, not a verdict). */
@@ -73,7 +78,7 @@ export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, l
       comparison: p.def.comparison,
       resolution: m.resolution,
       method: m.method,
-      message: message(p, status, m.measured, sorted.length),
+      message: message(p, status, m.measured, m.resolution, sorted.length),
       locations,
       locationsTotal: sorted.length,
     };
