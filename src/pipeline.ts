@@ -165,7 +165,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
   };
   if (process !== null) report.process = process;
 
-  // Checks (DESIGN §5): one morphology engine, built on first use and shared by the size checks.
+  // Checks (docs/checks/README.md): one morphology engine, built on first use and shared by the size checks.
   let morph: Morphology | undefined;
   const morphology = (): Morphology => (morph ??= buildMorphology(smoothed.polygons, { domain, pixel: choosePixel(grid.cellSize, domain) }));
   const smoothingDeviation = { max: smoothed.maxDeviation, resolution: smoothed.deviationResolution };
@@ -179,7 +179,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
   const extras =
     findings.length === 0
       ? []
-      : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: `${f.n} ${f.checkId}` })) }];
+      : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) }];
   const writerInput = { polygons: smoothed.polygons, domain, units: s.units, extras } as const;
   return {
     report,

@@ -7,7 +7,7 @@ export type SaddleRuleName = 'decider' | 'join' | 'split';
 
 export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html';
 
-/** A check's severity as set by `--severity <id>=off|warn|fail` (DESIGN §5). */
+/** A check's severity as set by `--severity <id>=off|warn|fail` (docs/checks/README.md). */
 export type SeverityName = 'off' | 'warn' | 'fail';
 
 export interface Settings {

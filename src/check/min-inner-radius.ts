@@ -1,7 +1,7 @@
 /**
  * `min-inner-radius`: concave corners of the solid tighter than the milling tool's radius
  * (docs/checks/min-inner-radius.md). The tool disc sweeps the void; the corners it cannot reach deeper than
- * max(tolerance, 0.05 R) are findings, each with its own radius (DESIGN §5; SOURCES §8.4).
+ * max(tolerance, 0.05 R) are findings, each with its own radius (docs/checks/README.md; docs/references.md §8.4).
  */
 import type { CheckDefinition } from './types.js';
 

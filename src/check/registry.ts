@@ -1,7 +1,7 @@
 /**
  * The registry: every check, in report order (src/check/ids.ts), with its default severity, where its limit
  * comes from, and the words of its message. `planChecks` turns resolved settings into the list the runner
- * runs; a check that is off (no limit, or `--severity <id>=off`) is absent from the report (DESIGN §5).
+ * runs; a check that is off (no limit, or `--severity <id>=off`) is absent from the report (docs/checks/README.md).
  */
 import type { Settings } from '../settings.js';
 import { greyLevel } from './grey-level.js';

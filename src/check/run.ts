@@ -1,5 +1,5 @@
 /**
- * The check runner (DESIGN §5): measures each planned check, applies its limit, the resolution band and its
+ * The check runner (docs/checks/README.md): measures each planned check, applies its limit, the resolution band and its
  * severity, sorts its locations worst first, and maps them to 1-based file rows and columns.
  *
  * Verdict for one check with measured m, limit l, resolution r and severity s:
@@ -11,7 +11,7 @@
 import type { CheckResult, Location, Report, Status } from '../types.js';
 import type { CheckContext, CheckDefinition, RawLocation } from './types.js';
 
-/** At most this many locations per check go into the report (DESIGN §7). */
+/** At most this many locations per check go into the report (docs/report-schema.md). */
 export const MAX_LOCATIONS = 100;
 
 /** One check to run: its definition, the limit in its unit, and the status it gets when the limit is broken. */

@@ -1,5 +1,5 @@
 /**
- * Checks as data (DESIGN §5): a check measures and returns a Measurement; the runner (run.ts) applies the
+ * Checks as data (docs/checks/README.md): a check measures and returns a Measurement; the runner (run.ts) applies the
  * limit, the resolution band and the severity, and turns it into a CheckResult of the report.
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).

@@ -1,6 +1,6 @@
 /**
  * `volume-fraction`: relative error of the smoothed polygon area against the target volume fraction
- * (DESIGN §4; docs/checks/volume-fraction.md). Unit '1' (a ratio); measured ≤ limit passes.
+ * (docs/threshold.md; docs/checks/volume-fraction.md). Unit '1' (a ratio); measured ≤ limit passes.
  *
  * Reads ctx.report.threshold: `achievedFraction` (smoothed polygon area / domain area, before passive regions
  * and repair) and `targetFraction`. No locations: the error belongs to the whole part.

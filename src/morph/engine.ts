@@ -4,7 +4,7 @@
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md). The raster has
  * square pixels of `options.pixel` mm; pixel centres sit at domain origin + (i + ½)·pixel (plus a margin of
- * open space around the domain). Outside the domain is open space (void) for both phases (DESIGN §5).
+ * open space around the domain). Outside the domain is open space (void) for both phases (docs/checks/README.md).
  * Methods and accuracy: docs/checks/min-member-size.md, min-hole-size.md, min-inner-radius.md.
  */
 import type { PolygonSet } from '../types.js';

@@ -3,7 +3,7 @@
  * corners a tool cannot reach, and a local-thickness raster for pictures.
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
- * Outside the domain rectangle is open space (void) for both phases (DESIGN §5).
+ * Outside the domain rectangle is open space (void) for both phases (docs/checks/README.md).
  */
 import type { PolygonSet } from '../types.js';
 

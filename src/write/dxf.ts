@@ -118,7 +118,8 @@ export function writeDxf(input: WriterInput): string {
       start('TEXT', layer, 'AcDbText');
       xy(m.x + (labelHeight * div) / 2, m.y + (labelHeight * div) / 2);
       out.str(`${Z0}${EOL} 40${EOL}`).num(labelHeight, DXF_DECIMALS);
-      out.str(`${EOL}  1${EOL}${dxfText(m.label)}${EOL}100${EOL}AcDbText${EOL}`);
+      const text = m.note ? `${m.label} ${m.note}` : m.label;
+      out.str(`${EOL}  1${EOL}${dxfText(text)}${EOL}100${EOL}AcDbText${EOL}`);
     }
   }
   if (handle !== header.handseed) {

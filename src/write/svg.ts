@@ -157,9 +157,10 @@ function layerBody(entries: readonly WriterExtra[], f: SvgFrame, markerR: number
   for (const e of entries) {
     for (const m of e.markers ?? []) {
       const label = escapeXml(m.label);
+      const title = m.note ? `${label} ${escapeXml(m.note)}` : label;
       const cx = f.x(m.x);
       const cy = f.y(m.y);
-      out.str(`<g class="marker"><title>${label}</title><circle cx="${cx}" cy="${cy}" r="${r}"/>`);
+      out.str(`<g class="marker"><title>${title}</title><circle cx="${cx}" cy="${cy}" r="${r}"/>`);
       out.str(`<text x="${cx}" y="${cy}" dx="${r}" dy="-${r}" font-family="sans-serif" font-size="${size}" `);
       out.str(`fill="${color}" stroke="none">${label}</text></g>\n`);
     }

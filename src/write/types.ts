@@ -20,7 +20,10 @@ export interface WriterCircle {
 export interface WriterMarker {
   readonly x: number;
   readonly y: number;
+  /** The text drawn beside the point (DXF TEXT; SVG text). Keep it short: a finding number. */
   readonly label: string;
+  /** Longer words for the point (DXF: appended to the label; SVG: the tooltip `<title>`); optional. */
+  readonly note?: string;
 }
 
 /** Extra geometry drawn on one named layer. */

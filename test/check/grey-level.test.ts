@@ -22,22 +22,22 @@ describe('grey-level (M_nd, Sigmund 2007)', () => {
   });
 
   it('is 100 % for a uniform grey field ρ ≡ 0.5', () => {
-    // SOURCES §2.4 (Sigmund 2007): ρ ≡ 0.5 → 100 %
+    // docs/references.md §2.4 (Sigmund 2007): ρ ≡ 0.5 → 100 %
     expect(measured(Array(50).fill(0.5)).measured).toBeCloseTo(100, 12);
   });
 
   it('is 0 % for a black-and-white design', () => {
-    // SOURCES §2.4 (Sigmund 2007): ρ ∈ {0, 1} → 0 %
+    // docs/references.md §2.4 (Sigmund 2007): ρ ∈ {0, 1} → 0 %
     expect(measured([0, 1, 1, 0, 0, 0, 1, 1, 0, 1]).measured).toBe(0);
   });
 
   it('is 75 % for ρ ≡ 0.25', () => {
-    // SOURCES §2.4 [D]: 4 · 0.25 · 0.75 = 0.75
+    // docs/references.md §2.4 [D]: 4 · 0.25 · 0.75 = 0.75
     expect(measured(Array(12).fill(0.25)).measured).toBeCloseTo(75, 12);
   });
 
   it('averages over the elements', () => {
-    // SOURCES §2.4 formula [D]: half 0.5 (100 %), half 0 or 1 (0 %) → 50 %
+    // docs/references.md §2.4 formula [D]: half 0.5 (100 %), half 0 or 1 (0 %) → 50 %
     expect(measured([0.5, 0.5, 0, 1]).measured).toBeCloseTo(50, 12);
   });
 

@@ -12,13 +12,13 @@ const value = (id: ProcessId, t: number | null = null, r: number | null = null) 
 
 describe('process presets against the published rules of thumb', () => {
   it('laser-cut: web ≥ t, hole Ø ≥ t with a 1 mm floor', () => {
-    // SOURCES §8.2 (fabricator design guide): web/bridge between cuts ≥ t; hole Ø ≥ t (min 1 mm)
+    // docs/references.md §8.2 (fabricator design guide): web/bridge between cuts ≥ t; hole Ø ≥ t (min 1 mm)
     expect(value('laser-cut', 3)).toEqual({ minMember: 3, minHole: 3, toolRadius: null });
     expect(value('laser-cut', 0.5)).toEqual({ minMember: 0.5, minHole: 1, toolRadius: null }); // the 1 mm floor
   });
 
   it('waterjet-cut: hole ≥ t, web ≥ t, never below the kerf; inner radius = kerf / 2', () => {
-    // SOURCES §8.2: kerf ≈ 0.03 in = 0.762 mm (fabricator design guide); hole ≥ t, web ≥ t [common practice, unconfirmed]
+    // docs/references.md §8.2: kerf ≈ 0.03 in = 0.762 mm (fabricator design guide); hole ≥ t, web ≥ t [common practice, unconfirmed]
     expect(WATERJET_KERF).toBeCloseTo(0.762, 12); // 1 in = 25.4 mm exactly (NIST SP 811)
     const w = value('waterjet-cut', 6);
     expect([w.minMember, w.minHole]).toEqual([6, 6]);
@@ -29,8 +29,8 @@ describe('process presets against the published rules of thumb', () => {
   });
 
   it('milling: walls 0.8 mm (metal), tool radius common practice, min hole = 2 × tool radius', () => {
-    // SOURCES §8.4: walls ≥ 0.8 mm metal (machining-shop guides); the tool radius is common practice, no source
-    // [D] SOURCES §8.4: the hole check with r = R_tool flags slots narrower than 2·R_tool
+    // docs/references.md §8.4: walls ≥ 0.8 mm metal (machining-shop guides); the tool radius is common practice, no source
+    // [D] docs/references.md §8.4: the hole check with r = R_tool flags slots narrower than 2·R_tool
     expect(MILLING_TOOL_RADIUS).toBe(1.5);
     expect(value('milling')).toEqual({ minMember: 0.8, minHole: 3, toolRadius: 1.5 });
     expect(processLimits('milling', null).toolRadius!.source).toMatch(/common practice, no source/);
@@ -39,29 +39,29 @@ describe('process presets against the published rules of thumb', () => {
   });
 
   it('material extrusion: wall 0.8 mm (2 × 0.4 nozzle), hole Ø 2.0 mm', () => {
-    // SOURCES §8.1, first MEX row (fabricator design guides)
+    // docs/references.md §8.1, first MEX row (fabricator design guides)
     expect(value('material-extrusion')).toEqual({ minMember: 0.8, minHole: 2.0, toolRadius: null });
   });
 
   it('vat photopolymerization: wall 0.5 mm, hole Ø 0.5 mm', () => {
-    // SOURCES §8.1, first VPP row (fabricator design guides)
+    // docs/references.md §8.1, first VPP row (fabricator design guides)
     expect(value('vat-photopolymerization')).toEqual({ minMember: 0.5, minHole: 0.5, toolRadius: null });
   });
 
   it('powder bed fusion, polymer: wall 0.8 mm, hole Ø 1.5 mm (upper ends of the ranges)', () => {
-    // SOURCES §8.1 PBF-LB/P row: wall 0.7–0.8, hole Ø 1.0–1.5 (fabricator design guides)
+    // docs/references.md §8.1 PBF-LB/P row: wall 0.7–0.8, hole Ø 1.0–1.5 (fabricator design guides)
     expect(value('pbf-polymer')).toEqual({ minMember: 0.8, minHole: 1.5, toolRadius: null });
   });
 
   it('powder bed fusion, metal: wall 0.5 mm, hole Ø 1.0 mm', () => {
-    // SOURCES §8.1 PBF-LB/M row: wall 0.4 supported / 1.0 unsupported; 0.5; hole Ø 0.5–1.0 (fabricator design guides)
+    // docs/references.md §8.1 PBF-LB/M row: wall 0.4 supported / 1.0 unsupported; 0.5; hole Ø 0.5–1.0 (fabricator design guides)
     expect(value('pbf-metal')).toEqual({ minMember: 0.5, minHole: 1.0, toolRadius: null });
   });
 });
 
 describe('thickness', () => {
   it('the sheet presets scale linearly with t', () => {
-    // SOURCES §8.2: the laser and waterjet rules are multiples of t
+    // docs/references.md §8.2: the laser and waterjet rules are multiples of t
     for (const id of ['laser-cut', 'waterjet-cut'] as const) {
       const a = value(id, 2), b = value(id, 8);
       expect(b.minMember).toBeCloseTo(4 * a.minMember!, 12);
@@ -110,7 +110,7 @@ describe('every preset', () => {
   });
 
   it('names the additive categories as ISO/ASTM 52900 does', () => {
-    // ISO/ASTM 52900 process categories (SOURCES §8 header: category names, no trademarks)
+    // ISO/ASTM 52900 process categories (docs/references.md §8 header: category names, no trademarks)
     expect(processTitle('material-extrusion')).toMatch(/^Material extrusion/);
     expect(processTitle('vat-photopolymerization')).toMatch(/^Vat photopolymerization/);
     expect(processTitle('pbf-polymer')).toMatch(/^Powder bed fusion/);

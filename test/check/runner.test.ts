@@ -1,5 +1,5 @@
 /**
- * The runner's verdicts follow the contract of DESIGN §5 (docs/report-schema.md, CheckResult): limits are
+ * The runner's verdicts follow the contract of docs/checks/README.md (docs/report-schema.md, CheckResult): limits are
  * inclusive, a value within the resolution of the limit is a warning, a broken limit takes the severity,
  * locations come worst first (at most 100) with 1-based file rows and columns.
  */
@@ -8,7 +8,7 @@ import { locator, sampleAt } from '../../src/check/locate.js';
 import { MAX_LOCATIONS, runChecks, summarize, verdict, type PlannedCheck } from '../../src/check/run.js';
 import type { CheckContext, CheckDefinition, Measurement } from '../../src/check/types.js';
 
-describe('verdict (DESIGN §5)', () => {
+describe('verdict (docs/checks/README.md)', () => {
   it('sizes (>=): inclusive limit, resolution band warns, broken limit takes the severity', () => {
     expect(verdict(2, 2, 0, '>=', 'fail')).toBe('pass'); // inclusive
     expect(verdict(1.99, 2, 0, '>=', 'fail')).toBe('fail');

@@ -14,7 +14,7 @@ describe('volume-fraction', () => {
   });
 
   it('measures |achieved − target| / target', () => {
-    // definition (DESIGN §4): relative error of the smoothed area against the target
+    // definition (docs/threshold.md): relative error of the smoothed area against the target
     expect(measure(0.5, 0.5005).measured).toBeCloseTo(0.001, 12);
     expect(measure(0.4, 0.38).measured).toBeCloseTo(0.05, 12);
     expect(measure(0.3, 0.3).measured).toBe(0);
@@ -31,7 +31,7 @@ describe('volume-fraction', () => {
   });
 
   it('uses the absolute error when the target is 0 (relative error undefined)', () => {
-    // DESIGN §4: a target of 0 gives empty geometry, which is then exact
+    // docs/threshold.md: a target of 0 gives empty geometry, which is then exact
     expect(measure(0, 0).measured).toBe(0);
     expect(measure(0, 0.01).measured).toBeCloseTo(0.01, 15);
     expect(volumeError(0, 0)).toBe(0);

@@ -1,5 +1,5 @@
 /**
- * The check part of the CLI contract (DESIGN §5–§6, docs/cli.md): exit codes, --fail-on, --severity,
+ * The check part of the CLI contract (docs/checks/README.md, docs/cli.md): exit codes, --fail-on, --severity,
  * process presets, located findings in the JSON report and on the `finding` layer of the DXF.
  *
  * The grid: a 60 × 30 mm plate (1 mm cells) made of two thick blocks joined by a horizontal strut of
@@ -44,7 +44,7 @@ describe('checks on the command line', () => {
   it('a strut thinner than --min-member fails (exit 1), is located, and geometry is still written', () => {
     const { dir } = setup();
     const r = cli(['build', 'struts.csv', '--min-member', '4', '--json'], dir);
-    expect(r.code).toBe(1); // DESIGN §6: 1 = a check failed, geometry still written
+    expect(r.code).toBe(1); // docs/cli.md: 1 = a check failed, geometry still written
     const report = JSON.parse(r.stdout) as Report;
     const c = report.checks.find((k) => k.id === 'min-member-size');
     expect(c?.status).toBe('fail');

@@ -7,7 +7,7 @@ import type { Point, PolygonSet } from '../../src/types.js';
 import { type Box, circle, mapSet, poly, rect, segDist, set, stadium } from './shapes.js';
 
 /**
- * Independent brute-force binary opening (SOURCES §1.2: O_r(Ω) = (Ω ⊖ B_r) ⊕ B_r; a shape with no member thinner
+ * Independent brute-force binary opening (docs/references.md §1.2: O_r(Ω) = (Ω ⊖ B_r) ⊕ B_r; a shape with no member thinner
  * than d equals its opening by a disc of radius d/2). Pixels of size h at centres ((i + ½)h, (j + ½)h); the disc
  * footprint is {(a, b): a² + b² ≤ (r/h)²}; outside the image counts as `outside` (0 = void). Shares no code with
  * src/morph.
@@ -69,7 +69,7 @@ const smooth: Shape[] = [
   },
 ];
 
-describe('local width against an independent raster opening (SOURCES §1.2)', () => {
+describe('local width against an independent raster opening (docs/references.md §1.2)', () => {
   for (const s of smooth) {
     it(`analytic: ${s.name} — min width ≥ d ⇔ the opening by d/2 removes (almost) nothing; places lie where it removes`, () => {
       const m = buildMorphology(s.set, { domain: s.domain, pixel: choosePixel([1, 1], s.domain, 500_000) });
@@ -95,7 +95,7 @@ describe('local width against an independent raster opening (SOURCES §1.2)', ()
     expect(removed.length).toBeGreaterThan(0);
     for (const p of removed) expect(Math.min(Math.hypot(p[0] - 10, p[1] - 10), Math.hypot(p[0] - 50, p[1] - 10), Math.hypot(p[0] - 10, p[1] - 30), Math.hypot(p[0] - 50, p[1] - 30))).toBeLessThan(6);
     const m = buildMorphology(r.set, { domain: r.domain, pixel: 0.25 });
-    expect(m.width('solid', 12).places).toEqual([]); // DESIGN §5: corners are never thin
+    expect(m.width('solid', 12).places).toEqual([]); // docs/checks/README.md: corners are never thin
   });
 });
 

@@ -22,16 +22,16 @@ describe('choosePixel', () => {
 });
 
 describe('local width — analytic polygons', () => {
-  it('analytic: a disc of diameter 50 has solid width 50 (SOURCES §1.2 check value)', () => {
+  it('analytic: a disc of diameter 50 has solid width 50 (docs/references.md §1.2 check value)', () => {
     const m = engine(set(poly(circle(40, 40, 25))), [0, 0, 80, 80]);
     const w = m.width('solid', 10);
-    expect(Math.abs(w.min! - 50)).toBeLessThanOrEqual(tol(50)); // SOURCES §1.2: disc Ø50 → 50
+    expect(Math.abs(w.min! - 50)).toBeLessThanOrEqual(tol(50)); // docs/references.md §1.2: disc Ø50 → 50
     expect(Math.hypot(w.minAt!.x - 40, w.minAt!.y - 40)).toBeLessThan(1); // analytic: the medial axis is the centre
     expect(w.places).toEqual([]);
     expect(m.width('void', 1000).min).toBeNull(); // analytic: the void around a lone disc has no second wall
   });
 
-  it('analytic: a ring Ø120/Ø50 has solid width 35 and void width 50 (SOURCES §1.2 check values)', () => {
+  it('analytic: a ring Ø120/Ø50 has solid width 35 and void width 50 (docs/references.md §1.2 check values)', () => {
     const m = engine(set(poly(circle(70, 70, 60), circle(70, 70, 25))), [0, 0, 140, 140]);
     expect(Math.abs(m.width('solid', 0).min! - 35)).toBeLessThanOrEqual(tol(35)); // (120 − 50)/2
     expect(Math.abs(m.width('void', 0).min! - 50)).toBeLessThanOrEqual(tol(50)); // the inner hole
@@ -64,7 +64,7 @@ describe('local width — analytic polygons', () => {
     for (const [w, h] of [[40, 20], [30, 30], [50, 8]]) {
       const m = engine(set(poly(rect(10, 10, 10 + w, 10 + h))), [0, 0, w + 20, h + 20]);
       const r = m.width('solid', 0.9 * Math.min(w, h));
-      expect(r.places).toEqual([]); // DESIGN §5 required behaviour: a rectangle → no finding
+      expect(r.places).toEqual([]); // docs/checks/README.md required behaviour: a rectangle → no finding
       expect(Math.abs(r.min! - Math.min(w, h))).toBeLessThanOrEqual(tol(Math.min(w, h))); // analytic: the central medial segment
     }
   });
@@ -81,7 +81,7 @@ describe('local width — analytic polygons', () => {
   });
 
   it('analytic: the domain edge is a hard edge — a wall of 6 between a hole and the edge is one place under 8', () => {
-    // solid plate filling the domain, hole of radius 10 at (16, 30): wall 0 … 6 at y = 30 (DESIGN §5)
+    // solid plate filling the domain, hole of radius 10 at (16, 30): wall 0 … 6 at y = 30 (docs/checks/README.md)
     const m = engine(set(poly(rect(0, 0, 100, 60), circle(16, 30, 10))), [0, 0, 100, 60]);
     const r = m.width('solid', 8);
     expect(r.places).toHaveLength(1);
@@ -93,7 +93,7 @@ describe('local width — analytic polygons', () => {
 
 describe('local width — analytic grids through contour and smoothing', () => {
   const cell = 1;
-  it('analytic: disc Ø50 and ring Ø120/Ø50 from grey-ramp grids (SOURCES §1.2 check values)', () => {
+  it('analytic: disc Ø50 and ring Ø120/Ø50 from grey-ramp grids (docs/references.md §1.2 check values)', () => {
     const disc = outline(sdGrid(80, 80, cell, (x, y) => 25 - Math.hypot(x - 40.3, y - 39.6)));
     expect(Math.abs(engine(disc, [0, 0, 80, 80]).width('solid', 0).min! - 50)).toBeLessThanOrEqual(tol(50));
     const ring = outline(sdGrid(140, 140, cell, (x, y) => {
@@ -136,7 +136,7 @@ describe('local width — analytic grids through contour and smoothing', () => {
     const r = engine(outline(slot), [0, 0, 100, 60]).width('void', 6);
     expect(r.places).toHaveLength(1);
     expect(Math.abs(r.places[0].width - 4)).toBeLessThanOrEqual(tol(4));
-    // solid below y = 30.4, open space above: the void has one wall only (DESIGN §5)
+    // solid below y = 30.4, open space above: the void has one wall only (docs/checks/README.md)
     const half = sdGrid(100, 60, cell, (_x, y) => 30.4 - y);
     const open = engine(outline(half), [0, 0, 100, 60]).width('void', 1000);
     expect(open.places).toEqual([]);

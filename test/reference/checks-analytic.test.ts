@@ -2,7 +2,7 @@
  * The required analytic cases of the size checks, end to end through `build` (grid → threshold → contour →
  * smooth → checks): grey ramps of two cells across every edge, so the true boundary is known exactly.
  * Accuracy required: measured sizes within max(0.5 cell, 2 %) of the true value.
- * Disc and ring values: SOURCES.md §1.2 (the published test patterns of a length-scale measuring routine);
+ * Disc and ring values: docs/references.md §1.2 (the published test patterns of a length-scale measuring routine);
  * every other expectation is analytic (the drawn dimension of the shape).
  */
 import { describe, expect, it } from 'vitest';
@@ -31,14 +31,14 @@ const disc = (cx: number, cy: number, r: number) => (x: number, y: number) => r 
 const box = (x0: number, y0: number, x1: number, y1: number) => (x: number, y: number) => Math.min(x - x0, x1 - x, y - y0, y1 - y);
 
 describe('size checks on analytic grids (required cases)', () => {
-  it('analytic: a disc of diameter 50 → thinnest member 50 (SOURCES §1.2)', () => {
+  it('analytic: a disc of diameter 50 → thinnest member 50 (docs/references.md §1.2)', () => {
     const c = checks(100, 100, disc(50, 50, 25), { minMember: 60 }).get('min-member-size');
     expect(c?.status).toBe('fail');
     expect(within(c!.measured, 50)).toBe(true);
     expect(Math.hypot(c!.locations[0].x - 50, c!.locations[0].y - 50)).toBeLessThan(2);
   });
 
-  it('analytic: a ring of outer diameter 120 and inner 50 → member 35, hole 50 (SOURCES §1.2)', () => {
+  it('analytic: a ring of outer diameter 120 and inner 50 → member 35, hole 50 (docs/references.md §1.2)', () => {
     const ring = (x: number, y: number) => Math.min(60 - Math.hypot(x - 80, y - 80), Math.hypot(x - 80, y - 80) - 25);
     const m = checks(160, 160, ring, { minMember: 20, minHole: 20 });
     expect(within(m.get('min-member-size')!.measured, 35)).toBe(true);

@@ -135,7 +135,7 @@ describe('HTML report', () => {
       }),
       big,
     );
-    expect(Buffer.byteLength(page, 'utf8')).toBeLessThan(5 * 1024 * 1024); // DESIGN §8 bound
+    expect(Buffer.byteLength(page, 'utf8')).toBeLessThan(5 * 1024 * 1024); // docs/output-formats.md bound
     for (const [w, h] of pngSizes(page)) expect(Math.max(w, h)).toBeLessThanOrEqual(1200);
     expect(page.match(/<tr id="finding-/g)).toHaveLength(200);
   }, 30_000);
