@@ -9,7 +9,7 @@ import { planChecks } from './check/registry.js';
 import { runChecks, summarize } from './check/run.js';
 import type { CheckContext } from './check/types.js';
 import { contourGrid } from './contour/index.js';
-import { RhoformError } from './errors.js';
+import { RhoformError, UsageError } from './errors.js';
 import { levelCurve } from './field/curve.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { prepareGrid } from './field/prepare.js';
@@ -123,6 +123,12 @@ export function build(input: InputFile, s: Settings): BuildResult {
 
   const geometry = summarizeGeometry(smoothed.polygons, domainArea);
   const { limits, process } = withFileName(input.name, () => resolveLimits(s));
+  // A tool wider than the part cannot mill any pocket of it, and its open-space margin would need a raster
+  // many times the grid: refuse it as a usage error rather than spend the memory.
+  const span = Math.max(domain[2] - domain[0], domain[3] - domain[1]);
+  if (limits.toolRadius !== null && !(limits.toolRadius <= span)) {
+    throw new UsageError(`--tool-radius: expected a radius up to the larger side of the domain (${span} mm), found ${limits.toolRadius} mm`);
+  }
   // Long-form CSV infers the cell size from the coordinates: report what was used, and that it was not assumed.
   const inferred = read.layout === 'long';
   const settings: Record<string, unknown> = {

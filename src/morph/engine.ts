@@ -20,7 +20,7 @@ import { widthSurvey } from './width.js';
 /** Open-space margin (pixels) of the first raster; corners() rebuilds with a wider one when the tool needs it. */
 const BASE_PAD = 6;
 /** Refuse rasters larger than this (pixels, margin included). */
-const MAX_RASTER = 64_000_000;
+const MAX_RASTER = 24_000_000;
 
 interface Stage {
   readonly frame: Frame;

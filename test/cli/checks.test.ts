@@ -139,6 +139,7 @@ describe('checks on the command line', () => {
       [['--process', 'plasma'], '--process'],
       [['--fail-on', 'never'], '--fail-on'],
       [['--grey-warn', '120'], '--grey-warn'],
+      [['--tool-radius', '500'], '--tool-radius'], // wider than the 60 mm part
     ] as const) {
       const r = cli(['check', 'struts.csv', ...args], dir);
       expect(r.code, args.join(' ')).toBe(2);
