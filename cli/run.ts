@@ -72,7 +72,7 @@ function useColor(args: ParsedArgs, io: Io): boolean {
   return io.isTTY;
 }
 
-/** Exit code of one grid's report (DESIGN §6): 1 when a check failed, or warned under `--fail-on warn`. */
+/** Exit code of one grid's report (docs/cli.md): 1 when a check failed, or warned under `--fail-on warn`. */
 export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number {
   if (report.summary.fail > 0) return EXIT_CHECK_FAILED;
   if (failOn === 'warn' && report.summary.warn > 0) return EXIT_CHECK_FAILED;

@@ -19,7 +19,7 @@
  */
 import type { NearestField } from './nearest.js';
 import type { Frame } from './raster.js';
-import { type SegmentSet, sideOf } from './segments.js';
+import { type SegmentSet, segDist2, sideOf } from './segments.js';
 import { snapToVertex } from './vertex.js';
 
 /** Medial samples, pixel units. */
@@ -61,14 +61,7 @@ export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField
     X[n] = x; Y[n] = y; R[n] = r; C[n] = c; S[n] = s;
     n++;
   };
-  const dist2 = (s: number, px: number, py: number): number => {
-    const o = 5 * s;
-    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
-    let t = ((px - ax) * dx + (py - ay) * dy) * geo[o + 4];
-    t = t < 0 ? 0 : t > 1 ? 1 : t;
-    const ex = px - ax - t * dx, ey = py - ay - t * dy;
-    return ex * ex + ey * ey;
-  };
+  const dist2 = (s: number, px: number, py: number): number => segDist2(geo, s, px, py);
   const g = (a: number, b: number, px: number, py: number): number =>
     Math.sqrt(dist2(a, px, py)) - Math.sqrt(dist2(b, px, py));
 

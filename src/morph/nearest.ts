@@ -16,7 +16,7 @@
  * 3. Polish: each pixel walks along the ring of its segment (previous / next) while that is closer.
  */
 import type { Frame } from './raster.js';
-import type { SegmentSet } from './segments.js';
+import { type SegmentSet, segDist2 } from './segments.js';
 
 export interface NearestField {
   /** Nearest segment id per pixel; −1 when there is no boundary at all. */
@@ -39,7 +39,7 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   // 1. seeds
   for (let s = 0; s < set.n; s++) {
     const o = 5 * s;
-    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3], il = geo[o + 4];
+    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
     const steps = Math.ceil(2 * Math.sqrt(dx * dx + dy * dy)) + 1;
     for (let k = 0; k <= steps; k++) {
       const t = k / steps;
@@ -51,10 +51,7 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
         for (let i = i0; i <= i1; i++) {
           const p = j * nx + i;
           if (seg[p] === s) continue;
-          let u = ((i - ax) * dx + (j - ay) * dy) * il;
-          u = u < 0 ? 0 : u > 1 ? 1 : u;
-          const ex = i - ax - u * dx, ey = j - ay - u * dy;
-          const d2 = ex * ex + ey * ey;
+          const d2 = segDist2(geo, s, i, j);
           if (d2 < best[p]) {
             best[p] = d2;
             seg[p] = s;
@@ -71,14 +68,7 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   const vx = new Float32Array(N);
   const vy = new Float32Array(N);
   const dist = new Float32Array(N).fill(Infinity);
-  const d2 = (s: number, i: number, j: number): number => {
-    const o = 5 * s;
-    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
-    let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
-    u = u < 0 ? 0 : u > 1 ? 1 : u;
-    const ex = i - ax - u * dx, ey = j - ay - u * dy;
-    return ex * ex + ey * ey;
-  };
+  const d2 = (s: number, i: number, j: number): number => segDist2(geo, s, i, j);
   const { prev, next } = set;
   for (let j = 0, p = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++, p++) {
@@ -109,12 +99,7 @@ function sweep(nx: number, ny: number, seg: Int32Array, best: Float64Array, geo:
   const take = (p: number, q: number, i: number, j: number): void => {
     const s = seg[q];
     if (s < 0 || s === seg[p]) return;
-    const o = 5 * s;
-    const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
-    let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
-    u = u < 0 ? 0 : u > 1 ? 1 : u;
-    const ex = i - ax - u * dx, ey = j - ay - u * dy;
-    const d2 = ex * ex + ey * ey;
+    const d2 = segDist2(geo, s, i, j);
     if (d2 < best[p]) {
       best[p] = d2;
       seg[p] = s;

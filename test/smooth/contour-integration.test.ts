@@ -3,21 +3,9 @@ import { contourGrid } from '../../src/contour/contour.js';
 import { smoothPolygons } from '../../src/smooth/smooth.js';
 import type { DensityGrid } from '../../src/types.js';
 import { bruteDeviation, bruteProblems } from './oracle.js';
+import { holePlateGrid } from '../support/hole-plate.js';
 
-/** A 120 × 60 cell plate (1 mm cells) with round holes, one of them cut by the domain edge; linear ramps. */
-function grid(): DensityGrid {
-  const nx = 120, ny = 60;
-  const holes = [[20.3, 20.2, 9], [55.1, 35.7, 12], [95.4, 18.9, 7], [118, 45, 10], [60, 8, 3]];
-  const values = new Float64Array(nx * ny);
-  for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      let d = Infinity;
-      for (const [cx, cy, r] of holes) d = Math.min(d, Math.hypot(i + 0.5 - cx, j + 0.5 - cy) - r);
-      values[j * nx + i] = Math.max(0, Math.min(1, 0.5 + d / 3));
-    }
-  }
-  return { nx, ny, cellSize: [1, 1], origin: [0, 0], values, placement: 'cells' };
-}
+const grid = holePlateGrid;
 
 describe('smoothing the contour stage output', () => {
   it('stays valid, within tolerance, and keeps the domain corners and edge contacts', () => {
