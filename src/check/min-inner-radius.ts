@@ -3,6 +3,7 @@
  * (docs/checks/min-inner-radius.md). The tool disc sweeps the void; the corners it cannot reach deeper than
  * max(tolerance, 0.05 R) are findings, each with its own radius (docs/checks/README.md; docs/references.md §8.4).
  */
+import { formatValue } from './format.js';
 import type { CheckDefinition } from './types.js';
 
 export const minInnerRadius: CheckDefinition = {
@@ -16,7 +17,7 @@ export const minInnerRadius: CheckDefinition = {
     return {
       measured: survey.min,
       resolution: survey.resolution,
-      method: `opening of the void by the tool disc (R = ${limit} mm); corners left uncut deeper than ${depth.toPrecision(3)} mm, each radius from the largest disc that reaches it`,
+      method: `opening of the void by the tool disc (R = ${formatValue(limit)} mm); corners left uncut deeper than ${formatValue(depth, 3)} mm, each radius from the largest disc that reaches it`,
       locations: survey.places.map((p) => ({ x: p.x, y: p.y, measured: p.radius })),
     };
   },

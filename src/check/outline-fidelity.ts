@@ -8,6 +8,7 @@
 import { polygonSetPerimeter } from '../geom/area.js';
 import { flattenSet } from '../geom/flat.js';
 import { locatedDeviation } from '../geom/hausdorff.js';
+import { formatValue } from './format.js';
 import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './types.js';
 
 /** Samples per limit length: the sampling step is limit / STEPS_PER_LIMIT (or finer; see `samplingStep`). */
@@ -51,7 +52,7 @@ export function measureOutlineFidelity(ctx: CheckContext, limit: number): Measur
     return {
       measured: sd.max,
       resolution: sd.resolution,
-      method: `directed Hausdorff distance from the final outline to the raw iso-contour, from the smoothing stage's bounded measure (samples every ${fmt(2 * sd.resolution)} mm); clearly within the limit, so not located`,
+      method: `directed Hausdorff distance from the final outline to the raw iso-contour, from the smoothing stage's bounded measure (samples every ${formatValue(2 * sd.resolution)} mm); clearly within the limit, so not located`,
       locations: [],
     };
   }
@@ -66,14 +67,11 @@ export function measureOutlineFidelity(ctx: CheckContext, limit: number): Measur
   return {
     measured,
     resolution,
-    method: `directed Hausdorff distance from the final outline to the raw iso-contour: vertices exact, edges by branch and bound to a ${fmt(step)} mm step`,
+    method: `directed Hausdorff distance from the final outline to the raw iso-contour: vertices exact, edges by branch and bound to a ${formatValue(step)} mm step`,
     locations: measured === null ? [] : locations,
   };
 }
 
-function fmt(x: number): string {
-  return String(Number(x.toPrecision(3)));
-}
 
 export const outlineFidelity: CheckDefinition = {
   id: 'outline-fidelity',

@@ -9,6 +9,7 @@
  * - otherwise → pass. Limits are inclusive: m = l passes when r = 0.
  */
 import type { CheckResult, Location, Report, Status } from '../types.js';
+import { formatValue } from './format.js';
 import type { CheckContext, CheckDefinition, RawLocation } from './types.js';
 
 /** At most this many locations per check go into the report (docs/report-schema.md). */
@@ -36,11 +37,6 @@ export function verdict(measured: number | null, limit: number, resolution: numb
   return broken ? severity : 'pass';
 }
 
-function fmtValue(x: number): string {
-  if (x === 0) return '0';
-  const a = Math.abs(x);
-  return a >= 1e5 || a < 1e-3 ? x.toExponential(3) : String(Number(x.toPrecision(4)));
-}
 
 const UNIT_TEXT: Record<CheckResult['unit'], string> = { mm: ' mm', mm2: ' mm²', '%': ' %', '1': '' };
 
@@ -55,7 +51,7 @@ function message(p: PlannedCheck, status: Status, measured: number | null, resol
   const side = p.def.comparison === '>=' ? 'below' : 'above';
   const places = `${total} ${p.place}${total === 1 ? '' : 's'}`;
   if (status === 'warn' && resolution > 0 && Math.abs(measured - p.limit) <= resolution) {
-    return `${p.label} within ± ${fmtValue(resolution)}${u} of the limit: too close to call${total > 0 ? ` (${places})` : ''}`;
+    return `${p.label} within ± ${formatValue(resolution)}${u} of the limit: too close to call${total > 0 ? ` (${places})` : ''}`;
   }
   if (!broken) return `${p.label} within the limit`;
   return total > 0 ? `${places} ${side} the limit` : `${p.label} ${side} the limit`;

@@ -5,6 +5,7 @@
  * warning the runner gives (docs/checks/README.md) is located.
  */
 import type { Morphology, Phase } from '../morph/types.js';
+import { formatValue } from './format.js';
 import type { Measurement, RawLocation } from './types.js';
 
 export function widthMeasurement(m: Morphology, phase: Phase, limit: number): Measurement {
@@ -17,7 +18,7 @@ export function widthMeasurement(m: Morphology, phase: Phase, limit: number): Me
   return {
     measured: survey.min,
     resolution: survey.resolution,
-    method: `local width of the ${what} on the θ-simplified medial axis (θ = 120°), exact distances to the outline on a ${m.pixel.toPrecision(3)} mm raster`,
+    method: `local width of the ${what} on the θ-simplified medial axis (θ = 120°), exact distances to the outline on a ${formatValue(m.pixel, 3)} mm raster`,
     locations,
   };
 }

@@ -77,3 +77,14 @@ describe('locations → file rows and columns', () => {
     expect(sampleAt(nodes, 3.1, 0.9)).toEqual({ i: 2, j: 0 });
   });
 });
+
+describe('numbers in messages', () => {
+  it('four significant digits without float noise; exponents only at the extremes', async () => {
+    const { formatValue } = await import('../../src/check/format.js');
+    expect(formatValue((0.03 * 25.4) / 2)).toBe('0.381'); // 0.03 in kerf / 2 = 0.38099999999999995 in binary
+    expect(formatValue(3.04217)).toBe('3.042');
+    expect(formatValue(3.11e-5)).toBe('3.110e-5');
+    expect(formatValue(0)).toBe('0');
+    expect(formatValue(123456)).toBe('1.235e+5');
+  });
+});
