@@ -35,7 +35,8 @@ function piecePerimeter(p: Polygon): number {
 /**
  * Net area (mm², shoelace: outer minus holes) of every piece not joined to the main body. measured = the area of
  * the largest island; null when there is none. Resolution = that island's perimeter × ctx.tolerance, the area a
- * band of the outline's deviation budget around it can hold. Locations: one per island whose area is above
+ * band of the outline's deviation budget around it can hold — but 0 under the limit 0 ("every extra piece"):
+ * whether a piece exists is not uncertain, only how large it is. Locations: one per island whose area is above
  * limit − its own resolution, at a point strictly inside the island (src/geom/interior.ts), measured = its area.
  * O(vertices).
  */
@@ -44,7 +45,7 @@ export function measureIslands(ctx: CheckContext, limit: number): Measurement {
   const areas = new Float64Array(polys.length);
   for (let k = 0; k < polys.length; k++) areas[k] = polygonArea(polys[k]);
   const joined = joinedPieces(ctx.polygons, areas);
-  const tol = ctx.tolerance > 0 ? ctx.tolerance : 0;
+  const tol = ctx.tolerance > 0 && limit > 0 ? ctx.tolerance : 0;
   let worst = -1;
   let resolution = 0;
   const locations: RawLocation[] = [];
