@@ -38,6 +38,9 @@ export interface ThresholdChoice<S extends { readonly areaBefore: number; readon
   readonly warnings: string[];
 }
 
+/** Grids up to this many samples may spend up to 12 more builds bisecting on the smoothed area (volume.ts). */
+const REFINE_CELLS = 250_000;
+
 /**
  * Choose the level for a prepared grid. `buildAt(level)` contours and smooths at a level; `buildAt(null)`
  * returns the empty part.
@@ -63,10 +66,20 @@ export function chooseThreshold<S extends { readonly areaBefore: number; readonl
     return { mode: 'volume', level: null, chosen: buildAt(null), warnings };
   }
   const targetArea = o.target * o.domainArea;
-  const found = volumeLevel(levelBandModel(grid, o.saddle, [o.min, o.max]), targetArea, o.volumeTolerance, (L) => {
-    const c = buildAt(L);
-    return { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c };
-  });
+  // Bisection on the smoothed area is worth its builds where they are cheap (small grids are the coarse ones
+  // whose simplification makes the area jump); large grids converge in the fixed point.
+  const refine = grid.values.length <= REFINE_CELLS ? 12 : 0;
+  const found = volumeLevel(
+    levelBandModel(grid, o.saddle, [o.min, o.max]),
+    targetArea,
+    o.volumeTolerance,
+    (L) => {
+      const c = buildAt(L);
+      return { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c };
+    },
+    6,
+    refine,
+  );
   if (found.relativeError > o.volumeTolerance) {
     const got = found.build.area / o.domainArea;
     warnings.push(

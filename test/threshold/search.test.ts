@@ -55,4 +55,21 @@ describe('volume-preserving level on the smoothed area', () => {
     expect(Math.abs(r.build.area - 40) / 40).toBeLessThanOrEqual(1e-4);
     expect(r.builds).toBeLessThanOrEqual(3);
   });
+
+  it('a smoothing change that varies faster than the area: the fixed point circles, bisection on the smoothed area lands', () => {
+    const los = Array.from({ length: 100 }, (_, k) => k / 100);
+    const m = rampModel(los, 0.2);
+    const raw = (L: number) => los.reduce((a, lo) => a + Math.min(1, Math.max(0, (lo + 0.2 - L) / 0.2)), 0);
+    // analytic: raw falls about 100 area units per unit level; the change swings ±1.5 with a period of 0.02 in the
+    // level, so its slope (±470) beats the raw slope and the fixed-point step overshoots; the smoothed area stays
+    // continuous, so a bracket holds a level where it equals the target (intermediate value theorem).
+    const smoothed = (L: number) => raw(L) - 0.8 + 1.5 * Math.sin(100 * Math.PI * L);
+    const f = (L: number) => ({ area: smoothed(L), rawArea: raw(L), value: L });
+    const plain = volumeLevel(m, 40, 1e-5, f, 6, 0);
+    const refined = volumeLevel(m, 40, 1e-5, f, 6, 30);
+    expect(plain.relativeError).toBeGreaterThan(1e-5); // the fixed point alone does not get there
+    expect(refined.relativeError).toBeLessThanOrEqual(1e-5);
+    expect(Math.abs(smoothed(refined.level) - 40) / 40).toBeLessThanOrEqual(1e-5);
+    expect(refined.builds).toBeLessThanOrEqual(36);
+  });
 });
