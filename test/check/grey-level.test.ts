@@ -15,12 +15,6 @@ const measured = (values: number[]) => {
 };
 
 describe('grey-level (M_nd, Sigmund 2007)', () => {
-  it('is declared in percent and passes when small', () => {
-    expect(greyLevel.id).toBe('grey-level');
-    expect(greyLevel.unit).toBe('%');
-    expect(greyLevel.comparison).toBe('<=');
-  });
-
   it('is 100 % for a uniform grey field ρ ≡ 0.5', () => {
     // docs/references.md §2.4 (Sigmund 2007): ρ ≡ 0.5 → 100 %
     expect(measured(Array(50).fill(0.5)).measured).toBeCloseTo(100, 12);

@@ -14,12 +14,6 @@ const body: Polygon = { outer: rect(0, 0, 60, 40), holes: [] };
 const run = (polygons: Polygon[], limit = 0, tolerance = 0.25) => islands.measure(makeContext({ polygons: { polygons }, tolerance }), limit);
 
 describe('islands', () => {
-  it('is declared in mm² and passes when small', () => {
-    expect(islands.id).toBe('islands');
-    expect(islands.unit).toBe('mm2');
-    expect(islands.comparison).toBe('<=');
-  });
-
   it('has nothing to measure for one piece or none', () => {
     expect(run([body]).measured).toBeNull();
     expect(run([body]).locations).toEqual([]);

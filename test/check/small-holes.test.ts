@@ -15,12 +15,6 @@ const plate: Polygon = {
 };
 
 describe('small-holes', () => {
-  it('is declared in mm² and passes when large', () => {
-    expect(smallHoles.id).toBe('small-holes');
-    expect(smallHoles.unit).toBe('mm2');
-    expect(smallHoles.comparison).toBe('>=');
-  });
-
   it('measures the smallest hole by its area (πr² for a round hole)', () => {
     const m = run([plate], 1);
     expect(m.measured).toBeCloseTo(ngonArea(2, n), 9); // analytic n-gon area

@@ -7,12 +7,6 @@ const measure = (targetFraction: number, achievedFraction: number, mode: 'volume
   volumeFraction.measure(makeContext({ threshold: { targetFraction, achievedFraction, mode } }), 0.001);
 
 describe('volume-fraction', () => {
-  it('is declared as a ratio that passes when small', () => {
-    expect(volumeFraction.id).toBe('volume-fraction');
-    expect(volumeFraction.unit).toBe('1');
-    expect(volumeFraction.comparison).toBe('<=');
-  });
-
   it('measures |achieved − target| / target', () => {
     // definition (docs/threshold.md): relative error of the smoothed area against the target
     expect(measure(0.5, 0.5005).measured).toBeCloseTo(0.001, 12);
