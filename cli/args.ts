@@ -5,9 +5,9 @@
 import { UsageError } from '../src/errors.js';
 import { isCheckId } from '../src/check/ids.js';
 import { PROCESS_IDS } from '../src/check/process.js';
-import type { OutputFormat, Settings } from '../src/settings.js';
+import { MIRROR_EDGES, REPAIR_IDS, type MirrorEdge, type OutputFormat, type RepairName, type Settings } from '../src/settings.js';
 
-export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'help' | 'version';
+export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'batch' | 'merge' | 'help' | 'version';
 
 export interface CliOptions {
   outDir: string | null;
@@ -15,6 +15,10 @@ export interface CliOptions {
   force: boolean;
   quiet: boolean;
   color: boolean | null;
+  /** `batch --jobs n`: worker threads; null = the number of cores. */
+  jobs: number | null;
+  /** `batch --shard k/n`: this run's share of the sorted file list; null = all of it. */
+  shard: { k: number; n: number } | null;
 }
 
 export interface ParsedArgs {
@@ -26,16 +30,34 @@ export interface ParsedArgs {
 
 type Handler = (value: string, out: ParsedArgs) => void;
 interface OptionSpec {
-  /** Takes a value. */
-  value: boolean;
+  /** Takes a value; 'optional': only as `--name=value`, or a following word that `accepts`. */
+  value: boolean | 'optional';
+  /** For an optional value: whether the next word is this option's value rather than a file. */
+  accepts?: (word: string) => boolean;
   /** Commands that accept it. */
   commands: readonly Command[];
   apply: Handler;
 }
 
-const GRID_CMDS: readonly Command[] = ['build', 'check', 'inspect'];
-const RUN_CMDS: readonly Command[] = ['build', 'check', 'demo'];
-const OUT_CMDS: readonly Command[] = ['build', 'check', 'demo'];
+const GRID_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'batch'];
+const RUN_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch'];
+const OUT_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch', 'merge'];
+const GEOMETRY_CMDS: readonly Command[] = ['build', 'demo', 'batch'];
+const ALL_RUN_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge'];
+
+function repairList(v: string): RepairName[] {
+  const parts = v.split(',').map((p) => p.trim());
+  for (const p of parts) {
+    if (!(REPAIR_IDS as readonly string[]).includes(p)) {
+      throw new UsageError(`--repair: expected a comma-separated list of ${REPAIR_IDS.join(', ')}, found ${JSON.stringify(p)}`);
+    }
+  }
+  return parts as RepairName[];
+}
+
+function isRepairList(word: string): boolean {
+  return word.split(',').every((p) => (REPAIR_IDS as readonly string[]).includes(p.trim()));
+}
 
 function num(name: string, v: string, test: (x: number) => boolean, expected: string): number {
   const x = v.trim() === '' ? NaN : Number(v);
@@ -89,6 +111,29 @@ const OPTIONS: Record<string, OptionSpec> = {
   saddle: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.saddle = oneOf('--saddle', v, ['decider', 'join', 'split'] as const)) },
   smooth: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.smooth = num('--smooth', v, (x) => Number.isInteger(x) && x >= 0 && x <= 1000, 'a whole number of iterations from 0 to 1000')) },
   tolerance: { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.tolerance = num('--tolerance', v, (x) => x >= 0, 'a length in mm ≥ 0')) },
+  mirror: {
+    value: true,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => {
+      const edge: MirrorEdge = oneOf('--mirror', v, MIRROR_EDGES);
+      const list = o.settings.mirror ?? [];
+      if (list.includes(edge)) throw new UsageError(`--mirror: expected each edge at most once, found ${JSON.stringify(edge)} twice`);
+      const opposite: Record<MirrorEdge, MirrorEdge> = { left: 'right', right: 'left', bottom: 'top', top: 'bottom' };
+      if (list.includes(opposite[edge])) {
+        throw new UsageError(`--mirror: expected at most one of left/right and one of bottom/top, found both ${opposite[edge]} and ${edge}`);
+      }
+      o.settings.mirror = [...list, edge];
+    },
+  },
+  passive: {
+    value: true,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => {
+      if (v.trim() === '') throw new UsageError(`--passive: expected a passive-region file (JSON), found ""`);
+      o.settings.passive = v;
+    },
+  },
+  circles: { value: false, commands: [...GEOMETRY_CMDS], apply: (_v, o) => (o.settings.circles = true) },
   // checks (docs/checks/)
   'min-member': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minMember = num('--min-member', v, (x) => x > 0, 'a width in mm > 0')) },
   'min-hole': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.minHole = num('--min-hole', v, (x) => x > 0, 'a width in mm > 0')) },
@@ -112,24 +157,43 @@ const OPTIONS: Record<string, OptionSpec> = {
     },
   },
   'fail-on': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.failOn = oneOf('--fail-on', v, ['warn', 'fail'] as const)) },
+  repair: {
+    value: 'optional',
+    accepts: isRepairList,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => (o.settings.repair = v === '' ? [...REPAIR_IDS] : repairList(v)),
+  },
+  // batch
+  jobs: { value: true, commands: ['batch'], apply: (v, o) => (o.cli.jobs = num('--jobs', v, (x) => Number.isInteger(x) && x >= 1 && x <= 256, 'a whole number of workers from 1 to 256')) },
+  shard: {
+    value: true,
+    commands: ['batch'],
+    apply: (v, o) => {
+      const m = /^(\d+)\/(\d+)$/.exec(v.trim());
+      const k = m ? Number(m[1]) : NaN;
+      const n = m ? Number(m[2]) : NaN;
+      if (!m || !(n >= 1) || !(k >= 1) || k > n) throw new UsageError(`--shard: expected k/n with 1 ≤ k ≤ n (e.g. 3/8), found ${JSON.stringify(v)}`);
+      o.cli.shard = { k, n };
+    },
+  },
   // output
   'out-dir': { value: true, commands: [...OUT_CMDS], apply: (v, o) => (o.cli.outDir = v) },
   formats: {
     value: true,
-    commands: ['build', 'demo'],
+    commands: [...GEOMETRY_CMDS],
     apply: (v, o) => {
       const list = v.split(',').map((f) => oneOf('--formats', f.trim(), ['dxf', 'svg', 'json', 'html'] as const));
       o.settings.formats = [...new Set<OutputFormat>(list)];
     },
   },
-  units: { value: true, commands: ['build', 'demo'], apply: (v, o) => (o.settings.units = oneOf('--units', v, ['mm', 'in'] as const)) },
-  json: { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.json = true) },
+  units: { value: true, commands: [...GEOMETRY_CMDS], apply: (v, o) => (o.settings.units = oneOf('--units', v, ['mm', 'in'] as const)) },
+  json: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.json = true) },
   force: { value: false, commands: [...OUT_CMDS], apply: (_v, o) => (o.cli.force = true) },
-  quiet: { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.quiet = true) },
-  'no-color': { value: false, commands: ['build', 'check', 'inspect', 'demo'], apply: (_v, o) => (o.cli.color = false) },
+  quiet: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.quiet = true) },
+  'no-color': { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.color = false) },
 };
 
-const COMMANDS: readonly Command[] = ['build', 'check', 'inspect', 'demo'];
+const COMMANDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge'];
 
 /** Parse argv (without node and script). Throws UsageError. */
 export function parseArgs(argv: readonly string[]): ParsedArgs {
@@ -137,7 +201,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     command: 'help',
     files: [],
     settings: {},
-    cli: { outDir: null, json: false, force: false, quiet: false, color: null },
+    cli: { outDir: null, json: false, force: false, quiet: false, color: null, jobs: null, shard: null },
   };
   if (argv.length === 0) return out;
   const first = argv[0];
@@ -166,7 +230,12 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     if (!spec) throw new UsageError(`unknown option --${name}; see rhoform --help`);
     if (!spec.commands.includes(out.command)) throw new UsageError(`option --${name} does not apply to '${out.command}'`);
     let value = '';
-    if (spec.value) {
+    if (spec.value === 'optional') {
+      if (eq >= 0) {
+        value = a.slice(eq + 1);
+        if (value === '') throw new UsageError(`--${name}=: expected a value after '=', found nothing`);
+      } else if (k + 1 < argv.length && spec.accepts?.(argv[k + 1])) value = argv[++k];
+    } else if (spec.value) {
       if (eq >= 0) value = a.slice(eq + 1);
       else {
         if (k + 1 >= argv.length) throw new UsageError(`--${name}: expected a value, found the end of the command line`);
@@ -179,6 +248,12 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
   }
   if (out.command === 'demo') {
     if (out.files.length > 0) throw new UsageError(`demo takes no grid file, found ${JSON.stringify(out.files[0])}`);
+  } else if (out.command === 'batch' || out.command === 'merge') {
+    if (out.files.length === 0) {
+      throw new UsageError(
+        out.command === 'batch' ? 'batch: expected grid files or folders, found none' : 'merge: expected batch summary files (JSON), found none',
+      );
+    }
   } else if (out.files.length !== 1) {
     throw new UsageError(
       out.files.length === 0 ? `${out.command}: expected a grid file (CSV or NPY), found none` : `${out.command}: expected one grid file, found ${out.files.length}`,

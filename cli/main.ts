@@ -1,8 +1,8 @@
 #!/usr/bin/env node
 /** The `rhoform` binary: run the command line, set the exit code, never call process.exit. */
-import { run } from './run.js';
+import { runAsync } from './run.js';
 
-process.exitCode = run(process.argv.slice(2), {
+process.exitCode = await runAsync(process.argv.slice(2), {
   stdout: (t) => void process.stdout.write(t),
   stderr: (t) => void process.stderr.write(t),
   isTTY: process.stdout.isTTY === true,

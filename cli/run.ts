@@ -5,7 +5,7 @@
 import { existsSync } from 'node:fs';
 import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { RhoformError } from '../src/errors.js';
+import { RhoformError, UsageError } from '../src/errors.js';
 import { build, inspect } from '../src/pipeline.js';
 import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
@@ -16,6 +16,7 @@ import type { Report } from '../src/types.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
 import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { runBatch, runMerge } from './batch.js';
 import { HELP } from './messages.js';
 
 export interface Io {
@@ -79,17 +80,24 @@ export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number 
   return EXIT_OK;
 }
 
-function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
-  const settings = resolveSettings(args.settings);
-  const inputPath = resolve(io.cwd, opts.file);
+/**
+ * Build one grid file into `outDir` (the outputs of `formats`, geometry only when `writeGeometry`), atomically,
+ * and return its report. Prints nothing: callers decide what goes to stdout and stderr. Throws RhoformError on
+ * bad input or an unwritable output (then nothing is written).
+ */
+export function buildFile(
+  settings: Settings,
+  opts: { cwd: string; file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string },
+): { report: Report; warnings: readonly string[]; exitCode: number } {
+  const inputPath = resolve(opts.cwd, opts.file);
   const name = opts.name ?? opts.file;
   const bytes = readInput(inputPath, name);
   const result = build({ name, bytes }, settings);
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
-  const base = join(resolve(io.cwd, opts.outDir), stem(opts.file));
+  const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
   const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
-  report.outputs = paths.map((p) => ({ file: displayPath(io.cwd, p.path), format: p.format }));
+  report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format }));
   const planned: PlannedOutput[] = [];
   let svg: string | undefined;
   for (const p of paths) {
@@ -101,10 +109,16 @@ function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string;
     planned.push({ path: p.path, content });
   }
   writeOutputsAtomically(planned, [inputPath], opts.force);
-  for (const w of result.warnings) io.stderr(`rhoform: warning: ${w}\n`);
+  return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
+}
+
+function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
+  const settings = resolveSettings(args.settings);
+  const { report, warnings, exitCode } = buildFile(settings, { ...opts, cwd: io.cwd });
+  for (const w of warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) io.stdout(formatJson(report));
   else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args, io) }));
-  return reportExitCode(report, settings.failOn);
+  return exitCode;
 }
 
 function runInspect(args: ParsedArgs, io: Io): number {
@@ -169,6 +183,10 @@ export function run(argv: readonly string[], io: Io): number {
         const code = runDemo(args, io);
         return code === EXIT_ERROR ? code : EXIT_OK;
       }
+      case 'batch':
+      case 'merge':
+        // These run on worker threads and the event loop: see runAsync.
+        throw new UsageError(`${args.command} runs asynchronously; call runAsync (the rhoform binary does)`);
       case 'build':
       case 'check':
         return runBuild(args, io, {
@@ -179,12 +197,36 @@ export function run(argv: readonly string[], io: Io): number {
         });
     }
   } catch (e) {
-    if (e instanceof RhoformError) {
-      io.stderr(`rhoform: error ${e.code}: ${e.message}\n`);
-      return EXIT_ERROR;
-    }
-    const err = e as Error;
-    io.stderr(`rhoform: internal error: ${err?.stack ?? String(e)}\nPlease report this with the input file and the command line.\n`);
+    return reportError(e, io);
+  }
+}
+
+/** Print a fatal error on stderr (a RhoformError with its code, anything else as an internal error); returns 2. */
+export function reportError(e: unknown, io: Io): number {
+  if (e instanceof RhoformError) {
+    io.stderr(`rhoform: error ${e.code}: ${e.message}\n`);
     return EXIT_ERROR;
+  }
+  const err = e as Error;
+  io.stderr(`rhoform: internal error: ${err?.stack ?? String(e)}\nPlease report this with the input file and the command line.\n`);
+  return EXIT_ERROR;
+}
+
+/**
+ * Run one command line, including the asynchronous commands (`batch` on worker threads, `merge`); the
+ * rhoform binary calls this. Other commands run as in `run`.
+ */
+export async function runAsync(argv: readonly string[], io: Io): Promise<number> {
+  let args: ParsedArgs;
+  try {
+    args = parseArgs(argv);
+  } catch (e) {
+    return run(argv, io);
+  }
+  if (args.command !== 'batch' && args.command !== 'merge') return run(argv, io);
+  try {
+    return args.command === 'batch' ? await runBatch(args, io) : await runMerge(args, io);
+  } catch (e) {
+    return reportError(e, io);
   }
 }

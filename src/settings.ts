@@ -7,6 +7,14 @@ export type SaddleRuleName = 'decider' | 'join' | 'split';
 
 export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html';
 
+/** The repairs of `--repair` (docs/repair.md), in the order they run; each is tied to check ids. */
+export const REPAIR_IDS = ['thicken', 'fill-holes', 'open-corners', 'drop-islands'] as const;
+export type RepairName = (typeof REPAIR_IDS)[number];
+
+/** A grid edge that is a symmetry plane (`--mirror`): the mirror image is added beyond it. */
+export const MIRROR_EDGES = ['left', 'right', 'bottom', 'top'] as const;
+export type MirrorEdge = (typeof MIRROR_EDGES)[number];
+
 /** A check's severity as set by `--severity <id>=off|warn|fail` (docs/checks/README.md). */
 export type SeverityName = 'off' | 'warn' | 'fail';
 
@@ -38,6 +46,12 @@ export interface Settings {
   smoothMu: number;
   /** mm: largest allowed distance of the final outline from the raw contour; null = 0.25 × the smaller cell side. */
   tolerance: number | null;
+  /** Grid edges unfolded as symmetry planes (`--mirror`, repeatable), in the order given. */
+  mirror: MirrorEdge[];
+  /** The passive-region file as given (`--passive`); null = none. Its parsed content is passed to `build`. */
+  passive: string | null;
+  /** Write rings that are circles within the tolerance as true circles (`--circles`). */
+  circles: boolean;
   // checks (docs/checks/; null = off unless a process preset sets it)
   /** mm: smallest allowed local width of the solid (`--min-member`). */
   minMember: number | null;
@@ -59,6 +73,8 @@ export interface Settings {
   severity: Record<string, SeverityName>;
   /** Lowest status that makes the exit code 1 (`--fail-on`). */
   failOn: 'warn' | 'fail';
+  /** Repairs to run after the checks (`--repair[=list]`), in REPAIR_IDS order; empty = none. */
+  repair: RepairName[];
   // output
   formats: OutputFormat[];
   units: 'mm' | 'in';
@@ -83,6 +99,9 @@ export const DEFAULT_SETTINGS: Settings = {
   smoothLambda: 0.33,
   smoothMu: -0.34,
   tolerance: null,
+  mirror: [],
+  passive: null,
+  circles: false,
   minMember: null,
   minHole: null,
   toolRadius: null,
@@ -93,13 +112,20 @@ export const DEFAULT_SETTINGS: Settings = {
   thickness: null,
   severity: {},
   failOn: 'fail',
+  repair: [],
   formats: ['dxf', 'svg', 'json', 'html'],
   units: 'mm',
 };
 
 /** Defaults filled in; `cellSizeDefaulted` follows from whether a cell size was given. */
 export function resolveSettings(partial: Partial<Settings>): Settings {
-  const s: Settings = { ...DEFAULT_SETTINGS, ...partial, severity: { ...(partial.severity ?? {}) } };
+  const s: Settings = {
+    ...DEFAULT_SETTINGS,
+    ...partial,
+    severity: { ...(partial.severity ?? {}) },
+    mirror: [...(partial.mirror ?? [])],
+    repair: REPAIR_IDS.filter((r) => (partial.repair ?? []).includes(r)),
+  };
   s.cellSizeDefaulted = partial.cellSize === undefined;
   return s;
 }
