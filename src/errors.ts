@@ -25,6 +25,9 @@ export type ErrorCode =
   | 'E_OUTPUT_EXISTS'
   | 'E_OUTPUT_IS_INPUT'
   | 'E_OUTPUT_WRITE'
+  | 'E_PASSIVE_JSON'
+  | 'E_PASSIVE_FORMAT'
+  | 'E_SUMMARY_FORMAT'
   | 'E_INTERNAL';
 
 /** A position inside an input: text line/column (1-based) or a byte offset (0-based). */

@@ -1,0 +1,41 @@
+/**
+ * Circles as polygons, and the test whether a ring is a circle. Coordinates in mm, y up.
+ */
+import type { Point, Ring } from '../types.js';
+
+/** A circle: centre (mm) and radius (mm). */
+export interface Circle {
+  readonly cx: number;
+  readonly cy: number;
+  readonly r: number;
+}
+
+/**
+ * The number of vertices of a regular polygon inscribed in a circle of radius r (mm) whose edges stay within
+ * `tolerance` mm of the arc: the sagitta r(1 − cos(π/n)) ≤ tolerance (analytic); at least 8, at most 4096.
+ */
+export function circleSegments(r: number, tolerance: number): number {
+  if (!(r > 0)) return 8;
+  const t = Math.min(Math.max(tolerance, r * 1e-6), r);
+  const n = Math.ceil(Math.PI / Math.acos(1 - t / r));
+  return Math.min(4096, Math.max(8, n));
+}
+
+/**
+ * A circle as a regular polygon inscribed in it, counter-clockwise (an outer ring; reverse it for a hole),
+ * starting at angle 0 (the point (cx + r, cy)), within `tolerance` mm of the true circle.
+ */
+export function circleRing(c: Circle, tolerance: number): Point[] {
+  const n = circleSegments(c.r, tolerance);
+  const ring: Point[] = new Array(n);
+  for (let k = 0; k < n; k++) {
+    const a = (2 * Math.PI * k) / n;
+    ring[k] = [c.cx + c.r * Math.cos(a), c.cy + c.r * Math.sin(a)];
+  }
+  return ring;
+}
+
+/** The same ring in the opposite direction (a hole from an outer ring and back). */
+export function reversed(ring: Ring): Point[] {
+  return [...ring].reverse();
+}
