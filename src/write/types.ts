@@ -37,6 +37,24 @@ export interface WriterExtra {
   readonly markers?: readonly WriterMarker[];
 }
 
+/**
+ * A ring of the part that is a true circle (a passive-void bolt hole, or a ring `--circles` recognised): the
+ * writers draw the circle instead of the ring's vertices — a DXF CIRCLE, SVG arc commands inside the part's
+ * even-odd path (so it still cuts). mm, y up.
+ */
+export interface RingCircle {
+  /** Index into `polygons.polygons`. */
+  readonly polygon: number;
+  /** 0 = the outer ring, k ≥ 1 = hole k − 1. */
+  readonly ring: number;
+  /** Centre (mm) and radius (mm, > 0). */
+  readonly x: number;
+  readonly y: number;
+  readonly r: number;
+  /** DXF layer of the circle: 'passive' for a passive region's circle; default the ring's own (outline / hole). */
+  readonly layer?: 'passive';
+}
+
 export interface WriterInput {
   /** The part in mm, y up; outer rings counter-clockwise, holes clockwise; rings implicitly closed. */
   polygons: PolygonSet;
@@ -44,6 +62,8 @@ export interface WriterInput {
   domain: readonly [minX: number, minY: number, maxX: number, maxY: number];
   /** Output units: coordinates are divided by 25.4 for 'in'. */
   units: 'mm' | 'in';
+  /** Rings of the part written as true circles (at most one entry per ring). */
+  ringCircles?: readonly RingCircle[];
   /** Optional extra layers; each entry drawn as closed rings, circles or labelled points on the named layer. */
   extras?: readonly WriterExtra[];
   /**
