@@ -4,6 +4,9 @@
  * File layout and group codes per the DXF Reference (Autodesk, AutoCAD DXF) as summarised in docs/references.md §7:
  * - every ring is a closed LWPOLYLINE (90 = vertex count, 70 = 1 closed, the first vertex not repeated);
  *   outer rings on layer `outline`, holes on layer `hole`;
+ * - a ring listed in `ringCircles` is a CIRCLE instead (10/20/30 centre, 40 radius; DXF Reference, CIRCLE
+ *   group codes), in the ring's place in the entity order, on layer `passive` when the entry says so, else on
+ *   the ring's own layer;
  * - extras: rings → closed LWPOLYLINE, circles → CIRCLE, markers → POINT + TEXT, on their own layer;
  * - `$INSUNITS` 4 (mm) or 1 (in) and `$MEASUREMENT` 1 or 0; coordinates are divided by 25.4 for inches;
  * - y stays up (DXF's world frame is y up, like the model); z is 0 everywhere;
@@ -23,9 +26,10 @@ import {
 } from './dxf-sections.js';
 import { DXF_DECIMALS, DxfTags, EOL, hex } from './dxf-tags.js';
 import { dxfText } from './dxf-text.js';
+import { ringCircleLookup } from './ring-circles.js';
 import { checkDomain, checkRadius, ringLength, unitDivisor } from './rings.js';
 import { TextSink } from './text-sink.js';
-import type { WriterInput } from './types.js';
+import type { RingCircle, WriterInput } from './types.js';
 
 /** Text height of marker labels as a share of the larger domain side. */
 const LABEL_HEIGHT_SHARE = 0.02;
@@ -38,24 +42,32 @@ const Z0 = `${EOL} 30${EOL}0`;
  *
  * Input: mm, y up, origin at the lower-left corner of the grid; outer rings counter-clockwise, holes
  * clockwise, rings implicitly closed (a repeated closing point is dropped; rings of fewer than 3 points are
- * skipped). Output coordinates are in `input.units`; `$EXTMIN`/`$EXTMAX` are the domain corners.
+ * skipped). Rings listed in `input.ringCircles` are written as CIRCLE entities (centre and radius in mm,
+ * converted like every coordinate). Output coordinates and lengths are in `input.units`; `$EXTMIN`/`$EXTMAX`
+ * and `$LIMMIN`/`$LIMMAX` are the domain corners in those units.
+ * Throws RhoformError `E_INTERNAL` for a RingCircle naming no ring, a radius ≤ 0 or a non-finite value.
  * Pure and deterministic: the same input gives byte-identical output.
  */
 export function writeDxf(input: WriterInput): string {
   const [minX, minY, maxX, maxY] = checkDomain(input.domain);
   const div = unitDivisor(input.units);
   const extras = input.extras ?? [];
+  const circleOf = ringCircleLookup(input.polygons, input.ringCircles);
 
   // Handles are numbered in writing order, so $HANDSEED (the next free handle) is known before writing.
   let count = 0;
   let vertices = 0;
-  for (const p of input.polygons.polygons) {
-    for (const ring of [p.outer, ...p.holes]) {
-      const n = ringLength(ring);
+  input.polygons.polygons.forEach((p, i) => {
+    for (let k = 0; k <= p.holes.length; k++) {
+      if (circleOf(i, k) !== undefined) {
+        count++;
+        continue;
+      }
+      const n = ringLength(k === 0 ? p.outer : p.holes[k - 1]);
       if (n > 0) count++;
       vertices += n;
     }
-  }
+  });
   for (const e of extras) {
     for (const r of e.rings ?? []) if (ringLength(r) > 0) count++;
     count += (e.circles?.length ?? 0) + 2 * (e.markers?.length ?? 0);
@@ -95,21 +107,29 @@ export function writeDxf(input: WriterInput): string {
     for (let i = 0; i < n; i++) xy(ring[i][0], ring[i][1]);
     out.str(EOL);
   };
+  /** A CIRCLE entity; centre and radius in mm, written in output units. */
+  const circle = (x: number, y: number, r: number, layer: string): void => {
+    start('CIRCLE', layer, 'AcDbCircle');
+    xy(x, y);
+    out.str(`${Z0}${EOL} 40${EOL}`).num(r / div, DXF_DECIMALS).str(EOL);
+  };
+  const ringCircle = (c: RingCircle, own: string): void => circle(c.x, c.y, c.r, c.layer ?? own);
 
-  for (const polygon of input.polygons.polygons) {
-    polyline(polygon.outer, 'outline');
-    for (const hole of polygon.holes) polyline(hole, 'hole');
-  }
+  input.polygons.polygons.forEach((polygon, i) => {
+    const outer = circleOf(i, 0);
+    if (outer !== undefined) ringCircle(outer, 'outline');
+    else polyline(polygon.outer, 'outline');
+    polygon.holes.forEach((hole, h) => {
+      const c = circleOf(i, h + 1);
+      if (c !== undefined) ringCircle(c, 'hole');
+      else polyline(hole, 'hole');
+    });
+  });
   const labelHeight = (Math.max(maxX - minX, maxY - minY) * LABEL_HEIGHT_SHARE) / div;
   for (const extra of extras) {
     const layer = extra.layer;
     for (const ring of extra.rings ?? []) polyline(ring, layer);
-    for (const c of extra.circles ?? []) {
-      const r = checkRadius(c.r);
-      start('CIRCLE', layer, 'AcDbCircle');
-      xy(c.x, c.y);
-      out.str(`${Z0}${EOL} 40${EOL}`).num(r / div, DXF_DECIMALS).str(EOL);
-    }
+    for (const c of extra.circles ?? []) circle(c.x, c.y, checkRadius(c.r), layer);
     for (const m of extra.markers ?? []) {
       start('POINT', layer, 'AcDbPoint');
       xy(m.x, m.y);

@@ -6,16 +6,20 @@
  * - This is the only y-down conversion of the tool: y' = maxY − y (then divided by 25.4 for inches);
  *   x stays as in the model. The viewBox is `minX 0 width height`.
  * - The part is one `<path>` with `fill-rule="evenodd"`: every outer ring and hole is a sub-path `M … Z`, so
- *   holes cut whatever their winding (SVG 1.1 §11.3 'fill-rule'; docs/references.md §7.4).
+ *   holes cut whatever their winding (SVG 1.1 §11.3 'fill-rule'; docs/references.md §7.4). A ring listed in
+ *   `ringCircles` is a sub-path of two half-circle elliptical arcs (SVG 1.1 §8.3.8 'A'):
+ *   `M cx+r cy' A r r 0 1 s cx−r cy' A r r 0 1 s cx+r cy' Z`, in the same path, so a circular hole still cuts;
+ *   its sweep flag s keeps the model's orientation (outer rings counter-clockwise on screen: s = 0; holes: s = 1).
  * - Optional groups, bottom to top: `underlay` (caller markup), the part, `passive`, `repair`, `finding`
  *   (numbered circle markers).
  * - Numbers: at most 3 decimals in mm, 4 in inches (1 µm / 2.5 µm), no exponent, no "-0"; deterministic.
  */
 import type { Ring } from '../types.js';
 import { formatNumber } from './number.js';
+import { ringCircleLookup } from './ring-circles.js';
 import { checkDomain, checkRadius, ringLength, unitDivisor } from './rings.js';
 import { TextSink } from './text-sink.js';
-import type { ExtraLayer, WriterExtra, WriterInput } from './types.js';
+import type { ExtraLayer, RingCircle, WriterExtra, WriterInput } from './types.js';
 import { escapeXml } from './xml.js';
 
 /** Layer colours (the same hues as the DXF layers where they have one). */
@@ -32,7 +36,10 @@ const EXTRA_STROKE_MM = 0.2;
 /** Marker circle radius as a share of the larger domain side. */
 const MARKER_SHARE = 0.015;
 
-/** Number formatting and path output in the SVG frame (output units, y down). */
+/**
+ * Number formatting and path output in the SVG frame (output units, y down). `fx`/`fy` are the only place
+ * where model coordinates (mm, y up) become SVG coordinates.
+ */
 class SvgFrame {
   constructor(
     readonly out: TextSink,
@@ -40,6 +47,15 @@ class SvgFrame {
     readonly maxY: number,
     readonly decimals: number,
   ) {}
+
+  /** Model x (mm) → SVG x (output units). */
+  fx(x: number): number {
+    return x / this.div;
+  }
+  /** Model y (mm, y up) → SVG y (output units, y down): the tool's only flip, y' = maxY − y. */
+  fy(y: number): number {
+    return (this.maxY - y) / this.div;
+  }
 
   /** A plain number in output units. */
   num(v: number): string {
@@ -50,15 +66,15 @@ class SvgFrame {
     return formatNumber(mm / this.div, this.decimals);
   }
   x(x: number): string {
-    return formatNumber(x / this.div, this.decimals);
+    return formatNumber(this.fx(x), this.decimals);
   }
   y(y: number): string {
-    return formatNumber((this.maxY - y) / this.div, this.decimals);
+    return formatNumber(this.fy(y), this.decimals);
   }
 
   /** Writes `M x y L x y x y … Z` sub-paths (space-separated) for every ring with ≥ 3 points. */
   rings(rings: readonly Ring[], first: boolean): boolean {
-    const { out, div, maxY, decimals } = this;
+    const { out, decimals } = this;
     for (const ring of rings) {
       const n = ringLength(ring);
       if (n === 0) continue;
@@ -67,11 +83,28 @@ class SvgFrame {
       for (let i = 0; i < n; i++) {
         if (i === 1) out.str('L');
         else if (i > 1) out.str(' ');
-        out.num(ring[i][0] / div, decimals).str(' ').num((maxY - ring[i][1]) / div, decimals);
+        out.num(this.fx(ring[i][0]), decimals).str(' ').num(this.fy(ring[i][1]), decimals);
       }
       out.str(' Z');
     }
     return first;
+  }
+
+  /**
+   * Writes a circle (mm, y up) as a sub-path of two half-circle arcs from (cx + r, cy) through (cx − r, cy)
+   * and back; `hole` picks the sweep that keeps the model's clockwise orientation. Returns false (no longer
+   * the first sub-path).
+   */
+  circle(c: RingCircle, hole: boolean, first: boolean): boolean {
+    const { out, decimals } = this;
+    const r = formatNumber(c.r / this.div, decimals);
+    const y = formatNumber(this.fy(c.y), decimals);
+    const right = formatNumber(this.fx(c.x + c.r), decimals);
+    const left = formatNumber(this.fx(c.x - c.r), decimals);
+    // Model counter-clockwise is screen counter-clockwise, the negative-angle direction of the y-down frame.
+    const arc = `A ${r} ${r} 0 1 ${hole ? 1 : 0} `;
+    out.str(first ? 'M' : ' M').str(`${right} ${y} ${arc}${left} ${y} ${arc}${right} ${y} Z`);
+    return false;
   }
 }
 
@@ -86,20 +119,24 @@ export function writeSvg(input: WriterInput): string {
   const [minX, minY, maxX, maxY] = checkDomain(input.domain);
   const div = unitDivisor(input.units);
   const unit = input.units;
+  const circleOf = ringCircleLookup(input.polygons, input.ringCircles);
   let outers = 0;
   let holes = 0;
+  let circles = 0;
   let vertices = 0;
-  for (const polygon of input.polygons.polygons) {
-    const n = ringLength(polygon.outer);
-    if (n > 0) outers++;
-    vertices += n;
-    for (const hole of polygon.holes) {
-      const m = ringLength(hole);
-      if (m > 0) holes++;
-      vertices += m;
+  input.polygons.polygons.forEach((polygon, i) => {
+    for (let k = 0; k <= polygon.holes.length; k++) {
+      const circle = circleOf(i, k) !== undefined;
+      const n = circle ? 0 : ringLength(k === 0 ? polygon.outer : polygon.holes[k - 1]);
+      if (circle) circles++;
+      if (circle || n > 0) {
+        if (k === 0) outers++;
+        else holes++;
+      }
+      vertices += n;
     }
-  }
-  const out = new TextSink(8192 + 20 * vertices);
+  });
+  const out = new TextSink(8192 + 20 * vertices + 120 * circles);
   const f = new SvgFrame(out, div, maxY, unit === 'in' ? 4 : 3);
   const width = f.num((maxX - minX) / div);
   const height = f.num((maxY - minY) / div);
@@ -108,7 +145,8 @@ export function writeSvg(input: WriterInput): string {
   out.str(`viewBox="${f.x(minX)} 0 ${width} ${height}">\n`);
   out.str('<title>rhoform part outline</title>\n');
   const desc =
-    `${outers} outer ring(s), ${holes} hole(s); units ${unit}; domain ${width} × ${height} ${unit}. ` +
+    `${outers} outer ring(s), ${holes} hole(s)${circles > 0 ? `, ${circles} of them true circles` : ''}; ` +
+    `units ${unit}; domain ${width} × ${height} ${unit}. ` +
     'Model frame y up; drawn with y = maxY − y.';
   out.str(`<desc>${escapeXml(desc)}</desc>\n`);
   if (input.svgUnderlay !== undefined && input.svgUnderlay !== '') {
@@ -117,10 +155,13 @@ export function writeSvg(input: WriterInput): string {
   out.str(`<path id="part" fill="${COLORS.part}" fill-rule="evenodd" stroke="${COLORS.partStroke}" `);
   out.str(`stroke-width="${f.len(PART_STROKE_MM)}" stroke-linejoin="round" d="`);
   let first = true;
-  for (const polygon of input.polygons.polygons) {
-    first = f.rings([polygon.outer], first);
-    first = f.rings(polygon.holes, first);
-  }
+  input.polygons.polygons.forEach((polygon, i) => {
+    for (let k = 0; k <= polygon.holes.length; k++) {
+      const c = circleOf(i, k);
+      if (c !== undefined) first = f.circle(c, k > 0, first);
+      else first = f.rings([k === 0 ? polygon.outer : polygon.holes[k - 1]], first);
+    }
+  });
   out.str('"/>\n');
 
   const markerR = (Math.max(maxX - minX, maxY - minY) * MARKER_SHARE) / div;
