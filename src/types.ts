@@ -41,6 +41,21 @@ export interface PolygonSet {
 /** Where a grid came from, as far as the report is concerned. */
 export type InputFormat = 'csv' | 'npy';
 
+/** One repair of `--repair` (docs/repair.md): what it changed and where. */
+export interface RepairRecord {
+  id: string;
+  /** mm², signed: material added (+) or removed (−). */
+  area: number;
+  /** Where it acted (report frame), worst first, at most 100; `measured` is the value before repair. */
+  locations: Location[];
+  /** Additive: the check ids this repair answers. */
+  checks: string[];
+  /** Additive: why it did nothing, or null when it ran. */
+  skipped: string | null;
+  /** Additive: the number of places it acted on (locations may be capped). */
+  locationsTotal: number;
+}
+
 /** A located finding or repair, in the report frame (mm, y up) and as a 1-based file position. */
 export interface Location {
   x: number;
@@ -120,7 +135,39 @@ export interface Report {
     values: Record<'minMember' | 'minHole' | 'toolRadius', { value: number; source: string } | null>;
   };
   checks: CheckResult[];
-  repairs: { id: string; area: number; locations: Location[] }[];
+  repairs: RepairRecord[];
+  /**
+   * The checks on the outline before repair, when `--repair` ran (additive). `checks` are then the final,
+   * repaired geometry's: the summary and the exit code follow them.
+   */
+  checksBeforeRepair?: CheckResult[];
+  /** Symmetry planes the grid was unfolded about (`--mirror`), in the order applied (additive; absent without). */
+  symmetry?: { edge: 'left' | 'right' | 'bottom' | 'top'; axis: 'x' | 'y'; at: number /* mm */ }[];
+  /** Passive regions applied (`--passive`; additive; absent without). */
+  passive?: {
+    file: string;
+    solid: number;
+    void: number;
+    /** Samples of the grid set to 1 / 0 before the threshold. */
+    solidSamples: number;
+    voidSamples: number;
+    /** mm², signed: what the exact booleans after smoothing changed. */
+    area: number;
+    /** Passive-void circles written as true circles. */
+    circles: number;
+  };
+  /**
+   * What happened after smoothing (passive regions, symmetry, repair): the area change and how far the final
+   * outline is from the raw iso-contour. Reported, never failed (additive; absent when nothing changed it).
+   */
+  finishing?: {
+    /** mm², signed: final area − smoothed area. */
+    areaChange: number;
+    /** finalFraction − achievedFraction. */
+    fractionChange: number;
+    /** mm: largest distance from the final outline to the raw iso-contour (one-sided Hausdorff). */
+    maxDeviation: number;
+  };
   summary: { status: Status; pass: number; warn: number; fail: number };
   outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];
   /** Non-fatal remarks of the run (also printed on stderr). Additive. */
