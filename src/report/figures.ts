@@ -15,6 +15,9 @@ import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';
 import {
   domainRect,
   findingMarkers,
+  fx,
+  fy,
+  num,
   outlinePathElement,
   placedImage,
   planFrame,
@@ -35,6 +38,10 @@ export interface HtmlPictures {
   readonly thickness?: ThicknessMap;
   /** Share of cells with value ≥ level, for levels 0..1 (the volume-vs-level curve). */
   readonly curve?: { readonly levels: readonly number[]; readonly fractions: readonly number[] };
+  /** The outline before repair (mm, y up), when `--repair` ran: drawn dashed in the repair figure. */
+  readonly beforeRepair?: PolygonSet;
+  /** The regions the repairs changed (added or removed material, mm, y up), tinted in the repair figure. */
+  readonly repaired?: PolygonSet;
   /** Older form: the final outline as a standalone SVG document, shown as an image when `polygons` is absent. */
   readonly outlineSvg?: string;
 }
@@ -51,6 +58,25 @@ export function pictureDomain(r: Report, p: HtmlPictures): [number, number, numb
   const [hx, hy] = p.grid ? p.grid.cellSize : r.input.cellSize;
   const [ox, oy] = p.grid ? p.grid.origin : [0, 0];
   return [ox, oy, ox + (nodes ? nx - 1 : nx) * hx, oy + (nodes ? ny - 1 : ny) * hy];
+}
+
+/** Small labelled squares where the repairs acted: R<k> for the k-th repair of the report (its table row). */
+function repairMarkers(r: Report, f: PlanFrame): string {
+  const parts: string[] = [];
+  const half = 0.35 * f.font;
+  r.repairs.forEach((rep, k) => {
+    for (const L of rep.locations) {
+      const x = fx(f, L.x);
+      const y = fy(f, L.y);
+      const title = `R${k + 1} ${rep.id} at x ${fmt(L.x)} y ${fmt(L.y)} mm (before: ${fmt(L.measured)})`;
+      parts.push(
+        `<a href="#repair-${k + 1}"><g class="rp-site" data-r="${k + 1}"><title>${escapeHtml(title)}</title>` +
+          `<rect x="${num(f, x - half)}" y="${num(f, y - half)}" width="${num(f, 2 * half)}" height="${num(f, 2 * half)}"/>` +
+          `<text x="${num(f, x + 1.2 * half)}" y="${num(f, y - 1.2 * half)}" font-size="${num(f, 0.8 * f.font)}">R${k + 1}</text></g></a>`,
+      );
+    }
+  });
+  return `<g class="repairs">${parts.join('')}</g>`;
 }
 
 function planSvg(f: PlanFrame, label: string, body: string): string {
@@ -106,6 +132,21 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
     const url = dataUrl('image/svg+xml', new TextEncoder().encode(p.outlineSvg));
     out.push(
       figure(++n, 'fig-outline', `<img alt="final outline" src="${url}">`, `Final outline over the ${escapeHtml(size)} domain (material filled, holes cut).`),
+    );
+  }
+  if (f && p.repaired && p.beforeRepair) {
+    const changed = p.repaired.polygons.length > 0 ? `<g class="rp-changed">${outlinePathElement(p.repaired, f, 'rf-repaired')}</g>` : '';
+    const before = `<g class="rp-before">${outlinePathElement(p.beforeRepair, f, 'rf-before')}</g>`;
+    const sites = repairMarkers(r, f);
+    const body = `${domainRect(f)}<g class="rp-after">${outlineUse}</g>${changed}${before}${sites}${scaleBar(f)}`;
+    out.push(
+      figure(
+        ++n,
+        'fig-repair',
+        planSvg(f, 'the outline before and after repair', body),
+        'Repair: the final outline (blue, material tinted), the outline before repair (dashed) and the material the repairs ' +
+          'added or removed (green). Labels R1, R2, … mark where each repair acted, in the order of the repairs table.',
+      ),
     );
   }
   if (f && p.thickness && p.thickness.nx > 0 && p.thickness.ny > 0) {

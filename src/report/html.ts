@@ -73,13 +73,20 @@ function cautionsBox(r: Report): string {
 
 function checksTable(r: Report): string {
   if (r.checks.length === 0) return '<h2 id="checks">Checks</h2><p>No manufacturability checks were requested for this run.</p>';
-  const rows = r.checks.map(
-    (c) =>
-      `<tr class="${c.status}"><td>${badge(c.status)}</td><td class="id">${e(c.id)}</td><td class="n">${e(withUnit(c.measured, c.unit))}</td>` +
-      `<td class="n">${e(limitText(c))}</td><td class="n">${e(resolutionText(c))}</td><td>${e(c.method)}</td><td>${e(c.message)}</td></tr>`,
-  );
+  const before = r.checksBeforeRepair ? new Map(r.checksBeforeRepair.map((c) => [c.id, c] as const)) : null;
+  const rows = r.checks.map((c) => {
+    const b = before?.get(c.id);
+    const beforeCell = before ? `<td class="n">${b ? `${badge(b.status)} ${e(withUnit(b.measured, b.unit))}` : '–'}</td>` : '';
+    return (
+      `<tr class="${c.status}"><td>${badge(c.status)}</td><td class="id">${e(c.id)}</td>${beforeCell}<td class="n">${e(withUnit(c.measured, c.unit))}</td>` +
+      `<td class="n">${e(limitText(c))}</td><td class="n">${e(resolutionText(c))}</td><td>${e(c.method)}</td><td>${e(c.message)}</td></tr>`
+    );
+  });
+  const intro = before
+    ? '<p>The checks of the repaired geometry (the files written); the column <em>before repair</em> gives each check on the outline before <code>--repair</code>.</p>'
+    : '';
   return (
-    '<h2 id="checks">Checks</h2><table class="grid checks"><thead><tr><th>status</th><th>check</th><th>measured</th><th>limit</th>' +
+    `<h2 id="checks">Checks</h2>${intro}<table class="grid checks"><thead><tr><th>status</th><th>check</th>${before ? '<th>before repair</th>' : ''}<th>measured</th><th>limit</th>` +
     `<th>resolution</th><th>method</th><th>message</th></tr></thead><tbody>${rows.join('')}</tbody></table>`
   );
 }
@@ -108,8 +115,42 @@ function findingsTable(r: Report, findings: readonly NumberedFinding[]): string 
 
 function repairsSection(r: Report): string {
   if (r.repairs.length === 0) return '';
-  const rows = r.repairs.map((p) => `<tr><td>${e(p.id)}</td><td class="n">${e(fmt(p.area, 5))} mm²</td><td class="n">${p.locations.length}</td></tr>`);
-  return `<h2>Repairs</h2><table class="grid"><thead><tr><th>repair</th><th>area change</th><th>places</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  const rows = r.repairs.map(
+    (p, k) =>
+      `<tr id="repair-${k + 1}"><td class="n">R${k + 1}</td><td class="id">${e(p.id)}</td><td>${e(p.checks.join(', '))}</td>` +
+      `<td class="n">${p.skipped === null ? `${e(fmt(p.area, 5))} mm²` : '–'}</td><td class="n">${p.skipped === null ? p.locationsTotal : 0}</td>` +
+      `<td>${p.skipped === null ? 'repaired' : e(`did nothing: ${p.skipped}`)}</td></tr>`,
+  );
+  const f = r.finishing;
+  const note = f
+    ? `<p>Final area ${e(fmt(r.geometry.area, 6))} mm² (${e(fmt(f.areaChange, 5))} mm² after smoothing; volume fraction ${e(pct(r.geometry.finalFraction))}); ` +
+      `largest distance of the final outline from the raw contour ${e(fmt(f.maxDeviation, 3))} mm. These are reported, not checked: repair changes stiffness and mass — re-analyse the final geometry.</p>`
+    : '';
+  return (
+    '<h2 id="repairs">Repairs</h2><table class="grid repairs"><thead><tr><th>#</th><th>repair</th><th>for checks</th><th>area change</th><th>places</th><th>result</th></tr></thead>' +
+    `<tbody>${rows.join('')}</tbody></table>${note}`
+  );
+}
+
+/** Symmetry, passive regions and the change after smoothing, when any of them applied. */
+function finishingSection(r: Report): string {
+  const rows: [string, string][] = [];
+  if (r.symmetry && r.symmetry.length > 0) {
+    rows.push(['symmetry planes', r.symmetry.map((p) => `${p.axis} = ${fmt(p.at)} mm (${p.edge} edge)`).join('; ')]);
+  }
+  if (r.passive) {
+    const p = r.passive;
+    rows.push(['passive regions', `${p.file}: ${p.solid} solid, ${p.void} void`]);
+    rows.push(['passive samples set', `${p.solidSamples} to 1, ${p.voidSamples} to 0`]);
+    rows.push(['passive area change', `${fmt(p.area, 5)} mm²`]);
+    rows.push(['true circles written', String(p.circles)]);
+  }
+  if (r.finishing) {
+    rows.push(['area change after smoothing', `${fmt(r.finishing.areaChange, 5)} mm²`]);
+    rows.push(['volume fraction change', `${fmt(100 * r.finishing.fractionChange, 4)} points`]);
+    rows.push(['final deviation from the raw contour', `${fmt(r.finishing.maxDeviation, 3)} mm (reported, not checked)`]);
+  }
+  return rows.length > 0 ? `<section><h2>After smoothing</h2>${kv(rows)}</section>` : '';
 }
 
 function details(r: Report): string {
@@ -136,7 +177,7 @@ function details(r: Report): string {
       ['deviation budget', `${fmt(s.tolerance, 3)} mm`],
       ['area raw → final', `${fmt(s.rawArea, 6)} → ${fmt(s.area, 6)} mm² (${(100 * dA).toFixed(3)} %)`],
       ['vertices raw → final', `${s.rawVertices} → ${s.vertices}`],
-    ])}</section><section><h2>Input</h2>${kv([
+    ])}</section>${finishingSection(r)}<section><h2>Input</h2>${kv([
       ['file', r.input.file],
       ['format', r.input.format],
       ['size', `${r.input.nx} × ${r.input.ny}`],

@@ -22,6 +22,11 @@ figure img{max-width:100%;border:1px solid var(--rule)}
 .raster{image-rendering:pixelated}
 .domain{fill:none;stroke:#9aa3ad;stroke-width:1;vector-effect:non-scaling-stroke;stroke-dasharray:4 3}
 .ol-density .outline,.ol-density use{fill:rgba(11,92,192,.10);stroke:var(--ol);stroke-width:1.4;vector-effect:non-scaling-stroke}
+.rp-after use{fill:rgba(11,92,192,.10);stroke:var(--ol);stroke-width:1.4;vector-effect:non-scaling-stroke}
+.rp-changed .outline{fill:rgba(20,150,60,.55);stroke:#13823a;stroke-width:1;vector-effect:non-scaling-stroke}
+.rp-before .outline{fill:none;stroke:#555;stroke-width:1.1;stroke-dasharray:4 3;vector-effect:non-scaling-stroke}
+.rp-site rect{fill:#13823a;stroke:#fff;stroke-width:.6;vector-effect:non-scaling-stroke}
+.rp-site text{fill:#0b5a27;font-weight:600}
 .ol-thick use{fill:none;stroke:#1d232b;stroke-width:1.1;vector-effect:non-scaling-stroke}
 .mk circle{fill:none;stroke-width:2.2;vector-effect:non-scaling-stroke}
 .mk.fail circle{stroke:var(--mk-fail)}.mk.warn circle{stroke:var(--mk-warn)}

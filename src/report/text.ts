@@ -80,11 +80,35 @@ function headerRows(r: Report): [string, string][] {
     'outline',
     `largest deviation from the raw contour ${fmt(sm.maxDeviation, 3)} mm (budget ${fmt(sm.tolerance, 3)} mm); area change ${(100 * dA).toFixed(3)} %; vertices ${sm.rawVertices} → ${sm.vertices}`,
   ]);
+  if (r.symmetry && r.symmetry.length > 0) {
+    const planes = r.symmetry.map((p) => `${p.axis} = ${fmt(p.at)} mm (${p.edge} edge)`).join(' and ');
+    rows.push(['symmetry', `unfolded about ${planes}; the outline is exactly symmetric`]);
+  }
+  if (r.passive) {
+    const p = r.passive;
+    rows.push([
+      'passive',
+      `${p.file}: ${p.solid} solid and ${p.void} void region${p.solid + p.void === 1 ? '' : 's'} (cells set: ${p.solidSamples} solid, ${p.voidSamples} void); exact booleans changed the area by ${signed(p.area)} mm²${p.circles > 0 ? `; ${p.circles} true circle${p.circles === 1 ? '' : 's'} written` : ''}`,
+    ]);
+  }
+  if (r.finishing) {
+    const f = r.finishing;
+    rows.push([
+      'final',
+      `area ${fmt(g.area, 6)} mm² (${signed(f.areaChange)} mm² after smoothing), fraction ${pct(g.finalFraction)} (${signed(100 * f.fractionChange, 3)} points); largest deviation from the raw contour ${fmt(f.maxDeviation, 3)} mm — reported, not checked`,
+    ]);
+  }
   const proc = r.settings.process;
   if (typeof proc === 'string' && proc !== '') {
     rows.push(['process', `${proc}: limits used ${processLimits(r.settings)}. Generic values; your fabricator's limits govern.`]);
   }
   return rows;
+}
+
+/** A signed number: "+12.5", "−3.1", "0". */
+function signed(v: number, sig = 4): string {
+  const t = fmt(Math.abs(v), sig);
+  return v > 0 && t !== '0' ? `+${t}` : v < 0 && t !== '0' ? `−${t}` : t;
 }
 
 function keyValueLines(rows: readonly (readonly [string, string])[], keyWidth: number): string[] {
@@ -94,28 +118,71 @@ function keyValueLines(rows: readonly (readonly [string, string])[], keyWidth: n
   return out;
 }
 
-function checkLines(r: Report, c: boolean): string[] {
-  if (r.checks.length === 0) return ['No manufacturability checks ran (none were requested).'];
-  const findings = numberFindings(r);
-  const idW = Math.max(...r.checks.map((ch) => ch.id.length));
-  const vals = r.checks.map((ch) => `${withUnit(ch.measured, ch.unit)} / ${limitText(ch)}`);
+/** A location without a finding number (the findings before repair are not numbered: they are gone). */
+function plainLocationLine(L: CheckResult['locations'][number], unit: CheckResult['unit']): string {
+  return `· x ${fmt(L.x)} y ${fmt(L.y)} mm (row ${L.fileRow}, col ${L.fileCol}) ${withUnit(L.measured, unit)}`;
+}
+
+/**
+ * One row per check with its first findings. `numbered`: the findings carry the numbers of numberFindings
+ * (the final checks); otherwise they are listed without numbers (the checks before repair).
+ */
+function checkRows(r: Report, checks: readonly CheckResult[], c: boolean, numbered: boolean): string[] {
+  const findings = numbered ? numberFindings(r) : [];
+  const idW = Math.max(...checks.map((ch) => ch.id.length));
+  const vals = checks.map((ch) => `${withUnit(ch.measured, ch.unit)} / ${limitText(ch)}`);
   const valW = Math.max(...vals.map((v) => v.length));
   const out: string[] = [];
   let k = 0; // next unread finding: numberFindings walks the checks in this same order
-  r.checks.forEach((ch, i) => {
+  checks.forEach((ch, i) => {
     const head = `  ${statusWord(c, ch.status)}  ${pad(ch.id, idW)}  ${pad(vals[i], valW)}  `;
     const indent = ' '.repeat(8);
     if (visible(head) + Math.min(ch.message.length, 30) <= TEXT_WIDTH) out.push(...wrap(ch.message, TEXT_WIDTH, ' '.repeat(visible(head)), head));
     else out.push(head.trimEnd(), ...wrap(ch.message, TEXT_WIDTH, indent, indent));
     if (ch.status === 'pass') return;
-    const mine = findings.slice(k, k + ch.locations.length);
+    const shownLines = numbered
+      ? findings.slice(k, k + ch.locations.length).slice(0, TEXT_FINDINGS_PER_CHECK).map((f) => findingLine(f, ch.unit))
+      : ch.locations.slice(0, TEXT_FINDINGS_PER_CHECK).map((L) => plainLocationLine(L, ch.unit));
     k += ch.locations.length;
-    const shown = mine.slice(0, TEXT_FINDINGS_PER_CHECK);
-    for (const f of shown) out.push(`${indent}${paint(c, '2', findingLine(f, ch.unit))}`);
-    const more = Math.max(ch.locationsTotal, ch.locations.length) - shown.length;
+    for (const line of shownLines) out.push(`${indent}${paint(c, '2', line)}`);
+    const more = Math.max(ch.locationsTotal, ch.locations.length) - shownLines.length;
     if (more > 0) out.push(`${indent}${paint(c, '2', `… and ${more} more`)}`);
   });
   return out;
+}
+
+/** The repairs: one row each (what it answered, area change, places) or why it did nothing. */
+function repairRows(r: Report, c: boolean): string[] {
+  const idW = Math.max(...r.repairs.map((x) => x.id.length));
+  const out: string[] = [];
+  for (const x of r.repairs) {
+    const head = `  ${paint(c, '36', 'REPAIR')}  ${pad(x.id, idW)}  `;
+    const text =
+      x.skipped !== null
+        ? `did nothing: ${x.skipped}`
+        : `${x.locationsTotal} place${x.locationsTotal === 1 ? '' : 's'}, area ${signed(x.area)} mm² (for ${x.checks.join(', ')})`;
+    out.push(...wrap(text, TEXT_WIDTH, ' '.repeat(visible(head)), head));
+  }
+  return out;
+}
+
+function checkLines(r: Report, c: boolean): string[] {
+  if (r.checks.length === 0) return ['No manufacturability checks ran (none were requested).'];
+  if (!r.checksBeforeRepair) return checkRows(r, r.checks, c, true);
+  const before = r.checksBeforeRepair;
+  const s = { pass: 0, warn: 0, fail: 0 };
+  for (const ch of before) s[ch.status]++;
+  return [
+    paint(c, '1', 'Before repair'),
+    ...checkRows(r, before, c, false),
+    `  (${s.pass} passed, ${s.warn} warned, ${s.fail} failed)`,
+    '',
+    paint(c, '1', 'Repairs (--repair)'),
+    ...repairRows(r, c),
+    '',
+    paint(c, '1', 'After repair (the geometry written)'),
+    ...checkRows(r, r.checks, c, true),
+  ];
 }
 
 /** The summary line: status and counts, or that no checks ran. */
