@@ -1,0 +1,216 @@
+/**
+ * The passive-region file (docs/passive.md): strict JSON of our own design.
+ *
+ *   { "rhoformPassive": 1, "units": "mm", "regions": [ { "role": "void", "circle": { "center": [x, y], "radius": r } }, … ] }
+ *
+ * Each region has a role ("solid" | "void"), exactly one of `circle` / `rect` / `polygon`, and optionally a
+ * `name`. Coordinates are mm in the report frame: y up, origin at the lower-left corner of the input grid
+ * (docs/conventions.md). Unknown and repeated keys are errors. An empty `regions` list is allowed.
+ *
+ * Errors: invalid JSON → RhoformError E_PASSIVE_JSON at the line/column of the syntax error; schema errors →
+ * E_PASSIVE_FORMAT `<key path>: expected …, found …` at the line/column of the offending key or value.
+ */
+import { RhoformError, show, type Where } from '../errors.js';
+import type { Point } from '../types.js';
+import { elementPath, lineCol, memberPath, scanJson, type JsonSpot } from './json-scan.js';
+import { absArea, allCollinear, dropRepeats, firstSelfIntersection } from './polygon-check.js';
+import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
+
+/** Largest number of points of one polygon (the self-intersection test is quadratic in the worst case). */
+export const MAX_POLYGON_POINTS = 10_000;
+/** Largest |coordinate| and radius accepted, mm (1 km: anything beyond is a unit mistake). */
+export const MAX_COORDINATE = 1e6;
+
+const TOP_KEYS = ['rhoformPassive', 'units', 'regions'] as const;
+const REGION_KEYS = ['role', 'circle', 'rect', 'polygon', 'name'] as const;
+const SHAPE_KEYS = ['circle', 'rect', 'polygon'] as const;
+
+type Obj = Record<string, unknown>;
+
+/** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
+function describe(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  if (v === null) return 'null';
+  if (Array.isArray(v)) return v.length === 0 ? 'an empty array' : `an array of ${v.length}`;
+  if (typeof v === 'object') return 'an object';
+  return show(v);
+}
+
+/** The text of the message of a JSON.parse error, without its position and without the echo of the input. */
+function jsonMessage(e: unknown): string {
+  const m = e instanceof Error ? e.message : String(e);
+  return m
+    .replace(/,\s*"[\s\S]*" is not valid JSON$/, '')
+    .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
+    .replace(/\s*\(line \d+ column \d+\)/, '');
+}
+
+/** The offset of a JSON.parse error, if its message gives one (Node 20: "at position N"; later: "line L column C"). */
+function jsonOffset(text: string, e: unknown): number | { line: number; col: number } | null {
+  const m = e instanceof Error ? e.message : '';
+  const pos = /at position (\d+)/.exec(m);
+  if (pos) return Math.min(Number(pos[1]), text.length);
+  const lc = /line (\d+) column (\d+)/.exec(m);
+  if (lc) return { line: Number(lc[1]), col: Number(lc[2]) };
+  if (/end of (JSON )?input/i.test(m)) return text.length;
+  return null;
+}
+
+class Checker {
+  private spots: ReadonlyMap<string, JsonSpot>;
+
+  constructor(
+    private readonly text: string,
+    private readonly file: string,
+    spots: ReadonlyMap<string, JsonSpot>,
+  ) {
+    this.spots = spots;
+  }
+
+  /** Where the value (or, with `key`, the key) at `path` sits; the nearest enclosing value when it is missing. */
+  where(path: string, key = false): Where {
+    let p = path;
+    for (;;) {
+      const spot = this.spots.get(p);
+      if (spot) return { file: this.file, ...lineCol(this.text, key && spot.key !== undefined ? spot.key : spot.value) };
+      if (p === '') return { file: this.file };
+      const cut = Math.max(p.lastIndexOf('.'), p.lastIndexOf('['));
+      p = cut < 0 ? '' : p.slice(0, cut);
+      key = false;
+    }
+  }
+
+  fail(path: string, expected: string, found: string, opts: { key?: boolean; at?: string } = {}): never {
+    const label = path === '' ? 'top level' : path;
+    throw new RhoformError('E_PASSIVE_FORMAT', `${label}: expected ${expected}, found ${found}`, this.where(opts.at ?? path, opts.key));
+  }
+
+  object(v: unknown, path: string, what: string, keys: readonly string[]): Obj {
+    if (v === null || typeof v !== 'object' || Array.isArray(v)) this.fail(path, what, describe(v));
+    const o = v as Obj;
+    for (const k of Object.keys(o)) {
+      if (!keys.includes(k)) {
+        this.fail(memberPath(path, k), `one of the keys ${keys.join(', ')}`, `the unknown key ${show(k)}`, { key: true });
+      }
+    }
+    return o;
+  }
+
+  number(v: unknown, path: string, what = 'a number'): number {
+    if (typeof v !== 'number') this.fail(path, what, describe(v));
+    if (!Number.isFinite(v)) this.fail(path, `a finite number`, this.raw(path) ?? describe(v));
+    if (!(Math.abs(v) <= MAX_COORDINATE)) this.fail(path, `a value within ±${MAX_COORDINATE} mm`, describe(v));
+    return v;
+  }
+
+  point(v: unknown, path: string): Point {
+    if (!Array.isArray(v) || v.length !== 2) this.fail(path, 'a point [x, y] in mm', describe(v));
+    const a = v as unknown[];
+    return [this.number(a[0], elementPath(path, 0), 'a number (x, mm)'), this.number(a[1], elementPath(path, 1), 'a number (y, mm)')];
+  }
+
+  /** The source text of a number (for values JSON.parse turned into Infinity). */
+  private raw(path: string): string | null {
+    const spot = this.spots.get(path);
+    if (!spot) return null;
+    const m = /^-?[0-9.eE+-]+/.exec(this.text.slice(spot.value, spot.value + 64));
+    return m ? m[0] : null;
+  }
+
+  circle(v: unknown, path: string): PassiveShape {
+    const o = this.object(v, path, 'an object { "center": [x, y], "radius": r }', ['center', 'radius']);
+    const [cx, cy] = this.point(o.center, memberPath(path, 'center'));
+    const rp = memberPath(path, 'radius');
+    const r = this.number(o.radius, rp, 'a radius in mm');
+    if (!(r > 0)) this.fail(rp, 'a radius > 0 mm', describe(r));
+    return { kind: 'circle', cx, cy, r };
+  }
+
+  rect(v: unknown, path: string): PassiveShape {
+    const o = this.object(v, path, 'an object { "min": [x0, y0], "max": [x1, y1] }', ['min', 'max']);
+    const [x0, y0] = this.point(o.min, memberPath(path, 'min'));
+    const maxPath = memberPath(path, 'max');
+    const [x1, y1] = this.point(o.max, maxPath);
+    if (!(x1 > x0)) this.fail(elementPath(maxPath, 0), `a value greater than min x = ${x0}`, describe(x1));
+    if (!(y1 > y0)) this.fail(elementPath(maxPath, 1), `a value greater than min y = ${y0}`, describe(y1));
+    return { kind: 'rect', x0, y0, x1, y1 };
+  }
+
+  polygon(v: unknown, path: string): PassiveShape {
+    if (!Array.isArray(v)) this.fail(path, 'an array of points [[x, y], …]', describe(v));
+    const a = v as unknown[];
+    if (a.length > MAX_POLYGON_POINTS) this.fail(path, `at most ${MAX_POLYGON_POINTS} points`, `${a.length}`);
+    const pts = a.map((p, k) => this.point(p, elementPath(path, k)));
+    const { points, index } = dropRepeats(pts);
+    if (points.length < 3) this.fail(path, 'at least 3 distinct points', `${points.length}`);
+    if (allCollinear(points)) this.fail(path, 'a polygon of non-zero area', 'all points on one line');
+    const hit = firstSelfIntersection(points);
+    if (hit !== null) {
+      const edge = (e: number): string => `${index[e]}–${index[(e + 1) % points.length]}`;
+      this.fail(path, 'a simple polygon (edges neither cross nor touch)', `edge ${edge(hit[0])} crossing or touching edge ${edge(hit[1])} (point indices)`);
+    }
+    if (!(absArea(points) > 0)) this.fail(path, 'a polygon of non-zero area', 'area 0');
+    return { kind: 'polygon', points };
+  }
+
+  region(v: unknown, path: string): PassiveRegion {
+    const o = this.object(v, path, 'a region object { "role": …, "circle" | "rect" | "polygon": … }', REGION_KEYS);
+    const rolePath = memberPath(path, 'role');
+    if (o.role !== 'solid' && o.role !== 'void') this.fail(rolePath, '"solid" or "void"', describe(o.role));
+    const role: PassiveRole = o.role;
+    const present = SHAPE_KEYS.filter((k) => k in o);
+    if (present.length !== 1) {
+      const found = present.length === 0 ? 'none' : present.join(' and ');
+      this.fail(path, 'exactly one of the keys circle, rect, polygon', found, present.length > 1 ? { at: memberPath(path, present[1]), key: true } : {});
+    }
+    const kind = present[0];
+    const shapePath = memberPath(path, kind);
+    const shape = kind === 'circle' ? this.circle(o[kind], shapePath) : kind === 'rect' ? this.rect(o[kind], shapePath) : this.polygon(o[kind], shapePath);
+    let name: string | null = null;
+    if ('name' in o) {
+      if (typeof o.name !== 'string') this.fail(memberPath(path, 'name'), 'a string', describe(o.name));
+      name = o.name;
+    }
+    return { role, shape, name, path };
+  }
+
+  top(v: unknown): PassiveRegions {
+    const o = this.object(v, '', 'an object { "rhoformPassive": 1, "regions": […] }', TOP_KEYS);
+    if (o.rhoformPassive !== 1) this.fail('rhoformPassive', '1 (the format version)', describe(o.rhoformPassive));
+    if ('units' in o && o.units !== 'mm') {
+      this.fail('units', '"mm" (coordinates are millimetres; convert inches × 25.4)', describe(o.units));
+    }
+    if (!Array.isArray(o.regions)) this.fail('regions', 'an array of regions', describe(o.regions));
+    const list = o.regions as unknown[];
+    return { regions: list.map((r, k) => this.region(r, elementPath('regions', k))) };
+  }
+}
+
+/**
+ * Parse a passive-region file. `file` names it in messages. Pure: the caller reads the file.
+ * Returns regions in mm, y up, origin at the lower-left corner of the input grid, in file order.
+ * Throws RhoformError E_PASSIVE_JSON (not JSON) or E_PASSIVE_FORMAT (not the format), with line and column.
+ */
+export function parsePassive(text: string, file: string): PassiveRegions {
+  const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // a byte-order mark is not JSON; editors add one
+  let data: unknown;
+  try {
+    data = JSON.parse(src);
+  } catch (e) {
+    let at = jsonOffset(src, e);
+    if (at === null) {
+      const scan = scanJson(src);
+      if (!scan.ok) at = scan.offset;
+    }
+    const where: Where = at === null ? { file } : typeof at === 'number' ? { file, ...lineCol(src, at) } : { file, ...at };
+    throw new RhoformError('E_PASSIVE_JSON', `expected JSON, found a syntax error (${jsonMessage(e)})`, where);
+  }
+  const scan = scanJson(src);
+  const spots = scan.ok ? scan.spots : new Map<string, JsonSpot>();
+  const checker = new Checker(src, file, spots);
+  if (scan.ok && scan.duplicate !== null) {
+    const { path, key } = scan.duplicate;
+    throw new RhoformError('E_PASSIVE_FORMAT', `${path}: expected each key once, found it repeated`, { file, ...lineCol(src, key) });
+  }
+  return checker.top(data);
+}
