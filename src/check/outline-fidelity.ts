@@ -1,6 +1,8 @@
 /**
  * `outline-fidelity`: how far the final outline (after smoothing and simplification) strays from the raw
- * iso-contour it came from — the directed Hausdorff distance from ctx.polygons to ctx.raw, located.
+ * iso-contour it came from — the directed Hausdorff distance from the smoothed outline (ctx.smoothed, else
+ * ctx.polygons) to ctx.raw, located. Passive regions, symmetry and repair move the outline on purpose; their
+ * change is reported by the pipeline (`finishing`), not failed here.
  * docs/checks/outline-fidelity.md.
  *
  * Frame: mm, y up, origin at the lower-left corner of the grid. Unit mm; measured ≤ limit passes.
@@ -39,7 +41,8 @@ export function samplingStep(perimeter: number, limit: number): number {
  * measured = that distance. Null when there is no outline.
  */
 export function measureOutlineFidelity(ctx: CheckContext, limit: number): Measurement {
-  const final = flattenSet(ctx.polygons);
+  const outline = ctx.smoothed ?? ctx.polygons;
+  const final = flattenSet(outline);
   const raw = flattenSet(ctx.raw);
   const n = final.start[final.start.length - 1];
   if (n === 0) {
@@ -56,7 +59,7 @@ export function measureOutlineFidelity(ctx: CheckContext, limit: number): Measur
       locations: [],
     };
   }
-  const step = samplingStep(polygonSetPerimeter(ctx.polygons), limit);
+  const step = samplingStep(polygonSetPerimeter(outline), limit);
   // report stretches above limit − step/2: the most the resolution can be (the runner's band)
   const res = locatedDeviation(final, raw, step, limit - step / 2);
   const resolution = Number.isFinite(res.upper) ? res.upper - res.max : 0;

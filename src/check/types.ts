@@ -39,6 +39,12 @@ export interface CheckContext {
   readonly polygons: PolygonSet;
   /** The raw iso-contour the outline came from, mm. */
   readonly raw: PolygonSet;
+  /**
+   * The outline right after smoothing, before symmetry, passive regions and repair, when those changed it:
+   * outline-fidelity measures this one, because what they change on purpose is reported, not failed
+   * (DESIGN §4). Absent when `polygons` is the smoothed outline itself.
+   */
+  readonly smoothed?: PolygonSet;
   /** Domain rectangle [minX, minY, maxX, maxY], mm. */
   readonly domain: readonly [number, number, number, number];
   /** The prepared density grid (values 0..1). */
