@@ -7,7 +7,9 @@ Usage:
   rhoform build   <grid> [options]   grid → DXF + SVG + report (the main job)
   rhoform check   <grid> [options]   the same run, report only, no geometry files
   rhoform inspect <grid> [--json]    size, range, mean, M_nd, grey share, non-finite count, histogram
-  rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/
+  rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/ (with repair)
+  rhoform batch   <files|folders…>   build many grids on worker threads; summary CSV + JSON (docs/scale.md)
+  rhoform merge   <summary.json…>    join the summaries of sharded batch runs into one
   rhoform --help | --version
 
 Input:
@@ -27,6 +29,10 @@ Geometry:
   --saddle decider|join|split  saddle rule of marching squares (default decider)
   --smooth <n>                 Taubin λ|μ iterations (default 2; 0 = off)
   --tolerance <mm>             largest deviation of the final outline from the raw contour (default 0.25 cell)
+  --mirror left|right|bottom|top   that edge is a symmetry plane; the mirror image is added beyond it
+                               (repeatable: one of left/right and one of bottom/top; docs/symmetry.md)
+  --passive <file.json>        passive-solid / passive-void circles, rectangles, polygons in mm (docs/passive.md)
+  --circles                    write rings that are circles within the tolerance as true circles
 Checks (docs/checks/; a check that is off is absent from the report):
   --min-member <mm>            thinnest allowed member (local width of the solid)
   --min-hole <mm>              narrowest allowed hole or gap
@@ -39,13 +45,18 @@ Checks (docs/checks/; a check that is off is absent from the report):
   --thickness <mm>             sheet thickness (required by laser-cut and waterjet-cut)
   --severity <id>=off|warn|fail   change a check's severity (repeatable)
   --fail-on warn|fail          exit 1 on warnings too (default: only on failures)
+Repair (docs/repair.md; the size checks run again on the result, which sets the exit code):
+  --repair[=<list>]            all repairs, or some of: thicken, fill-holes, open-corners, drop-islands
+Batch (docs/scale.md):
+  --jobs <n>                   worker threads (default: the number of cores)
+  --shard <k>/<n>              only files i (sorted, from 0) with (i mod n) + 1 = k, for cluster array jobs
 Output:
   --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo)
   --formats dxf,svg,json,html  which files to write (default: all four)
   --units mm|in                DXF/SVG units (the report is always in mm)
   --json                       print the JSON report on stdout and nothing else
   --force                      replace existing output files
-  --quiet                      no summary on stdout
+  --quiet                      no summary on stdout, no progress on stderr
   --no-color                   no colour (also NO_COLOR)
 
 Exit codes: 0 every check passed (warnings allowed unless --fail-on warn), 1 a check failed (geometry still
