@@ -1,6 +1,8 @@
 /**
  * The only place that knows the order of the stages (DEVELOPERS.md, layout):
- * read → prepare → threshold (volume-preserving, on the smoothed area) → contour → smooth → report → write.
+ * read → prepare (range, non-finite; `--mirror` unfolding; passive regions on the samples) → threshold
+ * (volume-preserving, on the smoothed area) → contour → smooth → finish (exact symmetry; passive regions by
+ * exact booleans) → checks → repair and re-check → report → write.
  * Pure: bytes and settings in, strings and a report out. The CLI does every file operation.
  */
 import { resolveLimits } from './check/limits.js';
@@ -12,7 +14,11 @@ import { contourGrid } from './contour/index.js';
 import { RhoformError, UsageError } from './errors.js';
 import { levelCurve } from './field/curve.js';
 import { fieldMean, gridDomain } from './field/mean.js';
+import { mirrorPlanes, unfoldGrid, unfoldLocate } from './field/mirror.js';
 import { prepareGrid } from './field/prepare.js';
+import { symmetrize } from './geom/symmetry.js';
+import { applyPassiveToGrid } from './passive/cells.js';
+import type { PassiveRegions } from './passive/types.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
 import { buildMorphology, choosePixel } from './morph/index.js';
 import type { Morphology } from './morph/types.js';
@@ -63,8 +69,25 @@ function withFileName<T>(name: string, f: () => T): T {
   }
 }
 
+/** Inputs of a build beside the grid: the parsed passive-region file (`--passive`; the CLI reads and parses it). */
+export interface BuildExtras {
+  readonly passive?: PassiveRegions | null;
+}
+
+/** Smallest and largest finite value of a grid (after passive regions changed some samples). */
+function valueRange(values: Float64Array): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let k = 0; k < values.length; k++) {
+    const v = values[k];
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return { min, max };
+}
+
 /** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
-export function build(input: InputFile, s: Settings): BuildResult {
+export function build(input: InputFile, s: Settings, more: BuildExtras = {}): BuildResult {
   const timings: Record<string, number> = {};
   let t0 = performance.now();
   const lap = (name: string) => {
@@ -78,16 +101,25 @@ export function build(input: InputFile, s: Settings): BuildResult {
     prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite }),
   );
   const desc = describeInput(input, read, s, prep.inputStats);
-  lap('prepare');
-  const grid = prep.grid;
   const warnings = [...read.warnings, ...prep.warnings];
+  // --mirror: the grid is unfolded in its own frame (docs/symmetry.md); findings map back to the source cells.
+  const planes = s.mirror.length > 0 ? mirrorPlanes(prep.grid, s.mirror) : [];
+  let grid = planes.length > 0 ? unfoldGrid(prep.grid, s.mirror) : prep.grid;
+  const locate = planes.length > 0 ? unfoldLocate(read.locate, prep.grid, s.mirror) : read.locate;
+  // --passive, first act: the samples they cover become 1 or 0, so the threshold and contours see them.
+  const passive = more.passive ?? null;
+  const passiveCells = passive ? applyPassiveToGrid(grid, passive) : null;
+  if (passiveCells) grid = passiveCells.grid;
+  const range = grid === prep.grid ? { min: prep.min, max: prep.max } : valueRange(grid.values);
+  lap('prepare');
   const domain = gridDomain(grid);
   const domainArea = (domain[2] - domain[0]) * (domain[3] - domain[1]);
   const [hx, hy] = grid.cellSize;
   const tolerance = s.tolerance ?? 0.25 * Math.min(hx, hy);
   const smoothOpts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance, domain } as const;
 
-  const mean = grid.placement === 'nodes' ? fieldMean(grid) : prep.mean;
+  // The target is the prepared field's mean: with passive regions, the field they set (docs/passive.md).
+  const mean = grid.placement === 'nodes' || grid !== prep.grid ? fieldMean(grid) : prep.mean;
   const target = s.volumeFraction ?? Math.min(1, Math.max(0, mean));
 
   let builds = 0;
@@ -96,7 +128,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
   const empty: PolygonSet = { polygons: [] };
   const choice = chooseThreshold(
     grid,
-    { target, level: s.level, saddle: s.saddle, volumeTolerance: s.volumeTolerance, min: prep.min, max: prep.max, domainArea },
+    { target, level: s.level, saddle: s.saddle, volumeTolerance: s.volumeTolerance, min: range.min, max: range.max, domainArea },
     (L) => {
       const a = performance.now();
       const r = L === null ? empty : contourGrid(grid, L, s.saddle);
@@ -119,9 +151,14 @@ export function build(input: InputFile, s: Settings): BuildResult {
   let pixels = 0;
   const v = grid.values;
   if (level !== null) for (let k = 0; k < v.length; k++) if (v[k] >= level) pixels++;
-  const pixelFraction = level === null ? (mode === 'constant' && prep.min >= 0.5 ? 1 : 0) : pixels / v.length;
+  const pixelFraction = level === null ? (mode === 'constant' && range.min >= 0.5 ? 1 : 0) : pixels / v.length;
 
-  const geometry = summarizeGeometry(smoothed.polygons, domainArea);
+  // Finish: exact symmetry about the mirror planes.
+  let final = smoothed.polygons;
+  if (planes.length > 0) final = symmetrize(final, planes, domain);
+  lap('finish');
+
+  const geometry = summarizeGeometry(final, domainArea);
   const { limits, process } = withFileName(input.name, () => resolveLimits(s));
   // A tool wider than the part cannot mill any pocket of it, and its open-space margin would need a raster
   // many times the grid: refuse it as a usage error rather than spend the memory.
@@ -170,14 +207,37 @@ export function build(input: InputFile, s: Settings): BuildResult {
     cautions: [...CAUTIONS],
   };
   if (process !== null) report.process = process;
+  if (planes.length > 0) report.symmetry = planes.map((p, k) => ({ edge: s.mirror[k], axis: p.axis, at: p.at }));
+  if (passive && passiveCells) {
+    report.passive = {
+      file: s.passive ?? '(given)',
+      solid: passive.regions.filter((r) => r.role === 'solid').length,
+      void: passive.regions.filter((r) => r.role === 'void').length,
+      solidSamples: passiveCells.solidSamples,
+      voidSamples: passiveCells.voidSamples,
+      area: 0,
+      circles: 0,
+    };
+  }
 
   // Checks (docs/checks/README.md): one morphology engine, built on first use and shared by the size checks.
   let morph: Morphology | undefined;
-  const morphology = (): Morphology => (morph ??= buildMorphology(smoothed.polygons, { domain, pixel: choosePixel(grid.cellSize, domain) }));
+  const morphology = (): Morphology => (morph ??= buildMorphology(final, { domain, pixel: choosePixel(grid.cellSize, domain) }));
   const smoothingDeviation = { max: smoothed.maxDeviation, resolution: smoothed.deviationResolution };
-  const ctx: CheckContext = { polygons: smoothed.polygons, raw, domain, grid, report, tolerance, smoothingDeviation, morphology };
+  const changed = final !== smoothed.polygons;
+  const ctx: CheckContext = {
+    polygons: final,
+    raw,
+    ...(changed ? { smoothed: smoothed.polygons } : {}),
+    domain,
+    grid,
+    report,
+    tolerance,
+    smoothingDeviation,
+    morphology,
+  };
   const planned = planChecks(s, { tolerance, limits, mode });
-  report.checks = runChecks(planned, ctx, locator(grid, read.locate));
+  report.checks = runChecks(planned, ctx, locator(grid, locate));
   report.summary = summarize(report.checks);
   lap('checks');
 
@@ -186,7 +246,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
     findings.length === 0
       ? []
       : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) }];
-  const writerInput = { polygons: smoothed.polygons, domain, units: s.units, extras } as const;
+  const writerInput = { polygons: final, domain, units: s.units, extras } as const;
   return {
     report,
     grid,
@@ -199,7 +259,7 @@ export function build(input: InputFile, s: Settings): BuildResult {
     svg: () => writeSvg(writerInput),
     pictures: () => ({
       grid,
-      polygons: smoothed.polygons,
+      polygons: final,
       domain,
       curve: levelCurve(grid),
       thickness: morph !== undefined || grid.values.length <= THICKNESS_PICTURE_CELLS ? morphology().thicknessMap(THICKNESS_PICTURE_SIDE) : undefined,
