@@ -113,10 +113,22 @@ describe('DXF: rings as CIRCLE entities, re-read by dxf-parser', () => {
 });
 
 /** Tokens of absolute M/L/A/Z path data (SVG 1.1 §8.3; flags are separate numbers in our output). */
-type Seg =
-  | { cmd: 'M' | 'L'; x: number; y: number }
-  | { cmd: 'A'; rx: number; ry: number; rot: number; large: number; sweep: number; x: number; y: number }
-  | { cmd: 'Z' };
+interface MoveLine {
+  cmd: 'M' | 'L';
+  x: number;
+  y: number;
+}
+interface Arc {
+  cmd: 'A';
+  rx: number;
+  ry: number;
+  rot: number;
+  large: number;
+  sweep: number;
+  x: number;
+  y: number;
+}
+type Seg = MoveLine | Arc | { cmd: 'Z' };
 
 /** Parses absolute M/L/A/Z path data into sub-paths (implicit repeats of L and A, SVG 1.1 §8.3.2). */
 function parsePath(d: string): Seg[][] {
@@ -151,7 +163,7 @@ function parsePath(d: string): Seg[][] {
  * Centre and swept angle of a circular arc (rx = ry, no rotation) from its endpoint form, SVG 1.1 Appendix
  * F.6.5 (with F.6.6: radii too small for the endpoints are scaled up, so the radicand is clamped at 0).
  */
-function arcCentre(x1: number, y1: number, a: Extract<Seg, { cmd: 'A' }>): { cx: number; cy: number; dTheta: number } {
+function arcCentre(x1: number, y1: number, a: Arc): { cx: number; cy: number; dTheta: number } {
   const r = a.rx;
   const xp = (x1 - a.x) / 2;
   const yp = (y1 - a.y) / 2;
@@ -197,7 +209,7 @@ describe('SVG: rings as arc sub-paths inside the part’s even-odd path', () => 
       (input.ringCircles ?? []).forEach((c, k) => {
         const sub = arcs[k];
         expect(sub.map((g) => g.cmd)).toEqual(['M', 'A', 'A', 'Z']);
-        const [m, a1, a2] = sub as [Extract<Seg, { cmd: 'M' }>, Extract<Seg, { cmd: 'A' }>, Extract<Seg, { cmd: 'A' }>];
+        const [m, a1, a2] = sub as [MoveLine, Arc, Arc];
         const yFlip = (maxY - c.y) / div; // y' = maxY − y
         // starts at (x + r, y'), the first arc ends at (x − r, y'), the second back at the start; x ± r is the
         // rounded centre ± the rounded radius, so within two roundings of the exact value
@@ -231,12 +243,12 @@ describe('SVG: rings as arc sub-paths inside the part’s even-odd path', () => 
     const subs = parsePath(text.match(/<path id="part"[^>]* d="([^"]*)"/)?.[1] ?? '');
     // Plate outer (model counter-clockwise) and square hole (clockwise) as polygons in the y-down frame:
     // the flip reverses the shoelace sign (analytic), so outer < 0 and hole > 0.
-    const pts = (s: Seg[]): { x: number; y: number }[] => s.filter((g) => g.cmd === 'M' || g.cmd === 'L') as { x: number; y: number }[];
+    const pts = (s: Seg[]): MoveLine[] => s.filter((g): g is MoveLine => g.cmd === 'M' || g.cmd === 'L');
     expect(shoelace(pts(subs[0]))).toBeLessThan(0);
     expect(shoelace(pts(subs[1]))).toBeGreaterThan(0);
     const turnOf = (s: Seg[]): number => {
-      const m = s[0] as Extract<Seg, { cmd: 'M' }>;
-      const a1 = s[1] as Extract<Seg, { cmd: 'A' }>;
+      const m = s[0] as MoveLine;
+      const a1 = s[1] as Arc;
       return arcCentre(m.x, m.y, a1).dTheta;
     };
     // The swept angle has the same sign as the shoelace area (SVG F.6.5 angles in the y-down frame).
