@@ -1,0 +1,144 @@
+/**
+ * Passive regions applied exactly to the smoothed outline (the second of their two steps, after smoothing and
+ * before the checks and the repair):
+ *
+ *   final = ((set ∪ solid primitives) − void primitives) ∩ domain rectangle
+ *
+ * by polygon booleans (src/geom/clipper.ts: Vatti's algorithm, B. R. Vatti, "A generic solution to polygon
+ * clipping", Communications of the ACM 35(7):56–63, 1992, doi:10.1145/129902.129906), all three calls on one
+ * power-of-two quantum so their results agree to the last bit.
+ *
+ * - Void wins over solid: a void primitive inside a solid one (a bolt hole in a boss) stays a hole.
+ * - Primitives reaching outside the domain are clipped to it; the domain edge stays a hard edge.
+ * - Circles are polygonised as inscribed regular polygons within `tolerance / 4` mm (sagitta) of the circle.
+ *   A circle that survives whole as a ring of the result (a bolt hole surrounded by material) is reported as a
+ *   RingCircle, so the writers draw a true circle (DXF CIRCLE on the layer `passive`, SVG arcs). A circle cut by
+ *   the outline or the domain edge (partly outside the material) stays polygonal.
+ *
+ * Frame: mm, y up, origin at the lower-left corner of the grid. Output orientation as DESIGN §3: outer rings
+ * counter-clockwise, holes clockwise.
+ */
+import { circleSegments } from '../geom/circle.js';
+import { booleanOp, quantumFor, ringsOf } from '../geom/clipper.js';
+import { RhoformError } from '../errors.js';
+import type { Point, PolygonSet, Ring } from '../types.js';
+import type { RingCircle } from '../write/types.js';
+import { shapeRing } from './rings.js';
+import type { PassiveRegions } from './types.js';
+
+/** What applyPassiveExact returns. */
+export interface PassiveExactResult {
+  /** The part with the passive regions applied, inside the domain rectangle. */
+  readonly polygons: PolygonSet;
+  /** Rings of `polygons` that are whole passive circles (layer 'passive'), at most one per ring. */
+  readonly ringCircles: RingCircle[];
+  /** The solid primitives as counter-clockwise rings (mm, not clipped to the domain), as used in the union. */
+  readonly solidRings: Ring[];
+}
+
+/** The largest |coordinate| (mm) over some rings. */
+function extentOf(rings: readonly Ring[], start: number): number {
+  let m = start;
+  for (const r of rings) {
+    for (const p of r) {
+      const a = Math.abs(p[0]);
+      const b = Math.abs(p[1]);
+      if (a > m) m = a;
+      if (b > m) m = b;
+    }
+  }
+  return m;
+}
+
+interface CircleRef {
+  readonly cx: number;
+  readonly cy: number;
+  readonly r: number;
+  /** Vertices of its polygon. */
+  readonly n: number;
+}
+
+/** True when every vertex of `ring` lies within `eps` mm of the circle. */
+function onCircle(ring: Ring, c: CircleRef, eps: number): boolean {
+  for (const [x, y] of ring) if (!(Math.abs(Math.hypot(x - c.cx, y - c.cy) - c.r) <= eps)) return false;
+  return true;
+}
+
+/**
+ * Apply passive regions exactly to a smoothed polygon set (mm, y up; outer rings CCW, holes CW), within the
+ * domain rectangle [minX, minY, maxX, maxY] (mm). `tolerance` (mm, > 0) is the outline tolerance; circles are
+ * polygonised within tolerance / 4. Never mutates its inputs. With no regions the set is returned as it is.
+ *
+ * ringCircles: every ring of the result all of whose vertices lie on one passive circle (within 4 quanta +
+ * 1e-9·r) and whose vertex count equals that circle's polygon — the circle survived whole. Void circles (bolt
+ * holes) are the usual case; a solid circle that survived whole (a free-standing boss) is listed too.
+ */
+export function applyPassiveExact(
+  set: PolygonSet,
+  regions: PassiveRegions,
+  domain: readonly [minX: number, minY: number, maxX: number, maxY: number],
+  tolerance: number,
+): PassiveExactResult {
+  if (!(tolerance > 0)) throw new RhoformError('E_INTERNAL', `passive tolerance must be > 0 mm, found ${tolerance}`);
+  const [x0, y0, x1, y1] = domain;
+  if (!(x1 > x0 && y1 > y0)) throw new RhoformError('E_INTERNAL', `passive domain must have x0 < x1 and y0 < y1, found ${domain.join(', ')}`);
+  if (regions.regions.length === 0) return { polygons: set, ringCircles: [], solidRings: [] };
+
+  const circleTol = tolerance / 4;
+  const solidRings: Ring[] = [];
+  const voidRings: Ring[] = [];
+  const circles: CircleRef[] = [];
+  for (const reg of regions.regions) {
+    const ring = shapeRing(reg.shape, circleTol);
+    (reg.role === 'solid' ? solidRings : voidRings).push(ring);
+    if (reg.shape.kind === 'circle') {
+      const { cx, cy, r } = reg.shape;
+      circles.push({ cx, cy, r, n: circleSegments(r, circleTol) });
+    }
+  }
+  const box: Ring = [
+    [x0, y0],
+    [x1, y0],
+    [x1, y1],
+    [x0, y1],
+  ];
+  const partRings = ringsOf(set);
+  const extent = extentOf(voidRings, extentOf(solidRings, extentOf(partRings, extentOf([box], 0))));
+  const quantum = quantumFor(extent);
+
+  let result = solidRings.length > 0 ? booleanOp('union', partRings, solidRings, { quantum }) : set;
+  if (voidRings.length > 0) result = booleanOp('difference', ringsOf(result), voidRings, { quantum });
+  result = booleanOp('intersection', ringsOf(result), [box], { quantum });
+
+  return { polygons: result, ringCircles: findCircles(result, circles, quantum), solidRings };
+}
+
+/** Rings of `set` that are one of `circles` polygonised whole (same vertex count, every vertex on the circle). */
+function findCircles(set: PolygonSet, circles: readonly CircleRef[], quantum: number): RingCircle[] {
+  const out: RingCircle[] = [];
+  if (circles.length === 0) return out;
+  const byCount = new Map<number, CircleRef[]>();
+  for (const c of circles) {
+    const list = byCount.get(c.n);
+    if (list) list.push(c);
+    else byCount.set(c.n, [c]);
+  }
+  const polys = set.polygons;
+  for (let p = 0; p < polys.length; p++) {
+    const rings: readonly Ring[] = [polys[p].outer, ...polys[p].holes];
+    for (let k = 0; k < rings.length; k++) {
+      const ring = rings[k];
+      const candidates = byCount.get(ring.length);
+      if (!candidates) continue;
+      const first: Point = ring[0];
+      for (const c of candidates) {
+        const eps = 4 * quantum + 1e-9 * c.r;
+        if (!(Math.abs(Math.hypot(first[0] - c.cx, first[1] - c.cy) - c.r) <= eps)) continue;
+        if (!onCircle(ring, c, eps)) continue;
+        out.push({ polygon: p, ring: k, x: c.cx, y: c.cy, r: c.r, layer: 'passive' });
+        break;
+      }
+    }
+  }
+  return out;
+}
