@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { MirrorPlane } from '../../src/field/mirror.js';
-import { symmetrize } from '../../src/geom/symmetry.js';
+import { symmetricArea, symmetrize } from '../../src/geom/symmetry.js';
 import type { Point, PolygonSet, Ring } from '../../src/types.js';
 
 // Sources: analytic reflections and areas, and an independent half-plane clip written here
@@ -110,6 +110,7 @@ describe('symmetrize', () => {
     // analytic: the result is the kept half and its mirror image, which have equal areas
     const half = shoelace(clipHalf(ring, plane));
     expect(Math.abs(setArea(out) - 2 * half)).toBeLessThan(areaBound(out));
+    expect(Math.abs(symmetricArea(set, [plane]) - 2 * half)).toBeLessThan(1e-9 * half); // same area without booleans
     // no seam: at most the two points where the outline crosses the plane lie on it
     const onPlane = vertices(out).filter(([x]) => Math.abs(x - at) < 1e-9);
     expect(onPlane.length).toBeLessThanOrEqual(2);
@@ -169,6 +170,7 @@ describe('symmetrize', () => {
     expect(out.polygons.length).toBe(3);
     // analytic: kept part of the frame = (4 − 2)·6 − (4 − 3)·2 = 10, doubled = 20; the small square doubled = 2
     expect(setArea(out)).toBeCloseTo(22, 9);
+    expect(symmetricArea(set, [{ axis: 'x', at: 4, keep: 'below' }])).toBeCloseTo(22, 12);
   });
 
   it('a quarter model (two planes) is 4-fold symmetric; area = 4 × the kept quadrant; domain edges exact', () => {
@@ -199,6 +201,7 @@ describe('symmetrize', () => {
     let quadrant = 0;
     for (const p of set.polygons) quadrant += shoelace(clipHalf(clipHalf(p.outer, planes[0]), planes[1]));
     expect(Math.abs(setArea(out) - 4 * quadrant)).toBeLessThan(areaBound(out));
+    expect(Math.abs(symmetricArea(set, planes) - 4 * quadrant)).toBeLessThan(1e-9 * quadrant); // same area without booleans
     // the strip reaches both far edges exactly (hard domain edge, DESIGN §3)
     const xs = vertices(out).map((v) => v[0]);
     expect(xs).toContain(W);
