@@ -8,14 +8,14 @@
  * Methods and accuracy: docs/checks/min-member-size.md, min-hole-size.md, min-inner-radius.md.
  */
 import type { PolygonSet } from '../types.js';
-import type { CornerSurvey, Morphology, MorphologyOptions, Phase, ThicknessMap, WidthSurvey } from './types.js';
+import type { CornerSurvey, MedialPoints, Morphology, MorphologyOptions, Phase, ThicknessMap, WidthSurvey } from './types.js';
 import { cornerSurvey, padFor } from './corners.js';
 import { type MedialSamples, medialSamples } from './medial.js';
 import { type NearestField, nearestField } from './nearest.js';
 import { type Frame, makeFrame, phaseMask } from './raster.js';
 import { type SegmentSet, segmentsOf } from './segments.js';
 import { thicknessMap } from './thickness.js';
-import { widthSurvey } from './width.js';
+import { medialPoints, widthSurvey } from './width.js';
 
 /** Open-space margin (pixels) of the first raster; corners() rebuilds with a wider one when the tool needs it. */
 const BASE_PAD = 6;
@@ -60,6 +60,11 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
       if (phase !== 'solid' && phase !== 'void') throw new RangeError(`width: expected 'solid' or 'void', found ${String(phase)}`);
       if (Number.isNaN(below)) throw new RangeError('width: expected a limit in mm, found NaN');
       return widthSurvey(base.frame, medial(), phase, below);
+    },
+    medial(phase: Phase, below: number): MedialPoints {
+      if (phase !== 'solid' && phase !== 'void') throw new RangeError(`medial: expected 'solid' or 'void', found ${String(phase)}`);
+      if (Number.isNaN(below)) throw new RangeError('medial: expected a limit in mm, found NaN');
+      return medialPoints(base.frame, medial(), phase, below);
     },
     corners(toolRadius: number, depth: number): CornerSurvey {
       if (!(toolRadius > 0) || !Number.isFinite(toolRadius)) throw new RangeError(`corners: expected a tool radius > 0 mm, found ${toolRadius}`);

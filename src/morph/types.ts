@@ -34,6 +34,18 @@ export interface WidthSurvey {
   readonly resolution: number;
 }
 
+/**
+ * Counted medial samples of one phase thinner than asked (θ-simplified medial axis, θ ≥ 120°), as typed arrays:
+ * sample k is the centre (x[k], y[k]) in mm (y up) of a disc of radius radius[k] mm inside the phase that touches
+ * the boundary at two points seen under ≥ 120° from it; local width there = 2·radius[k].
+ */
+export interface MedialPoints {
+  readonly count: number;
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly radius: Float64Array;
+}
+
 /** A concave corner of the solid a disc of the tool radius cannot reach: where, and its radius (mm). */
 export interface CornerPlace {
   readonly x: number;
@@ -66,6 +78,11 @@ export interface Morphology {
   readonly pixel: number;
   /** Local width of one phase (θ-simplified medial axis); places below `below` mm are listed. */
   width(phase: Phase, below: number): WidthSurvey;
+  /**
+   * Every counted medial sample of one phase whose local width 2·radius is below `below` mm (the samples the
+   * width survey groups into places), in raster order; several per pixel along an axis (additive).
+   */
+  medial(phase: Phase, below: number): MedialPoints;
   /** Concave corners of the solid that a disc of radius `toolRadius` (mm) leaves uncut deeper than `depth` (mm). */
   corners(toolRadius: number, depth: number): CornerSurvey;
   /** Local thickness raster of the solid, at most `maxSide` pixels along the longer side. */

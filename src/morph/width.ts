@@ -8,7 +8,7 @@
  *
  * Frame of the results: millimetres, y up, origin at the lower-left corner of the grid.
  */
-import type { Phase, WidthPlace, WidthSurvey } from './types.js';
+import type { MedialPoints, Phase, WidthPlace, WidthSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
 import { COUNT_COS, type MedialSamples } from './medial.js';
 import { type Frame, toMm } from './raster.js';
@@ -61,4 +61,26 @@ export function widthSurvey(frame: Frame, samples: MedialSamples, phase: Phase, 
     places,
     resolution: 0.5 * px,
   };
+}
+
+/**
+ * The counted samples of `phase` (θ ≥ 120°) whose local width 2r is below `below` mm, in mm (frame of the
+ * results above). These are the samples widthSurvey groups into places; raster order.
+ */
+export function medialPoints(frame: Frame, samples: MedialSamples, phase: Phase, below: number): MedialPoints {
+  const want = phase === 'solid' ? 1 : 0;
+  const px = frame.pixel;
+  const limit = below / px / 2;
+  let count = 0;
+  for (let k = 0; k < samples.n; k++) if (samples.solid[k] === want && samples.cos[k] <= COUNT_COS && samples.r[k] < limit) count++;
+  const x = new Float64Array(count), y = new Float64Array(count), radius = new Float64Array(count);
+  let m = 0;
+  for (let k = 0; k < samples.n; k++) {
+    if (samples.solid[k] !== want || samples.cos[k] > COUNT_COS || !(samples.r[k] < limit)) continue;
+    x[m] = frame.x0 + (samples.x[k] + 0.5) * px;
+    y[m] = frame.y0 + (samples.y[k] + 0.5) * px;
+    radius[m] = samples.r[k] * px;
+    m++;
+  }
+  return { count, x, y, radius };
 }
