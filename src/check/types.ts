@@ -5,7 +5,7 @@
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
  */
 import type { Morphology } from '../morph/types.js';
-import type { CheckResult, DensityGrid, PolygonSet, Report } from '../types.js';
+import type { CheckResult, DensityGrid, PolygonSet, Report, Ring } from '../types.js';
 import type { CheckId } from './ids.js';
 
 export type Severity = 'off' | 'warn' | 'fail';
@@ -59,6 +59,11 @@ export interface CheckContext {
    * outline is clearly within its limit. Absent when the caller has none.
    */
   readonly smoothingDeviation?: { readonly max: number; readonly resolution: number };
+  /**
+   * Passive-solid regions (`--passive`) applied to the outline, mm, y up (additive; absent without): a piece
+   * that touches or overlaps one counts as joined for `islands` (and for the `drop-islands` repair).
+   */
+  readonly passiveSolid?: readonly Ring[];
   /** The morphology engine for this outline, built on first use and shared by the size checks. */
   morphology(): Morphology;
 }
