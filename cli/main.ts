@@ -6,6 +6,7 @@ process.exitCode = await runAsync(process.argv.slice(2), {
   stdout: (t) => void process.stdout.write(t),
   stderr: (t) => void process.stderr.write(t),
   isTTY: process.stdout.isTTY === true,
+  stderrIsTTY: process.stderr.isTTY === true,
   env: process.env,
   cwd: process.cwd(),
 });

@@ -18,12 +18,15 @@ import { parseArgs, type ParsedArgs } from './args.js';
 import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { runBatch, runMerge } from './batch.js';
 import { HELP } from './messages.js';
+import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
 
 export interface Io {
   stdout(text: string): void;
   stderr(text: string): void;
   /** Whether stdout is a terminal (for colour). */
   readonly isTTY: boolean;
+  /** Whether stderr is a terminal (progress redrawn in place); absent = not a terminal. */
+  readonly stderrIsTTY?: boolean;
   readonly env: Readonly<Record<string, string | undefined>>;
   readonly cwd: string;
 }
@@ -114,7 +117,15 @@ export function buildFile(
 
 function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
   const settings = resolveSettings(args.settings);
-  const { report, warnings, exitCode } = buildFile(settings, { ...opts, cwd: io.cwd });
+  // Progress (docs/scale.md): a build runs synchronously, so a large input gets one start line on stderr.
+  const done = buildNotice(io.stderr, progressMode(args.cli.quiet, io.stderrIsTTY === true), opts.name ?? opts.file, inputBytes(resolve(io.cwd, opts.file)));
+  let built: ReturnType<typeof buildFile>;
+  try {
+    built = buildFile(settings, { ...opts, cwd: io.cwd });
+  } finally {
+    done();
+  }
+  const { report, warnings, exitCode } = built;
   for (const w of warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) io.stdout(formatJson(report));
   else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args, io) }));
