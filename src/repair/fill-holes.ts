@@ -1,0 +1,104 @@
+/**
+ * `fill-holes` (→ `min-hole-size`, `small-holes`, docs/repair.md): holes and gaps narrower than the hole limit
+ * are filled, and holes whose area is below `--min-hole-area` are filled whole.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid.
+ *
+ * By width (limit L): the void the disc of radius ρ = L/2 + δ cannot enter is the closing of the solid by that
+ * disc minus the solid (common.ts `closing`; outside the domain is open space). Of that region, only the
+ * connected parts that hold a counted thin void sample (θ-simplified medial axis, the check's own samples with
+ * local width < L — Foskey, Lin & Manocha 2003, DOI 10.1145/781606.781623) are added: a small round hole (its
+ * medial axis is its centre) fills whole, a narrow slot fills along its length with round ends of radius ρ where
+ * it opens into wider void, and the 90° corners elsewhere (θ = 90°, not thin) are left alone. Filling the whole
+ * unreachable part, rather than only the discs at the samples, leaves the remaining void a union of discs of
+ * radius ρ there: no sliver wedge where a disc would cross a wall at a grazing angle.
+ *
+ * By area (limit A): every hole ring enclosing less than A mm² (shoelace) is filled (after the width step).
+ *
+ * Never fills a passive-void region, and does not count its area (addMaterial subtracts them).
+ */
+import { ringArea } from '../geom/area.js';
+import { booleanOp, ringsOf } from '../geom/clipper.js';
+import { ringBounds } from '../geom/contains.js';
+import { interiorPoint } from '../geom/interior.js';
+import type { Morphology } from '../morph/types.js';
+import type { Polygon, PolygonSet, Ring } from '../types.js';
+import { addMaterial, arcToleranceOf, closing, inPiece, marginOf, quantumOf } from './common.js';
+import { thinOut } from './thicken.js';
+import type { RepairInput, StepResult } from './types.js';
+
+/** Fills the narrow and the small holes of `set`; `morph` is the morphology of `set`. */
+export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
+  const { minHole: L, minHoleArea: A } = input.limits;
+  if (L === null && A === null) {
+    return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: 'no hole limit (--min-hole, --min-hole-area or --process)' };
+  }
+  let current = set;
+  let area = 0;
+  const changed: Polygon[] = [];
+  const locations: { x: number; y: number; measured: number }[] = [];
+  if (L !== null) {
+    const pts = morph.medial('void', L);
+    if (pts.count > 0) {
+      const rho = L / 2 + marginOf(input);
+      const quantum = quantumOf(input.domain, rho);
+      const closed = closing(current, rho, arcToleranceOf(input), quantum);
+      const unreachable = booleanOp('difference', ringsOf(closed), ringsOf(current), { quantum });
+      const keep = thinOut(pts.x, pts.y, pts.count, input.pixel, input.domain[0], input.domain[1]);
+      const order = keep.sort((a, b) => pts.x[a] - pts.x[b]);
+      const xs = Float64Array.from(order, (k) => pts.x[k]);
+      const chosen = unreachable.polygons.filter((p) => holdsPoint(p, xs, order, pts.y));
+      const added = addMaterial(current, ringsOf(chosen), input, quantum);
+      if (added.polygons !== current) {
+        current = added.polygons;
+        area += added.area;
+        changed.push(...added.changed.polygons);
+      }
+      for (const p of morph.width('void', L).places) locations.push({ x: p.x, y: p.y, measured: p.width });
+    }
+  }
+  if (A !== null) {
+    const small: Ring[] = [];
+    const where: { x: number; y: number; measured: number }[] = [];
+    for (const p of current.polygons) {
+      for (const h of p.holes) {
+        const a = Math.abs(ringArea(h));
+        if (!(a < A)) continue;
+        small.push(h);
+        const [x, y] = interiorPoint(h);
+        where.push({ x, y, measured: a });
+      }
+    }
+    if (small.length > 0) {
+      const quantum = quantumOf(input.domain, 0);
+      // a hole ring is clockwise: reversed it bounds the hole's own region (non-zero fill either way)
+      const added = addMaterial(current, small.map((h) => [...h].reverse()), input, quantum);
+      if (added.polygons !== current) {
+        current = added.polygons;
+        area += added.area;
+        changed.push(...added.changed.polygons);
+      }
+      locations.push(...where.sort((a, b) => a.measured - b.measured));
+    }
+  }
+  return { polygons: current, area, locations, changed: { polygons: changed }, skipped: null };
+}
+
+/**
+ * Whether a point of the set lies in the material of p. Points: xs (sorted x, mm), their original indices
+ * `order`, and y by original index. Binary search on the bounding box's x range.
+ */
+function holdsPoint(p: Polygon, xs: Float64Array, order: readonly number[], y: Float64Array): boolean {
+  const b = ringBounds(p.outer);
+  let lo = 0, hi = xs.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid] < b[0]) lo = mid + 1; else hi = mid;
+  }
+  for (let m = lo; m < xs.length && xs[m] <= b[2]; m++) {
+    const yy = y[order[m]];
+    if (yy < b[1] || yy > b[3]) continue;
+    if (inPiece(p, [xs[m], yy])) return true;
+  }
+  return false;
+}

@@ -1,0 +1,88 @@
+/**
+ * The repair engine (`--repair[=list]`, docs/repair.md): runs the asked repairs in their fixed order
+ * (REPAIR_IDS: thicken, fill-holes, open-corners, drop-islands) on a fresh morphology of the current geometry,
+ * for up to MAX_ROUNDS rounds.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid. Inputs are not modified.
+ *
+ * Rounds: one repair can leave work for an earlier one (thickening narrows a gap that fill-holes then fills;
+ * filling a slot can leave a corner for open-corners, whose fillet can meet a member thickened before). So when a
+ * round changed the geometry, the repairs run again on the result, at most MAX_ROUNDS times in all; a round that
+ * changes nothing ends it. Every repair but drop-islands only adds material, and drop-islands removes whole
+ * pieces, so the number of pieces never grows.
+ */
+import { booleanOp, ringsOf } from '../geom/clipper.js';
+import { buildMorphology } from '../morph/index.js';
+import type { Morphology } from '../morph/types.js';
+import { REPAIR_IDS, type RepairName } from '../settings.js';
+import type { PolygonSet } from '../types.js';
+import { quantumOf } from './common.js';
+import { dropIslands } from './drop-islands.js';
+import { fillHoles } from './fill-holes.js';
+import { openCorners } from './open-corners.js';
+import { thicken } from './thicken.js';
+import { REPAIR_CHECKS, type RepairAction, type RepairInput, type StepResult } from './types.js';
+
+/** At most this many rounds of all asked repairs. */
+export const MAX_ROUNDS = 3;
+
+function step(id: RepairName, set: PolygonSet, input: RepairInput, morph: () => Morphology): StepResult {
+  switch (id) {
+    case 'thicken':
+      return thicken(set, input, morph());
+    case 'fill-holes':
+      return fillHoles(set, input, morph());
+    case 'open-corners':
+      return openCorners(set, input, morph());
+    case 'drop-islands':
+      return dropIslands(set, input);
+  }
+}
+
+/**
+ * Runs the repairs `ids` (any order and repeats; they run in REPAIR_IDS order) on `input.polygons` and returns
+ * the repaired outline (outer rings CCW, holes CW, mm) and one action per asked repair, in that order.
+ * A repair whose limit is off reports `skipped` and does nothing; an action's `area`, `locations` and `changed`
+ * gather all its rounds (locations are measured on the geometry each round started from).
+ */
+export function runRepairs(ids: readonly RepairName[], input: RepairInput): { polygons: PolygonSet; actions: RepairAction[] } {
+  if (!(input.pixel > 0) || !Number.isFinite(input.pixel)) throw new RangeError(`runRepairs: expected pixel > 0 mm, found ${input.pixel}`);
+  if (!(input.tolerance >= 0)) throw new RangeError(`runRepairs: expected tolerance ≥ 0 mm, found ${input.tolerance}`);
+  const asked = REPAIR_IDS.filter((r) => ids.includes(r));
+  const acc = new Map<RepairName, { area: number; locations: RepairAction['locations']; changed: PolygonSet[]; skipped: string | null }>();
+  for (const id of asked) acc.set(id, { area: 0, locations: [], changed: [], skipped: null });
+  let current = input.polygons;
+  let morph: { of: PolygonSet; m: Morphology } | undefined;
+  const morphology = (): Morphology => {
+    if (!morph || morph.of !== current) morph = { of: current, m: buildMorphology(current, { domain: input.domain, pixel: input.pixel }) };
+    return morph.m;
+  };
+  for (let round = 0; round < MAX_ROUNDS; round++) {
+    let changedAny = false;
+    for (const id of asked) {
+      const r = step(id, current, input, morphology);
+      const a = acc.get(id)!;
+      a.skipped = r.skipped;
+      if (r.polygons === current) continue;
+      a.area += r.area;
+      a.locations.push(...r.locations);
+      if (r.changed.polygons.length > 0) a.changed.push(r.changed);
+      current = r.polygons;
+      changedAny = true;
+    }
+    if (!changedAny) break;
+  }
+  const actions = asked.map((id): RepairAction => {
+    const a = acc.get(id)!;
+    return { id, checks: [...REPAIR_CHECKS[id]], area: a.area, locations: a.locations, changed: merge(a.changed, id, input), skipped: a.skipped };
+  });
+  return { polygons: current, actions };
+}
+
+/** The changed regions of several rounds as one set (a union for added material; removed pieces are disjoint). */
+function merge(sets: readonly PolygonSet[], id: RepairName, input: RepairInput): PolygonSet {
+  if (sets.length === 0) return { polygons: [] };
+  if (sets.length === 1) return sets[0];
+  if (id === 'drop-islands') return { polygons: sets.flatMap((s) => s.polygons) };
+  return booleanOp('union', sets.flatMap((s) => ringsOf(s)), [], { quantum: quantumOf(input.domain, 0) });
+}
