@@ -81,6 +81,12 @@ describe('parsePassive: bad files name the key path and the position', () => {
     expect(at.line).toBe(3);
   });
 
+  it('Windows line ends (CRLF) give the same line and column as LF', () => {
+    const lf = fixture('bad/radius-negative.json');
+    const e = errorOf(lf.replace(/\n/g, '\r\n'));
+    expect(e.where).toMatchObject(positionOf(lf, '-3')); // the LF reading of the same file, by line splitting
+  });
+
   it('end of input: the position is the end of the text', () => {
     const e = errorOf('{"rhoformPassive": 1,\n"regions": [');
     expect(e.code).toBe('E_PASSIVE_JSON');
