@@ -118,7 +118,10 @@ class SvgFrame {
  *
  * Input: mm, y up, origin at the lower-left corner of the grid; outer rings counter-clockwise, holes
  * clockwise, rings implicitly closed (a repeated closing point is dropped; rings of fewer than 3 points are
- * skipped). Output: viewBox in `input.units`, y down (y' = maxY − y). Pure and deterministic.
+ * skipped). Rings listed in `input.ringCircles` (centre and radius in mm) are written as two half-circle
+ * arcs inside the part's path. Output: viewBox in `input.units`, y down (y' = maxY − y). Pure and
+ * deterministic. Throws RhoformError `E_INTERNAL` for a RingCircle naming no ring, a radius ≤ 0 or a
+ * non-finite value.
  */
 export function writeSvg(input: WriterInput): string {
   const [minX, minY, maxX, maxY] = checkDomain(input.domain);
