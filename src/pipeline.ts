@@ -16,8 +16,13 @@ import { levelCurve } from './field/curve.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { mirrorPlanes, unfoldGrid, unfoldLocate } from './field/mirror.js';
 import { prepareGrid } from './field/prepare.js';
+import { polygonSetArea, polygonSetPerimeter } from './geom/area.js';
+import { flattenSet } from './geom/flat.js';
+import { locatedDeviation } from './geom/hausdorff.js';
+import { samplingStep } from './check/outline-fidelity.js';
 import { symmetrize } from './geom/symmetry.js';
 import { applyPassiveToGrid } from './passive/cells.js';
+import { applyPassiveExact } from './passive/exact.js';
 import type { PassiveRegions } from './passive/types.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
 import { buildMorphology, choosePixel } from './morph/index.js';
@@ -32,6 +37,8 @@ import { chooseThreshold } from './threshold/choose.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
 import { VERSION } from './version.js';
 import { writeDxf } from './write/dxf.js';
+import type { RingCircle } from './write/types.js';
+import { findCircleRings } from './geom/fit-circle.js';
 import { writeSvg } from './write/svg.js';
 
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
@@ -84,6 +91,34 @@ function valueRange(values: Float64Array): { min: number; max: number } {
     if (v > max) max = v;
   }
   return { min, max };
+}
+
+/**
+ * The rings written as true circles: the passive-void circles that survived whole, and with `--circles` every
+ * other ring that is a circle within the outline tolerance (src/geom/fit-circle.ts).
+ */
+function circleRings(set: PolygonSet, passive: readonly RingCircle[], recognise: boolean, tolerance: number): RingCircle[] {
+  if (!recognise) return [...passive];
+  const taken = new Set(passive.map((c) => `${c.polygon}:${c.ring}`));
+  return [...passive, ...findCircleRings(set, tolerance).filter((c) => !taken.has(`${c.polygon}:${c.ring}`))];
+}
+
+/**
+ * What finishing (symmetry, passive regions, repair) changed after smoothing: the area and fraction change and
+ * the directed Hausdorff distance (mm) from the final outline to the raw iso-contour, sampled like
+ * outline-fidelity (src/check/outline-fidelity.ts) — reported, never failed (DESIGN §4).
+ */
+function finishingOf(final: PolygonSet, smoothedArea: number, raw: PolygonSet, domainArea: number, tolerance: number): NonNullable<Report['finishing']> {
+  const area = polygonSetArea(final);
+  const a = flattenSet(final);
+  const b = flattenSet(raw);
+  const step = samplingStep(polygonSetPerimeter(final), tolerance);
+  const dev = locatedDeviation(a, b, step, Infinity);
+  return {
+    areaChange: area - smoothedArea,
+    fractionChange: domainArea > 0 ? (area - smoothedArea) / domainArea : 0,
+    maxDeviation: Number.isFinite(dev.max) ? dev.max : null,
+  };
 }
 
 /** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
@@ -153,9 +188,12 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   if (level !== null) for (let k = 0; k < v.length; k++) if (v[k] >= level) pixels++;
   const pixelFraction = level === null ? (mode === 'constant' && range.min >= 0.5 ? 1 : 0) : pixels / v.length;
 
-  // Finish: exact symmetry about the mirror planes.
+  // Finish: exact symmetry about the mirror planes, then passive regions' second act, exact booleans.
   let final = smoothed.polygons;
   if (planes.length > 0) final = symmetrize(final, planes, domain);
+  const passiveExact = passive ? applyPassiveExact(final, passive, domain, tolerance) : null;
+  const passiveArea = passiveExact ? polygonSetArea(passiveExact.polygons) - polygonSetArea(final) : 0;
+  if (passiveExact) final = passiveExact.polygons;
   lap('finish');
 
   const geometry = summarizeGeometry(final, domainArea);
@@ -215,8 +253,8 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       void: passive.regions.filter((r) => r.role === 'void').length,
       solidSamples: passiveCells.solidSamples,
       voidSamples: passiveCells.voidSamples,
-      area: 0,
-      circles: 0,
+      area: passiveArea,
+      circles: passiveExact?.ringCircles.length ?? 0,
     };
   }
 
@@ -235,18 +273,21 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     tolerance,
     smoothingDeviation,
     morphology,
+    ...(passiveExact ? { passiveSolid: passiveExact.solidRings } : {}),
   };
   const planned = planChecks(s, { tolerance, limits, mode });
   report.checks = runChecks(planned, ctx, locator(grid, locate));
   report.summary = summarize(report.checks);
   lap('checks');
 
+  if (final !== smoothed.polygons) report.finishing = finishingOf(final, smoothed.areaAfter, raw, domainArea, tolerance);
+
   const findings = numberFindings(report);
   const extras =
     findings.length === 0
       ? []
       : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) }];
-  const writerInput = { polygons: final, domain, units: s.units, extras } as const;
+  const writerInput = { polygons: final, domain, units: s.units, extras, ringCircles: circleRings(final, passiveExact?.ringCircles ?? [], s.circles, tolerance) };
   return {
     report,
     grid,

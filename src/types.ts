@@ -165,8 +165,8 @@ export interface Report {
     areaChange: number;
     /** finalFraction − achievedFraction. */
     fractionChange: number;
-    /** mm: largest distance from the final outline to the raw iso-contour (one-sided Hausdorff). */
-    maxDeviation: number;
+    /** mm: largest distance from the final outline to the raw iso-contour (directed Hausdorff); null without a raw contour. */
+    maxDeviation: number | null;
   };
   summary: { status: Status; pass: number; warn: number; fail: number };
   outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];

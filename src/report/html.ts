@@ -124,7 +124,7 @@ function repairsSection(r: Report): string {
   const f = r.finishing;
   const note = f
     ? `<p>Final area ${e(fmt(r.geometry.area, 6))} mm² (${e(fmt(f.areaChange, 5))} mm² after smoothing; volume fraction ${e(pct(r.geometry.finalFraction))}); ` +
-      `largest distance of the final outline from the raw contour ${e(fmt(f.maxDeviation, 3))} mm. These are reported, not checked: repair changes stiffness and mass — re-analyse the final geometry.</p>`
+      `largest distance of the final outline from the raw contour ${f.maxDeviation === null ? '–' : `${e(fmt(f.maxDeviation, 3))} mm`}. These are reported, not checked: repair changes stiffness and mass — re-analyse the final geometry.</p>`
     : '';
   return (
     '<h2 id="repairs">Repairs</h2><table class="grid repairs"><thead><tr><th>#</th><th>repair</th><th>for checks</th><th>area change</th><th>places</th><th>result</th></tr></thead>' +
@@ -148,7 +148,7 @@ function finishingSection(r: Report): string {
   if (r.finishing) {
     rows.push(['area change after smoothing', `${fmt(r.finishing.areaChange, 5)} mm²`]);
     rows.push(['volume fraction change', `${fmt(100 * r.finishing.fractionChange, 4)} points`]);
-    rows.push(['final deviation from the raw contour', `${fmt(r.finishing.maxDeviation, 3)} mm (reported, not checked)`]);
+    rows.push(['final deviation from the raw contour', `${r.finishing.maxDeviation === null ? '–' : `${fmt(r.finishing.maxDeviation, 3)} mm`} (reported, not checked)`]);
   }
   return rows.length > 0 ? `<section><h2>After smoothing</h2>${kv(rows)}</section>` : '';
 }

@@ -95,7 +95,7 @@ function headerRows(r: Report): [string, string][] {
     const f = r.finishing;
     rows.push([
       'final',
-      `area ${fmt(g.area, 6)} mm² (${signed(f.areaChange)} mm² after smoothing), fraction ${pct(g.finalFraction)} (${signed(100 * f.fractionChange, 3)} points); largest deviation from the raw contour ${fmt(f.maxDeviation, 3)} mm — reported, not checked`,
+      `area ${fmt(g.area, 6)} mm² (${signed(f.areaChange)} mm² after smoothing), fraction ${pct(g.finalFraction)} (${signed(100 * f.fractionChange, 3)} points); largest deviation from the raw contour ${f.maxDeviation === null ? '–' : `${fmt(f.maxDeviation, 3)} mm`} — reported, not checked`,
     ]);
   }
   const proc = r.settings.process;
