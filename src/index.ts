@@ -1,8 +1,8 @@
 /** rhoform as a library: re-exports only. */
-export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat } from './types.js';
+export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat, RepairRecord } from './types.js';
 export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
-export { DEFAULT_SETTINGS, resolveSettings, type Settings, type OutputFormat, type SaddleRuleName } from './settings.js';
-export { build, type BuildResult } from './pipeline.js';
+export { DEFAULT_SETTINGS, resolveSettings, REPAIR_IDS, MIRROR_EDGES, type Settings, type OutputFormat, type SaddleRuleName, type RepairName, type MirrorEdge } from './settings.js';
+export { build, type BuildResult, type BuildExtras } from './pipeline.js';
 export { inspect, loadGrid, describeInput, type InspectResult, type InputFile } from './input.js';
 export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
 export { readGrid, detectFormat } from './read/detect.js';
@@ -30,3 +30,13 @@ export { buildMorphology, choosePixel } from './morph/index.js';
 export type { Morphology, MorphologyOptions, WidthSurvey, CornerSurvey, ThicknessMap } from './morph/types.js';
 export { numberFindings, type NumberedFinding } from './report/findings.js';
 export type { HtmlPictures } from './report/html.js';
+export { parsePassive } from './passive/parse.js';
+export { applyPassiveToGrid } from './passive/cells.js';
+export { applyPassiveExact, type PassiveExactResult } from './passive/exact.js';
+export type { PassiveRegions, PassiveRegion, PassiveShape, PassiveRole } from './passive/types.js';
+export { unfoldGrid, unfoldLocate, mirrorPlanes, type MirrorPlane } from './field/mirror.js';
+export { symmetrize } from './geom/symmetry.js';
+export { fitCircle, findCircleRings } from './geom/fit-circle.js';
+export { booleanOp, unionRings, offsetRings, bufferPolylines, type BooleanOp } from './geom/clipper.js';
+export type { Circle } from './geom/circle.js';
+export type { RingCircle, WriterInput } from './write/types.js';
