@@ -20,7 +20,7 @@ import { polygonSetArea, polygonSetPerimeter } from './geom/area.js';
 import { flattenSet } from './geom/flat.js';
 import { locatedDeviation } from './geom/hausdorff.js';
 import { samplingStep } from './check/outline-fidelity.js';
-import { symmetrize } from './geom/symmetry.js';
+import { symmetricArea, symmetrize } from './geom/symmetry.js';
 import { applyPassiveToGrid } from './passive/cells.js';
 import { applyPassiveExact } from './passive/exact.js';
 import type { PassiveRegions } from './passive/types.js';
@@ -79,6 +79,14 @@ function withFileName<T>(name: string, f: () => T): T {
 /** Inputs of a build beside the grid: the parsed passive-region file (`--passive`; the CLI reads and parses it). */
 export interface BuildExtras {
   readonly passive?: PassiveRegions | null;
+}
+
+/**
+ * The same smoothing result judged by another area (mm²): a view that keeps its lazy members (copying it would
+ * run the deviation measure).
+ */
+function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
+  return Object.create(sm, { areaAfter: { value: areaAfter, enumerable: true } }) as SmoothResult;
 }
 
 /** Smallest and largest finite value of a grid (after passive regions changed some samples). */
@@ -168,7 +176,10 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       const a = performance.now();
       const r = L === null ? empty : contourGrid(grid, L, s.saddle);
       const b = performance.now();
-      const sm = smoothPolygons(r, smoothOpts);
+      const smoothedHere = smoothPolygons(r, smoothOpts);
+      // With --mirror the outline written is the symmetrized one: judge the volume on its area (exact, no
+      // booleans), so the search meets the target with the geometry that is written (docs/symmetry.md).
+      const sm = planes.length > 0 ? withArea(smoothedHere, symmetricArea(smoothedHere.polygons, planes)) : smoothedHere;
       if (L !== null) builds++;
       tContour += b - a;
       tSmooth += performance.now() - b;

@@ -6,10 +6,9 @@
  * - `runStages`: the stages by hand in the order proposed for the pipeline (read → prepare → unfoldGrid →
  *   volume search on contour + smooth, judged by symmetricArea → symmetrize);
  * - `build()` itself, through the DXF it writes (re-read by dxf-parser, an independent reader).
- * build() searches the level on the smoothed area and symmetrizes afterwards; on coarse grids the two smoothed
- * halves differ enough that the symmetric outline misses the volume target (R = 5.3 cells below: 0.2 % off
- * with --volume-tolerance 0.1 %). That case is marked as a known failure of build() (`it.fails`) until the
- * search judges symmetricArea: then set BUILD_JUDGES_SYMMETRIC_AREA to true.
+ * Both judge the volume on the symmetric outline's area (symmetricArea): on coarse grids the two smoothed halves
+ * differ enough that judging the plain smoothed area would miss the target (R = 5.3 cells below: 0.2 % off with
+ * --volume-tolerance 0.1 %), which is why that case is here.
  *
  * Sources: analytic disc (area πR², perimeter 2πR, symmetric about its centre line); the smoothing budget
  * `--tolerance` (docs/smoothing.md: every final point within tolerance of the raw contour).
@@ -29,9 +28,6 @@ import { smoothPolygons } from '../../src/smooth/smooth.js';
 import { chooseThreshold } from '../../src/threshold/choose.js';
 import type { Point, PolygonSet } from '../../src/types.js';
 import { npyFloat64 } from '../bench/npy-write.js';
-
-/** Flip to true once build()'s volume search judges the symmetric area (symmetricArea) rather than the smoothed one. */
-const BUILD_JUDGES_SYMMETRIC_AREA = false;
 
 type ParserClass = new () => { parseSync(text: string): IDxf | null };
 const DxfParser = (DxfParserModule as unknown as { default?: ParserClass }).default ?? (DxfParserModule as unknown as ParserClass);
@@ -143,12 +139,9 @@ const CASES = [
   { R: 5.3, h: 1, name: 'coarse (R = 5.3 cells)', halvesDiffer: true },
 ];
 
-/**
- * The checks on every case. `judgesSymmetricArea`: whether the driver's volume search judges the area of the
- * symmetric outline; where it does not and the smoothed halves differ, the volume check is expected to fail.
- */
-function mirroredDiscChecks(run: (bytes: Uint8Array, s: Settings) => Outcome, symmetryTol: number, judgesSymmetricArea: boolean): void {
-  for (const { R, h, name, halvesDiffer } of CASES) {
+/** The checks on every case (`halvesDiffer`: the smoothed halves differ, so judging the symmetric area matters). */
+function mirroredDiscChecks(run: (bytes: Uint8Array, s: Settings) => Outcome, symmetryTol: number): void {
+  for (const { R, h, name } of CASES) {
     const yc = R + 3.37;
     const { bytes, cols } = halfDisc(R, h, yc);
     const base: Partial<Settings> = { cellSize: [h, h], mirror: ['left'] };
@@ -177,8 +170,7 @@ function mirroredDiscChecks(run: (bytes: Uint8Array, s: Settings) => Outcome, sy
       expect(Math.abs(A - Math.PI * R * R)).toBeLessThanOrEqual(2 * Math.PI * R * delta + Math.PI * delta * delta);
     });
 
-    const volumeIt = halvesDiffer && !judgesSymmetricArea ? it.fails : it;
-    volumeIt(`${name}, volume search: the target is the half's mean and the symmetric outline meets it`, () => {
+    it(`${name}, volume search: the target is the half's mean and the symmetric outline meets it`, () => {
       const s = resolveSettings(base);
       const o = run(bytes, s);
       // analytic: every cell is copied once, so the unfolded mean is the half's mean
@@ -196,10 +188,10 @@ function mirroredDiscChecks(run: (bytes: Uint8Array, s: Settings) => Outcome, sy
 }
 
 describe('--mirror left on a half disc, stage by stage', () => {
-  mirroredDiscChecks(runStages, 1e-9, true);
+  mirroredDiscChecks(runStages, 1e-9);
 });
 
 describe('--mirror left on a half disc, through build() and its DXF', () => {
   // the DXF rounds half away from zero to 6 decimals, which is symmetric under x ↦ −x
-  mirroredDiscChecks(runBuild, 1e-9, BUILD_JUDGES_SYMMETRIC_AREA);
+  mirroredDiscChecks(runBuild, 1e-9);
 });
