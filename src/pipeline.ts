@@ -23,6 +23,7 @@ import { samplingStep } from './check/outline-fidelity.js';
 import { symmetricArea, symmetrize } from './geom/symmetry.js';
 import { applyPassiveToGrid } from './passive/cells.js';
 import { applyPassiveExact } from './passive/exact.js';
+import { mirrorPassive } from './passive/mirror.js';
 import type { PassiveRegions } from './passive/types.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
 import { buildMorphology, choosePixel } from './morph/index.js';
@@ -150,7 +151,8 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   let grid = planes.length > 0 ? unfoldGrid(prep.grid, s.mirror) : prep.grid;
   const locate = planes.length > 0 ? unfoldLocate(read.locate, prep.grid, s.mirror) : read.locate;
   // --passive, first act: the samples they cover become 1 or 0, so the threshold and contours see them.
-  const passive = more.passive ?? null;
+  // With --mirror the regions' mirror images are added, so a half model's bolt hole has a true-circle twin.
+  const passive = more.passive ? mirrorPassive(more.passive, planes) : null;
   const passiveCells = passive ? applyPassiveToGrid(grid, passive) : null;
   if (passiveCells) grid = passiveCells.grid;
   const range = grid === prep.grid ? { min: prep.min, max: prep.max } : valueRange(grid.values);
