@@ -12,22 +12,33 @@ import { interiorPoint } from '../geom/interior.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RepairInput } from './types.js';
 
+/** cos 6°: arcs get a vertex at least every 12° of turn. */
+const COS_HALF_STEP = Math.cos((6 * Math.PI) / 180);
+
 /**
- * Largest distance (mm) of a polygonised arc from its true circle: a quarter of the outline budget, as the brief
- * of the outline asks for arcs (never below pixel/100, so `--tolerance 0` still gives finite polygons).
+ * Largest distance (mm) of a polygonised arc of radius about `radius` mm from its true circle: a quarter of the
+ * outline budget, but fine enough that the polygon turns by at most 12° per vertex (sagitta ρ(1 − cos 6°)) — the
+ * inner-radius check treats a vertex turning by 15° or more as a sharp corner (docs/checks/min-inner-radius.md).
+ * `fillet`: arcs the inner-radius check will measure as fillets (the closings of open-corners and fill-holes) are
+ * polygonised to a sagitta of pixel/1600: their chords then poke into a tangent disc by at most ρΔ²/2 = 4·sagitta
+ * = pixel/400, a quarter of the check's own slack (pixel/100), and the check measures their radius rather than
+ * their vertices (cost: about 360 vertices per full turn at ρ = 16 pixels, paid only where the outline turns). Never below radius·10⁻⁴ (`--tolerance 0`).
  */
-export function arcToleranceOf(input: Pick<RepairInput, 'tolerance' | 'pixel'>): number {
-  return Math.max(input.tolerance / 4, input.pixel / 100);
+export function arcToleranceOf(input: Pick<RepairInput, 'tolerance' | 'pixel'>, radius: number, fillet = false): number {
+  const coarse = Math.min(input.tolerance / 4, radius * (1 - COS_HALF_STEP));
+  return Math.max(fillet ? Math.min(coarse, input.pixel / 1600) : coarse, radius * 1e-4);
 }
 
 /**
- * The margin δ (mm) added to every disc radius so that the re-check measures at least the limit: the arc
- * tolerance (polygon chords lie up to that far inside the true circle) plus pixel/8 (the scallops between discs
- * whose centres lie up to a pixel apart along an axis, s²/(8ρ) ≤ pixel/8 for ρ ≥ pixel, and the raster
- * measure's own error, about 0.01–0.05 pixel on exact polygons — docs/checks/min-member-size.md).
+ * The margin δ (mm) added to a disc radius of about `radius` mm so that the re-check passes rather than landing
+ * in its ± pixel/2 "too close to call" band: δ = arc tolerance + pixel/2. Per side of a member (or a void, or a
+ * fillet) the discs then reach limit/2 + pixel/2 less the arc tolerance (chords lie inside the true circle), the
+ * scallops between discs whose centres lie up to a pixel apart along an axis (s²/(8ρ) ≤ pixel/8 for ρ ≥ pixel)
+ * and the raster measure's own error (about 0.01–0.05 pixel on exact polygons, docs/checks/min-member-size.md):
+ * a width of at least limit + 0.7 pixel, above the band of ± pixel/2.
  */
-export function marginOf(input: Pick<RepairInput, 'tolerance' | 'pixel'>): number {
-  return arcToleranceOf(input) + input.pixel / 8;
+export function marginOf(input: Pick<RepairInput, 'tolerance' | 'pixel'>, radius: number, fillet = false): number {
+  return arcToleranceOf(input, radius, fillet) + input.pixel / 2;
 }
 
 /** One quantum (mm) for every boolean of a repair, from the domain's extent and the largest offset radius. */
@@ -82,7 +93,7 @@ export function addMaterial(set: PolygonSet, extra: readonly Ring[], input: Repa
   const needle = input.pixel * 1e-3;
   const kept = diff.polygons.filter((p) => meanThickness(p) > needle);
   if (kept.length === 0) return none;
-  const merged = unionRings([...solid, ...ringsOf(kept)], { quantum });
+  const merged = cleanSet(unionRings([...solid, ...ringsOf(kept)], { quantum }));
   const polygons = anchored(merged, set);
   // a floating bit dropped by anchored() is not part of the change
   const changed: PolygonSet = polygons === merged ? { polygons: kept } : booleanOp('difference', ringsOf(polygons), solid, { quantum });
@@ -108,4 +119,27 @@ export function anchored(after: PolygonSet, before: PolygonSet): PolygonSet {
     return anchors.some((q) => q[0] >= b[0] && q[0] <= b[2] && q[1] >= b[1] && q[1] <= b[3] && inPiece(p, q));
   });
   return keep.length === after.polygons.length ? after : { polygons: keep };
+}
+
+/** A ring without repeated consecutive vertices (the boolean engine may emit them; they are zero-length edges). */
+function cleanRing(r: Ring): Ring {
+  const out: Point[] = [];
+  for (const p of r) {
+    const q = out[out.length - 1];
+    if (!q || q[0] !== p[0] || q[1] !== p[1]) out.push(p);
+  }
+  while (out.length > 1 && out[0][0] === out[out.length - 1][0] && out[0][1] === out[out.length - 1][1]) out.pop();
+  return out.length === r.length ? r : out;
+}
+
+/** The set without zero-length edges; rings left with fewer than 3 vertices are dropped. */
+export function cleanSet(set: PolygonSet): PolygonSet {
+  const polygons: Polygon[] = [];
+  for (const p of set.polygons) {
+    const outer = cleanRing(p.outer);
+    if (outer.length < 3) continue;
+    const holes = p.holes.map(cleanRing).filter((h) => h.length >= 3);
+    polygons.push({ outer, holes });
+  }
+  return { polygons };
 }

@@ -40,9 +40,9 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
   if (L !== null) {
     const pts = morph.medial('void', L);
     if (pts.count > 0) {
-      const rho = L / 2 + marginOf(input);
+      const rho = L / 2 + marginOf(input, L / 2, true);
       const quantum = quantumOf(input.domain, rho);
-      const closed = closing(current, rho, arcToleranceOf(input), quantum);
+      const closed = closing(current, rho, arcToleranceOf(input, L / 2, true), quantum);
       const unreachable = booleanOp('difference', ringsOf(closed), ringsOf(current), { quantum });
       const keep = thinOut(pts.x, pts.y, pts.count, input.pixel, input.domain[0], input.domain[1]);
       const order = keep.sort((a, b) => pts.x[a] - pts.x[b]);

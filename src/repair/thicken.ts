@@ -7,9 +7,9 @@
  * Method: the counted medial samples of the solid (θ-simplified medial axis, θ ≥ 120°, exactly those the check
  * counts — Foskey, Lin & Manocha, "Efficient computation of a simplified medial axis", Proc. 8th ACM Symposium on
  * Solid Modeling and Applications, 2003, DOI 10.1145/781606.781623) whose local width is below L, thinned to one
- * per half-pixel square, each carry a disc of radius ρ = L/2 + δ (δ: common.ts marginOf). The union of the discs
- * is added to the solid. A disc whose centre lies closer than ρ to the domain edge is moved inward until it fits
- * (it still contains the sample's own inscribed disc, whose radius is at most the distance to the edge), so a
+ * per half-pixel square, each carry a disc of radius ρ = L/2 + δ (δ: common.ts marginOf); the discs of neighbouring
+ * samples are joined by capsules (a smooth band, no scallops). The union is added to the solid. A disc whose
+ * centre lies closer than ρ to the domain edge is moved inward until it fits (it still contains the sample's own inscribed disc, whose radius is at most the distance to the edge), so a
  * wall along the domain edge thickens inward rather than being clipped. A 90° corner of a thick part has θ = 90°
  * and is not counted, so it is left alone. Only adds material: no member is ever deleted.
  */
@@ -25,15 +25,43 @@ export function thicken(set: PolygonSet, input: RepairInput, morph: Morphology):
   if (L === null) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: 'no member limit (--min-member or --process)' };
   const pts = morph.medial('solid', L);
   if (pts.count === 0) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: null };
-  const rho = L / 2 + marginOf(input);
+  const rho = L / 2 + marginOf(input, L / 2);
   const [x0, y0, x1, y1] = input.domain;
   const fit = (v: number, lo: number, hi: number): number => (hi - lo >= 2 * rho ? Math.min(hi - rho, Math.max(lo + rho, v)) : 0.5 * (lo + hi));
-  const centres = thinOut(pts.x, pts.y, pts.count, input.pixel / 2, x0, y0).map((k) => [[fit(pts.x[k], x0, x1), fit(pts.y[k], y0, y1)] as Point]);
+  const keep = thinOut(pts.x, pts.y, pts.count, input.pixel / 2, x0, y0);
+  const centres = keep.map((k): Point => [fit(pts.x[k], x0, x1), fit(pts.y[k], y0, y1)]);
   const quantum = quantumOf(input.domain, rho);
-  const discs = bufferPolylines(centres, rho, { arcTolerance: arcToleranceOf(input), quantum });
+  const discs = bufferPolylines(chain(centres, input.pixel / 2, x0, y0), rho, { arcTolerance: arcToleranceOf(input, L / 2), quantum });
   const added = addMaterial(set, ringsOf(discs), input, quantum);
   const locations = morph.width('solid', L).places.map((p) => ({ x: p.x, y: p.y, measured: p.width }));
   return { polygons: added.polygons, area: added.area, locations, changed: added.changed, skipped: null };
+}
+
+/**
+ * Short runs between neighbouring centres: each centre joined to the centres in the 8 neighbouring squares of
+ * side `cell` (mm, squares anchored at (ox, oy), at most one centre per square); a centre with no neighbour is a
+ * run of one point. Buffered by ρ these capsules make the union of the discs along a medial axis without the
+ * scallops a row of separate discs would leave between them (each capsule lies within cell·√2 of its two
+ * discs, both centred on thin medial samples).
+ */
+function chain(centres: readonly Point[], cell: number, ox: number, oy: number): Point[][] {
+  const at = new Map<number, number>();
+  const key = (i: number, j: number): number => i * 4_194_304 + j;
+  const ij = centres.map((c) => [Math.floor((c[0] - ox) / cell), Math.floor((c[1] - oy) / cell)] as const);
+  ij.forEach(([i, j], k) => at.set(key(i, j), k));
+  const runs: Point[][] = [];
+  const lonely = new Uint8Array(centres.length).fill(1);
+  ij.forEach(([i, j], k) => {
+    for (const [di, dj] of [[1, 0], [0, 1], [1, 1], [-1, 1]] as const) {
+      const n = at.get(key(i + di, j + dj));
+      if (n === undefined) continue;
+      runs.push([centres[k], centres[n]]);
+      lonely[k] = 0;
+      lonely[n] = 0;
+    }
+  });
+  for (let k = 0; k < centres.length; k++) if (lonely[k]) runs.push([centres[k]]);
+  return runs;
 }
 
 /**

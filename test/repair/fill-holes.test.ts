@@ -49,13 +49,13 @@ describe('fill-holes', () => {
     const r = runRepairs(['fill-holes'], { ...input, polygons: part });
     // analytic: the slot (20 × slotW) is filled except the cap a disc of radius ρ = d/2 + δ resting on the slot's
     // two top corners dips into it: cap = ρ²·acos(h/ρ) − h·slotW/2 with h = √(ρ² − (slotW/2)²)
-    const rho = d / 2 + marginOf(input);
+    const rho = d / 2 + marginOf(input, d / 2, true);
     const half = slotW / 2;
     const h = Math.sqrt(rho * rho - half * half);
     const cap = rho * rho * Math.acos(h / rho) - h * half;
     const added = setArea(r.polygons) - setArea(part);
     // the polygonised arc lies within the arc tolerance of the circle along its length 2ρ·asin(half/ρ)
-    expect(Math.abs(added - (20 * slotW - cap))).toBeLessThanOrEqual(arcToleranceOf(input) * 2 * rho * Math.asin(half / rho));
+    expect(Math.abs(added - (20 * slotW - cap))).toBeLessThanOrEqual(arcToleranceOf(input, d / 2, true) * 2 * rho * Math.asin(half / rho));
     expect(sizeChecks(r.polygons, domain, tolerance, pixel, limits, ['min-hole-size'])[0].status).toBe('pass');
   });
 

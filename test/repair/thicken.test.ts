@@ -17,7 +17,7 @@ const input: RepairInput = { polygons: part, domain, tolerance, limits, passiveS
 
 describe('thicken', () => {
   const { polygons, actions } = runRepairs(['thicken'], input);
-  const delta = marginOf(input);
+  const delta = marginOf(input, d / 2);
 
   it('the strut fails the member check before and passes it after (real planner and runner)', () => {
     const before = sizeChecks(part, domain, tolerance, pixel, limits, ['min-member-size'])[0];
