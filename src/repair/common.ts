@@ -5,7 +5,7 @@
  * Frame: millimetres, y up, origin at the lower-left corner of the grid. Polygons: outer rings counter-clockwise,
  * holes clockwise (DESIGN §3). Booleans and offsets: src/geom/clipper.ts (Vatti 1992, doi:10.1145/129902.129906).
  */
-import { polygonArea, polygonSetArea, ringPerimeter } from '../geom/area.js';
+import { polygonArea, polygonSetArea, ringArea, ringPerimeter } from '../geom/area.js';
 import { booleanOp, offsetRings, quantumFor, ringsOf, unionRings } from '../geom/clipper.js';
 import { ringBounds, ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
@@ -93,7 +93,7 @@ export function addMaterial(set: PolygonSet, extra: readonly Ring[], input: Repa
   const needle = input.pixel * 1e-3;
   const kept = diff.polygons.filter((p) => meanThickness(p) > needle);
   if (kept.length === 0) return none;
-  const merged = cleanSet(unionRings([...solid, ...ringsOf(kept)], { quantum }));
+  const merged = cleanSet(unionRings([...solid, ...ringsOf(kept)], { quantum }), needle);
   const polygons = anchored(merged, set);
   // a floating bit dropped by anchored() is not part of the change
   const changed: PolygonSet = polygons === merged ? { polygons: kept } : booleanOp('difference', ringsOf(polygons), solid, { quantum });
@@ -132,13 +132,17 @@ function cleanRing(r: Ring): Ring {
   return out.length === r.length ? r : out;
 }
 
-/** The set without zero-length edges; rings left with fewer than 3 vertices are dropped. */
-export function cleanSet(set: PolygonSet): PolygonSet {
+/**
+ * The set without zero-length edges; rings left with fewer than 3 vertices are dropped, and so are holes whose
+ * mean thickness 2·area/perimeter is below `needle` mm (slits left where added material meets the solid up to
+ * rounding: they are filled, which only adds material).
+ */
+export function cleanSet(set: PolygonSet, needle: number): PolygonSet {
   const polygons: Polygon[] = [];
   for (const p of set.polygons) {
     const outer = cleanRing(p.outer);
     if (outer.length < 3) continue;
-    const holes = p.holes.map(cleanRing).filter((h) => h.length >= 3);
+    const holes = p.holes.map(cleanRing).filter((h) => h.length >= 3 && (2 * Math.abs(ringArea(h))) / ringPerimeter(h) >= needle);
     polygons.push({ outer, holes });
   }
   return { polygons };

@@ -9,8 +9,10 @@
  * Solid Modeling and Applications, 2003, DOI 10.1145/781606.781623) whose local width is below L, thinned to one
  * per half-pixel square, each carry a disc of radius ρ = L/2 + δ (δ: common.ts marginOf); the discs of neighbouring
  * samples are joined by capsules (a smooth band, no scallops). The union is added to the solid. A disc whose
- * centre lies closer than ρ to the domain edge is moved inward until it fits (it still contains the sample's own inscribed disc, whose radius is at most the distance to the edge), so a
- * wall along the domain edge thickens inward rather than being clipped. A 90° corner of a thick part has θ = 90°
+ * centre lies closer than ρ to the domain edge is moved inward until it fits (it still contains the sample's own
+ * inscribed disc, whose radius is at most the distance to the edge), and the capsule from the sample to the moved
+ * centre is added too: clipped to the domain it is 2ρ wide right up to the edge, so a wall along the domain edge
+ * thickens inward rather than being clipped to half, and a wedge tip on the edge is covered. A 90° corner of a thick part has θ = 90°
  * and is not counted, so it is left alone. Only adds material: no member is ever deleted.
  */
 import { bufferPolylines, ringsOf } from '../geom/clipper.js';
@@ -30,8 +32,14 @@ export function thicken(set: PolygonSet, input: RepairInput, morph: Morphology):
   const fit = (v: number, lo: number, hi: number): number => (hi - lo >= 2 * rho ? Math.min(hi - rho, Math.max(lo + rho, v)) : 0.5 * (lo + hi));
   const keep = thinOut(pts.x, pts.y, pts.count, input.pixel / 2, x0, y0);
   const centres = keep.map((k): Point => [fit(pts.x[k], x0, x1), fit(pts.y[k], y0, y1)]);
+  const runs = chain(centres, input.pixel / 2, x0, y0);
+  // near the domain edge: the capsule from the sample to its moved centre covers the sample's own disc (a wedge
+  // tip on the edge) and, clipped to the domain, is 2ρ wide up to the edge
+  keep.forEach((k, m) => {
+    if (centres[m][0] !== pts.x[k] || centres[m][1] !== pts.y[k]) runs.push([[pts.x[k], pts.y[k]], centres[m]]);
+  });
   const quantum = quantumOf(input.domain, rho);
-  const discs = bufferPolylines(chain(centres, input.pixel / 2, x0, y0), rho, { arcTolerance: arcToleranceOf(input, L / 2), quantum });
+  const discs = bufferPolylines(runs, rho, { arcTolerance: arcToleranceOf(input, L / 2), quantum });
   const added = addMaterial(set, ringsOf(discs), input, quantum);
   const locations = morph.width('solid', L).places.map((p) => ({ x: p.x, y: p.y, measured: p.width }));
   return { polygons: added.polygons, area: added.area, locations, changed: added.changed, skipped: null };

@@ -11,7 +11,9 @@ import type { Morphology } from '../../src/morph/types.js';
 import type { RepairLimits } from '../../src/repair/types.js';
 import { resolveSettings } from '../../src/settings.js';
 import type { CheckResult, Point, Polygon, PolygonSet, Ring } from '../../src/types.js';
+import { booleanOp, ringsOf } from '../../src/geom/clipper.js';
 import { makeContext } from '../check/context.js';
+import { rng } from '../support/random.js';
 
 export type Box = readonly [number, number, number, number];
 
@@ -79,3 +81,29 @@ export const ngonArea = (r: number, n: number): number => (n / 2) * r * r * Math
 export const hole = (ring: Ring): Point[] => [...ring].reverse();
 
 export const poly = (outer: Ring, ...holes: Ring[]): Polygon => ({ outer, holes });
+
+/** A rectangle of length l and width w centred at (cx, cy), turned by angle a (radians), counter-clockwise. */
+function bar(cx: number, cy: number, l: number, w: number, a: number): Point[] {
+  const c = Math.cos(a), s = Math.sin(a);
+  return ([[-l / 2, -w / 2], [l / 2, -w / 2], [l / 2, w / 2], [-l / 2, w / 2]] as const).map(([u, v]) => [cx + u * c - v * s, cy + u * s + v * c] as Point);
+}
+
+/** A random part in [0, 100] × [0, 60] mm: a union of discs, blocks and thin bars, minus a few small discs, clipped to the domain. */
+export function randomPart(seed: number): PolygonSet {
+  const r = rng(seed);
+  const U = (a: number, b: number) => a + (b - a) * r();
+  const solid: Point[][] = [];
+  const n = 3 + Math.floor(r() * 6);
+  for (let k = 0; k < n; k++) {
+    const kind = r();
+    if (kind < 0.35) solid.push(circle(U(0, 100), U(0, 60), U(2, 14), 96));
+    else if (kind < 0.7) solid.push(bar(U(0, 100), U(0, 60), U(5, 40), U(5, 25), U(0, Math.PI)));
+    else solid.push(bar(U(10, 90), U(10, 50), U(10, 60), U(0.8, 3.5), U(0, Math.PI))); // a thin strut
+  }
+  const voids: Point[][] = [];
+  const m = Math.floor(r() * 4);
+  for (let k = 0; k < m; k++) voids.push(circle(U(0, 100), U(0, 60), U(0.5, 4), 64));
+  const body = booleanOp('intersection', solid, [rect(0, 0, 100, 60)]);
+  return voids.length ? booleanOp('difference', ringsOf(body), voids) : body;
+}
+
