@@ -6,12 +6,14 @@ import { existsSync } from 'node:fs';
 import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { RhoformError, UsageError } from '../src/errors.js';
+import { parsePassive } from '../src/passive/parse.js';
+import type { PassiveRegions } from '../src/passive/types.js';
 import { build, inspect } from '../src/pipeline.js';
 import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
 import { fmt } from '../src/report/number.js';
 import { formatText } from '../src/report/text.js';
-import { resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
+import { REPAIR_IDS, resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
@@ -49,11 +51,19 @@ function packageRoot(): string {
 /**
  * The bundled demo: a grid of our own scenario and the settings it is meant to be built with — 2 mm cells, and
  * the bracket is waterjet-cut from 8 mm aluminium sheet (fixtures/grids/demo-bracket.md), so the checks use
- * that process's generic limits.
+ * that process's generic limits; its bolt holes and motor pad are passive regions of its own file; and it is
+ * repaired, so the report shows the findings before repair next to the repaired result.
  */
 export const DEMO = {
   file: 'fixtures/grids/demo-bracket.npy',
-  settings: { cellSize: [2, 2], process: 'waterjet-cut', thickness: 8 } as Partial<Settings>,
+  passive: 'fixtures/passive/demo-bracket.passive.json',
+  settings: {
+    cellSize: [2, 2],
+    process: 'waterjet-cut',
+    thickness: 8,
+    passive: 'fixtures/passive/demo-bracket.passive.json',
+    repair: [...REPAIR_IDS],
+  } as Partial<Settings>,
 };
 
 const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
@@ -83,6 +93,18 @@ export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number 
   return EXIT_OK;
 }
 
+/** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
+function readPassive(path: string, name: string): PassiveRegions {
+  const bytes = readInput(path, name);
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
+  }
+  return parsePassive(text, name);
+}
+
 /**
  * Build one grid file into `outDir` (the outputs of `formats`, geometry only when `writeGeometry`), atomically,
  * and return its report. Prints nothing: callers decide what goes to stdout and stderr. Throws RhoformError on
@@ -90,12 +112,14 @@ export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number 
  */
 export function buildFile(
   settings: Settings,
-  opts: { cwd: string; file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string },
+  opts: { cwd: string; file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string },
 ): { report: Report; warnings: readonly string[]; exitCode: number } {
   const inputPath = resolve(opts.cwd, opts.file);
   const name = opts.name ?? opts.file;
   const bytes = readInput(inputPath, name);
-  const result = build({ name, bytes }, settings);
+  const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
+  const passive = passivePath === null ? null : readPassive(passivePath, settings.passive as string);
+  const result = build({ name, bytes }, settings, { passive });
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
@@ -111,11 +135,15 @@ export function buildFile(
     else content = formatHtml(report, result.pictures());
     planned.push({ path: p.path, content });
   }
-  writeOutputsAtomically(planned, [inputPath], opts.force);
+  writeOutputsAtomically(planned, passivePath === null ? [inputPath] : [inputPath, passivePath], opts.force);
   return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
 }
 
-function runBuild(args: ParsedArgs, io: Io, opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string }): number {
+function runBuild(
+  args: ParsedArgs,
+  io: Io,
+  opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string },
+): number {
   const settings = resolveSettings(args.settings);
   // Progress (docs/scale.md): a build runs synchronously, so a large input gets one start line on stderr.
   const done = buildNotice(io.stderr, progressMode(args.cli.quiet, io.stderrIsTTY === true), opts.name ?? opts.file, inputBytes(resolve(io.cwd, opts.file)));
@@ -169,7 +197,9 @@ function runDemo(args: ParsedArgs, io: Io): number {
   const outDir = args.cli.outDir ?? 'rhoform-demo';
   const demoArgs: ParsedArgs = { ...args, settings: { ...DEMO.settings, ...args.settings } };
   // The demo replaces its own earlier output (and only that): the same names in its own folder.
-  const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir });
+  // The demo's own passive-region file sits in the package; a --passive of the user's replaces it.
+  const passivePath = args.settings.passive === undefined ? join(root, DEMO.passive) : undefined;
+  const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir, passivePath });
   if (!args.cli.json && !args.cli.quiet) {
     io.stdout(`\nThe demo grid is ${DEMO.file} (a bracket of our own invention: fixtures/grids/demo-bracket.md).\nIts DXF, SVG and reports are in ${resolve(io.cwd, outDir)}/\n`);
   }

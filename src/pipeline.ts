@@ -16,13 +16,13 @@ import { levelCurve } from './field/curve.js';
 import { fieldMean, gridDomain } from './field/mean.js';
 import { mirrorPlanes, unfoldGrid, unfoldLocate } from './field/mirror.js';
 import { prepareGrid } from './field/prepare.js';
-import { polygonSetArea, polygonSetPerimeter } from './geom/area.js';
-import { flattenSet } from './geom/flat.js';
-import { locatedDeviation } from './geom/hausdorff.js';
-import { samplingStep } from './check/outline-fidelity.js';
-import { symmetricArea, symmetrize } from './geom/symmetry.js';
+import { polygonSetArea } from './geom/area.js';
+import { ringsOf } from './geom/clipper.js';
+import { circleRings, finishOutline, finishingOf, repairStage } from './finish.js';
+import type { PassiveExactResult } from './passive/exact.js';
+import type { WriterExtra } from './write/types.js';
+import { symmetricArea } from './geom/symmetry.js';
 import { applyPassiveToGrid } from './passive/cells.js';
-import { applyPassiveExact } from './passive/exact.js';
 import { mirrorPassive } from './passive/mirror.js';
 import type { PassiveRegions } from './passive/types.js';
 import { describeInput, loadGrid, type InputFile } from './input.js';
@@ -38,8 +38,6 @@ import { chooseThreshold } from './threshold/choose.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
 import { VERSION } from './version.js';
 import { writeDxf } from './write/dxf.js';
-import type { RingCircle } from './write/types.js';
-import { findCircleRings } from './geom/fit-circle.js';
 import { writeSvg } from './write/svg.js';
 
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
@@ -100,34 +98,6 @@ function valueRange(values: Float64Array): { min: number; max: number } {
     if (v > max) max = v;
   }
   return { min, max };
-}
-
-/**
- * The rings written as true circles: the passive-void circles that survived whole, and with `--circles` every
- * other ring that is a circle within the outline tolerance (src/geom/fit-circle.ts).
- */
-function circleRings(set: PolygonSet, passive: readonly RingCircle[], recognise: boolean, tolerance: number): RingCircle[] {
-  if (!recognise) return [...passive];
-  const taken = new Set(passive.map((c) => `${c.polygon}:${c.ring}`));
-  return [...passive, ...findCircleRings(set, tolerance).filter((c) => !taken.has(`${c.polygon}:${c.ring}`))];
-}
-
-/**
- * What finishing (symmetry, passive regions, repair) changed after smoothing: the area and fraction change and
- * the directed Hausdorff distance (mm) from the final outline to the raw iso-contour, sampled like
- * outline-fidelity (src/check/outline-fidelity.ts) — reported, never failed (DESIGN §4).
- */
-function finishingOf(final: PolygonSet, smoothedArea: number, raw: PolygonSet, domainArea: number, tolerance: number): NonNullable<Report['finishing']> {
-  const area = polygonSetArea(final);
-  const a = flattenSet(final);
-  const b = flattenSet(raw);
-  const step = samplingStep(polygonSetPerimeter(final), tolerance);
-  const dev = locatedDeviation(a, b, step, Infinity);
-  return {
-    areaChange: area - smoothedArea,
-    fractionChange: domainArea > 0 ? (area - smoothedArea) / domainArea : 0,
-    maxDeviation: Number.isFinite(dev.max) ? dev.max : null,
-  };
 }
 
 /** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
@@ -202,11 +172,10 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   const pixelFraction = level === null ? (mode === 'constant' && range.min >= 0.5 ? 1 : 0) : pixels / v.length;
 
   // Finish: exact symmetry about the mirror planes, then passive regions' second act, exact booleans.
-  let final = smoothed.polygons;
-  if (planes.length > 0) final = symmetrize(final, planes, domain);
-  const passiveExact = passive ? applyPassiveExact(final, passive, domain, tolerance) : null;
-  const passiveArea = passiveExact ? polygonSetArea(passiveExact.polygons) - polygonSetArea(final) : 0;
-  if (passiveExact) final = passiveExact.polygons;
+  const finished = finishOutline(smoothed.polygons, planes, passive, domain, tolerance);
+  let final = finished.polygons;
+  let passiveExact = finished.passive;
+  const passiveArea = passiveExact ? polygonSetArea(final) - smoothed.areaAfter : 0;
   lap('finish');
 
   const geometry = summarizeGeometry(final, domainArea);
@@ -271,36 +240,69 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     };
   }
 
-  // Checks (docs/checks/README.md): one morphology engine, built on first use and shared by the size checks.
+  // Checks (docs/checks/README.md): one morphology engine per outline, built on first use and shared by the
+  // size checks.
+  const pixel = choosePixel(grid.cellSize, domain);
   let morph: Morphology | undefined;
-  const morphology = (): Morphology => (morph ??= buildMorphology(final, { domain, pixel: choosePixel(grid.cellSize, domain) }));
   const smoothingDeviation = { max: smoothed.maxDeviation, resolution: smoothed.deviationResolution };
-  const changed = final !== smoothed.polygons;
-  const ctx: CheckContext = {
-    polygons: final,
-    raw,
-    ...(changed ? { smoothed: smoothed.polygons } : {}),
-    domain,
-    grid,
-    report,
-    tolerance,
-    smoothingDeviation,
-    morphology,
-    ...(passiveExact ? { passiveSolid: passiveExact.solidRings } : {}),
-  };
+  const inFile = locator(grid, locate);
   const planned = planChecks(s, { tolerance, limits, mode });
-  report.checks = runChecks(planned, ctx, locator(grid, locate));
-  report.summary = summarize(report.checks);
+  const check = (polygons: PolygonSet, solid: PassiveExactResult | null) => {
+    morph = undefined;
+    const ctx: CheckContext = {
+      polygons,
+      raw,
+      ...(polygons !== smoothed.polygons ? { smoothed: smoothed.polygons } : {}),
+      domain,
+      grid,
+      report,
+      tolerance,
+      smoothingDeviation,
+      morphology: () => (morph ??= buildMorphology(polygons, { domain, pixel })),
+      ...(solid ? { passiveSolid: solid.solidRings } : {}),
+    };
+    return runChecks(planned, ctx, inFile);
+  };
+  report.checks = check(final, passiveExact);
   lap('checks');
 
+  // Repair (docs/repair.md), then the same checks again on the result: they set the summary and exit code.
+  let repair: { before: PolygonSet; changed: PolygonSet } | null = null;
+  if (s.repair.length > 0) {
+    const before = final;
+    const done = repairStage({ polygons: final, settings: s, limits, planned, planes, passive, domain, tolerance, pixel, locate: inFile });
+    final = done.polygons;
+    passiveExact = done.passive;
+    report.repairs = done.records;
+    report.checksBeforeRepair = report.checks;
+    lap('repair');
+    report.checks = check(final, passiveExact);
+    lap('checks');
+    repair = { before, changed: done.changed };
+  }
+  report.summary = summarize(report.checks);
+  report.geometry = summarizeGeometry(final, domainArea);
   if (final !== smoothed.polygons) report.finishing = finishingOf(final, smoothed.areaAfter, raw, domainArea, tolerance);
 
   const findings = numberFindings(report);
-  const extras =
-    findings.length === 0
-      ? []
-      : [{ layer: 'finding' as const, markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) }];
+  const extras: WriterExtra[] = [];
+  if (findings.length > 0) {
+    extras.push({ layer: 'finding', markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) });
+  }
+  if (repair) {
+    // Where the repairs acted: the material they changed, and R<k> markers as in the HTML report.
+    const markers = report.repairs.flatMap((r, k) => r.locations.map((L) => ({ x: L.x, y: L.y, label: `R${k + 1}`, note: r.id })));
+    extras.push({ layer: 'repair', rings: ringsOf(repair.changed), markers });
+  }
   const writerInput = { polygons: final, domain, units: s.units, extras, ringCircles: circleRings(final, passiveExact?.ringCircles ?? [], s.circles, tolerance) };
+  // The local-thickness picture: from the checks' engine when they built one; else, on grids small enough, from
+  // an engine at the picture's own resolution (two raster pixels per picture pixel; a picture, not a check).
+  const pictureThickness = () => {
+    if (morph) return morph.thicknessMap(THICKNESS_PICTURE_SIDE);
+    if (grid.values.length > THICKNESS_PICTURE_CELLS) return undefined;
+    const span = Math.max(domain[2] - domain[0], domain[3] - domain[1]);
+    return buildMorphology(final, { domain, pixel: Math.max(pixel, span / (2 * THICKNESS_PICTURE_SIDE)) }).thicknessMap(THICKNESS_PICTURE_SIDE);
+  };
   return {
     report,
     grid,
@@ -316,7 +318,8 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       polygons: final,
       domain,
       curve: levelCurve(grid),
-      thickness: morph !== undefined || grid.values.length <= THICKNESS_PICTURE_CELLS ? morphology().thicknessMap(THICKNESS_PICTURE_SIDE) : undefined,
+      ...(repair ? { beforeRepair: repair.before, repaired: repair.changed } : {}),
+      thickness: pictureThickness(),
     }),
   };
 }
