@@ -57,10 +57,13 @@ export function domainRing(d: RepairInput['domain']): Ring {
  * (Serra, "Image analysis and mathematical morphology", Academic Press 1982 — the textbook definition). The
  * result is the complement of the union of all discs of radius ρ in the void: every concave corner gets a fillet
  * of radius ρ and every void narrower than 2ρ is filled. Outside the domain is open space (no clipping here).
+ * The fillets are the erosion's round joins, polygonised within `fillet` mm; the dilation's arcs (at convex
+ * corners, which the erosion takes back) within the coarser `grow` mm — they only round the convex corners of
+ * the closing inward by up to `grow`, which the caller's union with the solid restores.
  */
-export function closing(set: PolygonSet, rho: number, arcTolerance: number, quantum: number): PolygonSet {
-  const grown = offsetRings(ringsOf(set), rho, { join: 'round', arcTolerance, quantum });
-  return offsetRings(ringsOf(grown), -rho, { join: 'round', arcTolerance, quantum });
+export function closing(set: PolygonSet, rho: number, grow: number, fillet: number, quantum: number): PolygonSet {
+  const grown = offsetRings(ringsOf(set), rho, { join: 'round', arcTolerance: grow, quantum });
+  return offsetRings(ringsOf(grown), -rho, { join: 'round', arcTolerance: fillet, quantum });
 }
 
 /** Mean thickness (mm) of a polygon, 2·area/perimeter: a needle left by rounding has almost none. */

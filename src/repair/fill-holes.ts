@@ -42,7 +42,7 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
     if (pts.count > 0) {
       const rho = L / 2 + marginOf(input, L / 2, true);
       const quantum = quantumOf(input.domain, rho);
-      const closed = closing(current, rho, arcToleranceOf(input, L / 2, true), quantum);
+      const closed = closing(current, rho, arcToleranceOf(input, L / 2), arcToleranceOf(input, L / 2, true), quantum);
       const unreachable = booleanOp('difference', ringsOf(closed), ringsOf(current), { quantum });
       const keep = thinOut(pts.x, pts.y, pts.count, input.pixel, input.domain[0], input.domain[1]);
       const order = keep.sort((a, b) => pts.x[a] - pts.x[b]);

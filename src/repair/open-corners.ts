@@ -26,7 +26,7 @@ export function openCorners(set: PolygonSet, input: RepairInput, morph: Morpholo
   if (survey.places.length === 0) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: null };
   const rho = R + marginOf(input, R, true);
   const quantum = quantumOf(input.domain, rho);
-  const closed = closing(set, rho, arcToleranceOf(input, R, true), quantum);
+  const closed = closing(set, rho, arcToleranceOf(input, R), arcToleranceOf(input, R, true), quantum);
   const added = addMaterial(set, ringsOf(closed), input, quantum);
   const locations = survey.places.map((p) => ({ x: p.x, y: p.y, measured: p.radius }));
   return { polygons: added.polygons, area: added.area, locations, changed: added.changed, skipped: null };

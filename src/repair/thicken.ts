@@ -7,7 +7,7 @@
  * Method: the counted medial samples of the solid (θ-simplified medial axis, θ ≥ 120°, exactly those the check
  * counts — Foskey, Lin & Manocha, "Efficient computation of a simplified medial axis", Proc. 8th ACM Symposium on
  * Solid Modeling and Applications, 2003, DOI 10.1145/781606.781623) whose local width is below L, thinned to one
- * per half-pixel square, each carry a disc of radius ρ = L/2 + δ (δ: common.ts marginOf); the discs of neighbouring
+ * per square of side max(pixel/2, ρ/4), each carry a disc of radius ρ = L/2 + δ (δ: common.ts marginOf); the discs of neighbouring
  * samples are joined by capsules (a smooth band, no scallops). The union is added to the solid. A disc whose
  * centre lies closer than ρ to the domain edge is moved inward until it fits (it still contains the sample's own
  * inscribed disc, whose radius is at most the distance to the edge), and the capsule from the sample to the moved
@@ -30,9 +30,12 @@ export function thicken(set: PolygonSet, input: RepairInput, morph: Morphology):
   const rho = L / 2 + marginOf(input, L / 2);
   const [x0, y0, x1, y1] = input.domain;
   const fit = (v: number, lo: number, hi: number): number => (hi - lo >= 2 * rho ? Math.min(hi - rho, Math.max(lo + rho, v)) : 0.5 * (lo + hi));
-  const keep = thinOut(pts.x, pts.y, pts.count, input.pixel / 2, x0, y0);
+  // one centre per square of side s = max(pixel/2, ρ/4): the capsules between neighbours make the band smooth
+  // whatever the spacing, and fewer, less overlapping capsules keep the union fast
+  const cell = Math.max(input.pixel / 2, rho / 4);
+  const keep = thinOut(pts.x, pts.y, pts.count, cell, x0, y0);
   const centres = keep.map((k): Point => [fit(pts.x[k], x0, x1), fit(pts.y[k], y0, y1)]);
-  const runs = chain(centres, input.pixel / 2, x0, y0);
+  const runs = chain(centres, cell, x0, y0);
   // near the domain edge: the capsule from the sample to its moved centre covers the sample's own disc (a wedge
   // tip on the edge) and, clipped to the domain, is 2ρ wide up to the edge
   keep.forEach((k, m) => {
