@@ -296,12 +296,12 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   }
   const writerInput = { polygons: final, domain, units: s.units, extras, ringCircles: circleRings(final, passiveExact?.ringCircles ?? [], s.circles, tolerance) };
   // The local-thickness picture: from the checks' engine when they built one; else, on grids small enough, from
-  // an engine at the picture's own resolution (two raster pixels per picture pixel; a picture, not a check).
+  // an engine at the picture's own resolution (one raster pixel per picture pixel; a picture, not a check).
   const pictureThickness = () => {
     if (morph) return morph.thicknessMap(THICKNESS_PICTURE_SIDE);
     if (grid.values.length > THICKNESS_PICTURE_CELLS) return undefined;
     const span = Math.max(domain[2] - domain[0], domain[3] - domain[1]);
-    return buildMorphology(final, { domain, pixel: Math.max(pixel, span / (2 * THICKNESS_PICTURE_SIDE)) }).thicknessMap(THICKNESS_PICTURE_SIDE);
+    return buildMorphology(final, { domain, pixel: Math.max(pixel, span / THICKNESS_PICTURE_SIDE) }).thicknessMap(THICKNESS_PICTURE_SIDE);
   };
   return {
     report,
