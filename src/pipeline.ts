@@ -123,7 +123,9 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   // --passive, first act: the samples they cover become 1 or 0, so the threshold and contours see them.
   // With --mirror the regions' mirror images are added, so a half model's bolt hole has a true-circle twin.
   const passive = more.passive ? mirrorPassive(more.passive, planes) : null;
-  const passiveCells = passive ? applyPassiveToGrid(grid, passive) : null;
+  const [chx, chy] = grid.cellSize;
+  const outlineTolerance = s.tolerance ?? 0.25 * Math.min(chx, chy);
+  const passiveCells = passive ? applyPassiveToGrid(grid, passive, { inset: Math.hypot(chx, chy) + outlineTolerance }) : null;
   if (passiveCells) grid = passiveCells.grid;
   const range = grid === prep.grid ? { min: prep.min, max: prep.max } : valueRange(grid.values);
   lap('prepare');

@@ -8,6 +8,7 @@
  * closed: a sample exactly on a primitive's boundary counts as inside (for polygons up to the rounding of the
  * crossing abscissa on slanted edges).
  */
+import { offsetRings } from '../geom/clipper.js';
 import type { DensityGrid } from '../types.js';
 import type { PassiveRegions, PassiveShape } from './types.js';
 
@@ -117,19 +118,45 @@ function forEachInside(shape: PassiveShape, f: Frame, mark: (k: number) => void)
 }
 
 /**
+ * The primitive shrunk by `inset` mm (its points at least `inset` from its boundary): a smaller circle or
+ * rectangle, or the inward offset of a polygon (possibly several pieces; src/geom/clipper.ts). Empty when
+ * nothing is left.
+ */
+export function insetShape(shape: PassiveShape, inset: number): PassiveShape[] {
+  if (!(inset > 0)) return [shape];
+  if (shape.kind === 'circle') return shape.r > inset ? [{ ...shape, r: shape.r - inset }] : [];
+  if (shape.kind === 'rect') {
+    const s = { kind: 'rect' as const, x0: shape.x0 + inset, y0: shape.y0 + inset, x1: shape.x1 - inset, y1: shape.y1 - inset };
+    return s.x0 < s.x1 && s.y0 < s.y1 ? [s] : [];
+  }
+  const inner = offsetRings([shape.points], -inset, { join: 'miter', arcTolerance: inset / 8 });
+  return inner.polygons.map((p) => ({ kind: 'polygon' as const, points: p.outer }));
+}
+
+/**
  * A new grid (the input is never modified) with the passive regions applied: samples inside a solid primitive
  * set to 1, inside a void primitive to 0, void winning over solid. Returns the counts of samples that ended up
  * solid by a passive region and that lie in a void one. Cost O(samples in the primitives' bounding boxes), plus
  * rows × edges for polygons; one byte per sample of scratch.
+ *
+ * `inset` (mm, default 0): only samples at least this far inside a primitive are set. The pipeline passes about
+ * a cell diagonal plus the outline tolerance, so that the contour of the set samples stays inside the primitive
+ * and the exact booleans after smoothing (src/passive/exact.ts) alone draw its edge: a void circle in material
+ * then comes out as exactly that circle, not the union of the circle and a contoured approximation of it.
  */
-export function applyPassiveToGrid(grid: DensityGrid, regions: PassiveRegions): { grid: DensityGrid; solidSamples: number; voidSamples: number } {
+export function applyPassiveToGrid(
+  grid: DensityGrid,
+  regions: PassiveRegions,
+  opts: { inset?: number } = {},
+): { grid: DensityGrid; solidSamples: number; voidSamples: number } {
+  const inset = opts.inset ?? 0;
   const values = new Float64Array(grid.values);
   if (regions.regions.length === 0) return { grid: { ...grid, values }, solidSamples: 0, voidSamples: 0 };
   const [hx, hy] = grid.cellSize;
   const f: Frame = { nx: grid.nx, ny: grid.ny, ox: grid.origin[0], oy: grid.origin[1], hx, hy, s: grid.placement === 'nodes' ? 0 : 0.5 };
   const role = new Uint8Array(values.length);
-  for (const r of regions.regions) if (r.role === 'solid') forEachInside(r.shape, f, (k) => (role[k] = SOLID));
-  for (const r of regions.regions) if (r.role === 'void') forEachInside(r.shape, f, (k) => (role[k] = VOID));
+  for (const r of regions.regions) if (r.role === 'solid') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = SOLID));
+  for (const r of regions.regions) if (r.role === 'void') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = VOID));
   let solidSamples = 0;
   let voidSamples = 0;
   for (let k = 0; k < role.length; k++) {
