@@ -7,7 +7,12 @@
  *
  * Approximation (a picture, not a measurement): each coarse pixel whose centre is solid starts at 2·d, twice
  * its own distance to the boundary (a disc centred on it — a lower bound of τ); then the discs of the solid
- * medial samples with separation angle ≥ 90° (at most one per coarse pixel, the largest) are painted with max.
+ * medial samples with separation angle ≥ 90° (at most one per coarse pixel, the largest) are painted with max;
+ * then the discs centred on the coarse ridge pixels of d (d not below both neighbours along a row, a column or
+ * a diagonal). The ridges cover the medial branches into convex corners of 90°–180° (separation angle below
+ * 90°, which the medial samples leave out): without them, a point near such a corner (where the part meets
+ * the domain edge at a blunt angle, say) would show its own small distance instead of the disc that holds it.
+ * Every disc painted lies inside the solid, so each step only raises a lower bound towards τ.
  * Coarse pixels whose centre is void are NaN.
  *
  * Frame: millimetres, y up; coarse pixel (i, j) covers [minX + i·s, minX + (i + 1)·s] × [minY + j·s, …] with
@@ -73,6 +78,39 @@ export function thicknessMap(
         if (cx * cx + cy * cy > r * r) continue;
         const q = j * cnx + i;
         if (values[q] < tau) values[q] = tau; // NaN (void) stays NaN
+      }
+    }
+  }
+  // discs on the ridges of the coarse distance d = values/2 (mm), read before any disc is painted
+  const d0 = new Float32Array(values.length);
+  for (let j = 0; j < cny; j++) {
+    for (let i = 0; i < cnx; i++) {
+      const p = fineOf(minX + (i + 0.5) * s, minY + (j + 0.5) * s);
+      d0[j * cnx + i] = phase[p] === 1 ? Math.min(field.dist[p], 1e30) * px : NaN;
+    }
+  }
+  const at = (i: number, j: number): number => (i < 0 || j < 0 || i >= cnx || j >= cny ? 0 : Number.isNaN(d0[j * cnx + i]) ? 0 : d0[j * cnx + i]);
+  const DIRS = [[1, 0], [0, 1], [1, 1], [1, -1]] as const;
+  for (let j = 0; j < cny; j++) {
+    for (let i = 0; i < cnx; i++) {
+      const r = d0[j * cnx + i];
+      if (!(r > s)) continue; // NaN (void) or a disc no wider than a coarse pixel: nothing to add
+      let ridge = false;
+      for (const [di, dj] of DIRS) if (r >= at(i - di, j - dj) && r >= at(i + di, j + dj)) ridge = true;
+      if (!ridge) continue;
+      const x = minX + (i + 0.5) * s;
+      const y = minY + (j + 0.5) * s;
+      const tau = 2 * r;
+      const ia = Math.max(0, Math.floor((x - r - minX) / s)), ib = Math.min(cnx - 1, Math.floor((x + r - minX) / s));
+      const ja = Math.max(0, Math.floor((y - r - minY) / s)), jb = Math.min(cny - 1, Math.floor((y + r - minY) / s));
+      for (let jj = ja; jj <= jb; jj++) {
+        const cy = minY + (jj + 0.5) * s - y;
+        for (let ii = ia; ii <= ib; ii++) {
+          const cx = minX + (ii + 0.5) * s - x;
+          if (cx * cx + cy * cy > r * r) continue;
+          const q = jj * cnx + ii;
+          if (values[q] < tau) values[q] = tau;
+        }
       }
     }
   }
