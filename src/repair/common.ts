@@ -96,11 +96,51 @@ export function addMaterial(set: PolygonSet, extra: readonly Ring[], input: Repa
   const needle = input.pixel * 1e-3;
   const kept = diff.polygons.filter((p) => meanThickness(p) > needle);
   if (kept.length === 0) return none;
-  const merged = cleanSet(unionRings([...solid, ...ringsOf(kept)], { quantum }), needle);
+  const merged = sealCracks(cleanSet(unionRings([...solid, ...ringsOf(kept)], { quantum }), needle), crackOf(input), quantum);
   const polygons = anchored(merged, set);
   // a floating bit dropped by anchored() is not part of the change
   const changed: PolygonSet = polygons === merged ? { polygons: kept } : booleanOp('difference', ringsOf(polygons), solid, { quantum });
   return { polygons, changed, area: polygonSetArea(polygons) - polygonSetArea(set) };
+}
+
+/** Half the width (mm) of the cracks sealCracks closes: pixel/4, so cracks up to pixel/2 wide (below the raster's resolution). */
+export function crackOf(input: Pick<RepairInput, 'pixel'>): number {
+  return input.pixel / 4;
+}
+
+/**
+ * Seals cracks: a closing by `eps` mm with miter joins (offset +eps then −eps, miter limit 10). Void narrower
+ * than 2·eps — a slit left where added material and the old outline meet up to a polygonised arc's chord
+ * error — is filled; corners (concave and convex, turning by less than about 170°) come back exactly, so
+ * nothing else changes. Only adds material (the closing contains the set).
+ */
+export function sealCracks(set: PolygonSet, eps: number, quantum: number): PolygonSet {
+  if (!(eps > 0) || set.polygons.length === 0) return set;
+  const grown = offsetRings(ringsOf(set), eps, { join: 'miter', miterLimit: 10, arcTolerance: eps, quantum });
+  const back = offsetRings(ringsOf(grown), -eps, { join: 'miter', miterLimit: 10, arcTolerance: eps, quantum });
+  // only the cracks themselves are added (pieces of real thickness), so rings away from them keep their vertices
+  const cracks = booleanOp('difference', ringsOf(back), ringsOf(set), { quantum }).polygons.filter((p) => meanThickness(p) > eps * 1e-3);
+  if (cracks.length === 0) return set;
+  return cleanSet(unionRings([...ringsOf(set), ...ringsOf(cracks)], { quantum }), eps * 1e-3);
+}
+
+/**
+ * Whether a point of a set lies in the material of p. Points: xs (sorted x, mm), their original indices
+ * `order`, and y by original index. Binary search on the bounding box's x range.
+ */
+export function holdsPoint(p: Polygon, xs: Float64Array, order: readonly number[], y: Float64Array): boolean {
+  const b = ringBounds(p.outer);
+  let lo = 0, hi = xs.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid] < b[0]) lo = mid + 1; else hi = mid;
+  }
+  for (let m = lo; m < xs.length && xs[m] <= b[2]; m++) {
+    const yy = y[order[m]];
+    if (yy < b[1] || yy > b[3]) continue;
+    if (inPiece(p, [xs[m], yy])) return true;
+  }
+  return false;
 }
 
 /** Whether point q lies in the material of polygon p (inside the outer ring, in none of its holes). */

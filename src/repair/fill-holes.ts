@@ -19,11 +19,10 @@
  */
 import { ringArea } from '../geom/area.js';
 import { booleanOp, ringsOf } from '../geom/clipper.js';
-import { ringBounds } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
 import type { Morphology } from '../morph/types.js';
 import type { Polygon, PolygonSet, Ring } from '../types.js';
-import { addMaterial, arcToleranceOf, closing, inPiece, marginOf, quantumOf } from './common.js';
+import { addMaterial, arcToleranceOf, closing, holdsPoint, marginOf, quantumOf } from './common.js';
 import { thinOut } from './thicken.js';
 import type { RepairInput, StepResult } from './types.js';
 
@@ -82,23 +81,4 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
     }
   }
   return { polygons: current, area, locations, changed: { polygons: changed }, skipped: null };
-}
-
-/**
- * Whether a point of the set lies in the material of p. Points: xs (sorted x, mm), their original indices
- * `order`, and y by original index. Binary search on the bounding box's x range.
- */
-function holdsPoint(p: Polygon, xs: Float64Array, order: readonly number[], y: Float64Array): boolean {
-  const b = ringBounds(p.outer);
-  let lo = 0, hi = xs.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid] < b[0]) lo = mid + 1; else hi = mid;
-  }
-  for (let m = lo; m < xs.length && xs[m] <= b[2]; m++) {
-    const yy = y[order[m]];
-    if (yy < b[1] || yy > b[3]) continue;
-    if (inPiece(p, [xs[m], yy])) return true;
-  }
-  return false;
 }
