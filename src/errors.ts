@@ -28,7 +28,6 @@ export type ErrorCode =
   | 'E_PASSIVE_JSON'
   | 'E_PASSIVE_FORMAT'
   | 'E_SUMMARY_FORMAT'
-  | 'E_SUMMARY_DUPLICATE'
   | 'E_INTERNAL';
 
 /** A position inside an input: text line/column (1-based) or a byte offset (0-based). */
