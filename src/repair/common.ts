@@ -164,28 +164,49 @@ export function anchored(after: PolygonSet, before: PolygonSet): PolygonSet {
   return keep.length === after.polygons.length ? after : { polygons: keep };
 }
 
-/** A ring without repeated consecutive vertices (the boolean engine may emit them; they are zero-length edges). */
-function cleanRing(r: Ring): Ring {
+/**
+ * A ring without repeated consecutive vertices (zero-length edges) and without needles: a vertex where the ring
+ * turns back on itself (the next edge runs back along the previous one, within `needle` mm of its line) is the
+ * tip of a spike of no area — the boolean engine leaves them where two outlines share an edge — and is removed,
+ * repeatedly (a stack walk, O(n)).
+ */
+function cleanRing(r: Ring, needle: number): Ring {
   const out: Point[] = [];
+  const spike = (a: Point, b: Point, c: Point): boolean => {
+    const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
+    if (ux * vx + uy * vy >= 0) return false;
+    const lu = Math.hypot(ux, uy), lv = Math.hypot(vx, vy);
+    return Math.abs(ux * vy - uy * vx) <= needle * Math.max(lu, lv);
+  };
   for (const p of r) {
     const q = out[out.length - 1];
-    if (!q || q[0] !== p[0] || q[1] !== p[1]) out.push(p);
+    if (q && q[0] === p[0] && q[1] === p[1]) continue;
+    out.push(p);
+    while (out.length >= 3 && spike(out[out.length - 3], out[out.length - 2], out[out.length - 1])) out.splice(out.length - 2, 1);
   }
-  while (out.length > 1 && out[0][0] === out[out.length - 1][0] && out[0][1] === out[out.length - 1][1]) out.pop();
+  // the seam: the last and first vertices
+  let changed = true;
+  while (changed && out.length >= 3) {
+    changed = false;
+    const n = out.length;
+    if (out[0][0] === out[n - 1][0] && out[0][1] === out[n - 1][1]) { out.pop(); changed = true; continue; }
+    if (spike(out[n - 2], out[n - 1], out[0])) { out.pop(); changed = true; continue; }
+    if (spike(out[n - 1], out[0], out[1])) { out.shift(); changed = true; }
+  }
   return out.length === r.length ? r : out;
 }
 
 /**
- * The set without zero-length edges; rings left with fewer than 3 vertices are dropped, and so are holes whose
+ * The set without zero-length edges and needles (cleanRing); rings left with fewer than 3 vertices are dropped, and so are holes whose
  * mean thickness 2·area/perimeter is below `needle` mm (slits left where added material meets the solid up to
  * rounding: they are filled, which only adds material).
  */
 export function cleanSet(set: PolygonSet, needle: number): PolygonSet {
   const polygons: Polygon[] = [];
   for (const p of set.polygons) {
-    const outer = cleanRing(p.outer);
+    const outer = cleanRing(p.outer, needle);
     if (outer.length < 3) continue;
-    const holes = p.holes.map(cleanRing).filter((h) => h.length >= 3 && (2 * Math.abs(ringArea(h))) / ringPerimeter(h) >= needle);
+    const holes = p.holes.map((h) => cleanRing(h, needle)).filter((h) => h.length >= 3 && (2 * Math.abs(ringArea(h))) / ringPerimeter(h) >= needle);
     polygons.push({ outer, holes });
   }
   return { polygons };
