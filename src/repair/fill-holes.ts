@@ -7,7 +7,7 @@
  * By width (limit L): the void the disc of radius ρ = L/2 + δ cannot enter is the closing of the solid by that
  * disc minus the solid (common.ts `closing`; outside the domain is open space). Of that region, only the
  * connected parts that hold a counted thin void sample (θ-simplified medial axis, the check's own samples with
- * local width < L — Foskey, Lin & Manocha 2003, DOI 10.1145/781606.781623) are added: a small round hole (its
+ * local width < L + pixel/2, the check's "too close to call" band included — Foskey, Lin & Manocha 2003, DOI 10.1145/781606.781623) are added: a small round hole (its
  * medial axis is its centre) fills whole, a narrow slot fills along its length with round ends of radius ρ where
  * it opens into wider void, and the 90° corners elsewhere (θ = 90°, not thin) are left alone. Filling the whole
  * unreachable part, rather than only the discs at the samples, leaves the remaining void a union of discs of
@@ -37,7 +37,9 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
   const changed: Polygon[] = [];
   const locations: { x: number; y: number; measured: number }[] = [];
   if (L !== null) {
-    const pts = morph.medial('void', L);
+    // the check warns within its resolution (pixel/2) of the limit: gaps in that band are filled too
+    const below = L + 0.5 * morph.pixel;
+    const pts = morph.medial('void', below);
     if (pts.count > 0) {
       const rho = L / 2 + marginOf(input, L / 2, true);
       const quantum = quantumOf(input.domain, rho);
@@ -53,7 +55,7 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
         area += added.area;
         changed.push(...added.changed.polygons);
       }
-      for (const p of morph.width('void', L).places) locations.push({ x: p.x, y: p.y, measured: p.width });
+      for (const p of morph.width('void', below).places) locations.push({ x: p.x, y: p.y, measured: p.width });
     }
   }
   if (A !== null) {

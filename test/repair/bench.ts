@@ -119,6 +119,12 @@ function props(): void {
     if (bad.some((c) => c.status === 'fail')) fail++;
     else if (bad.length) warn++;
     else pass++;
+    if (process.argv[3] === String(seed)) {
+      const spots = bad.flatMap((c) => c.locations);
+      spots.forEach((l, i) => writeFileSync(`/tmp/pcrop_${i}.svg`, cropSvg(part, out.polygons, l.x, l.y, Number(process.env.CROP ?? 3), spots)));
+      writeFileSync('/tmp/p_before.json', JSON.stringify(part));
+      writeFileSync('/tmp/p_after.json', JSON.stringify(out.polygons));
+    }
     if (bad.length) console.log(`seed ${seed}: ${bad.map((c) => `${c.id} ${c.status} ${c.measured?.toPrecision(3)} @${c.locations.slice(0, 3).map((l) => `${l.x.toFixed(1)},${l.y.toFixed(1)}`).join(' ')}`).join('; ')}`);
   }
   console.log(`props: ${pass} pass, ${warn} warn only, ${fail} fail of 36 (${Math.round(performance.now() - t)} ms)`);
