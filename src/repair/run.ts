@@ -21,10 +21,15 @@ import { dropIslands } from './drop-islands.js';
 import { fillHoles } from './fill-holes.js';
 import { openCorners } from './open-corners.js';
 import { thicken } from './thicken.js';
+import { clusterLocations } from './places.js';
+import { unresolvedOf } from './unresolved.js';
 import { REPAIR_CHECKS, type RepairAction, type RepairInput, type StepResult } from './types.js';
 
-/** At most this many rounds of all asked repairs. */
-export const MAX_ROUNDS = 3;
+/**
+ * At most this many rounds of all asked repairs. Measured on the random parts of test/repair/property.test.ts
+ * and the demo: every part that converges does so within four rounds; six leave room for a chain of two more.
+ */
+export const MAX_ROUNDS = 6;
 
 function step(id: RepairName, set: PolygonSet, input: RepairInput, morph: () => Morphology): StepResult {
   switch (id) {
@@ -43,7 +48,9 @@ function step(id: RepairName, set: PolygonSet, input: RepairInput, morph: () => 
  * Runs the repairs `ids` (any order and repeats; they run in REPAIR_IDS order) on `input.polygons` and returns
  * the repaired outline (outer rings CCW, holes CW, mm) and one action per asked repair, in that order.
  * A repair whose limit is off reports `skipped` and does nothing; an action's `area`, `locations` and `changed`
- * gather all its rounds (locations are measured on the geometry each round started from).
+ * gather all its rounds (locations are measured on the geometry each round started from, then merged to one per
+ * connected region the repair changed, with the worst value measured there: places.ts). `unresolved` says what
+ * its check would still find on the result, and why (unresolved.ts), or null.
  */
 export function runRepairs(ids: readonly RepairName[], input: RepairInput): { polygons: PolygonSet; actions: RepairAction[] } {
   if (!(input.pixel > 0) || !Number.isFinite(input.pixel)) throw new RangeError(`runRepairs: expected pixel > 0 mm, found ${input.pixel}`);
@@ -57,7 +64,9 @@ export function runRepairs(ids: readonly RepairName[], input: RepairInput): { po
     if (!morph || morph.of !== current) morph = { of: current, m: buildMorphology(current, { domain: input.domain, pixel: input.pixel }) };
     return morph.m;
   };
+  let rounds = 0;
   for (let round = 0; round < MAX_ROUNDS; round++) {
+    rounds = round + 1;
     let changedAny = false;
     for (const id of asked) {
       const r = step(id, current, input, morphology);
@@ -74,9 +83,18 @@ export function runRepairs(ids: readonly RepairName[], input: RepairInput): { po
   }
   const actions = asked.map((id): RepairAction => {
     const a = acc.get(id)!;
-    return { id, checks: [...REPAIR_CHECKS[id]], area: a.area, locations: a.locations, changed: merge(a.changed, id, input), skipped: a.skipped };
+    const changed = merge(a.changed, id, input);
+    const unresolved = a.skipped === null ? unresolvedOf(id, current, input, morphology(), rounds) : null;
+    return { id, checks: [...REPAIR_CHECKS[id]], area: a.area, locations: id === 'drop-islands' ? a.locations : clusterLocations(a.locations, changed, reachOf(id, input)), changed, skipped: a.skipped, unresolved };
   });
   return { polygons: current, actions };
+}
+
+/** How far (mm) from the material a repair added the place it measured can lie: its disc radius and a pixel. */
+function reachOf(id: RepairName, input: RepairInput): number {
+  const L = input.limits;
+  const r = id === 'thicken' ? (L.minMember ?? 0) / 2 : id === 'fill-holes' ? (L.minHole ?? 0) / 2 : id === 'open-corners' ? (L.toolRadius ?? 0) : 0;
+  return r + input.pixel;
 }
 
 /** The changed regions of several rounds as one set (a union for added material; removed pieces are disjoint). */

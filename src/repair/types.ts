@@ -47,15 +47,21 @@ export interface RepairAction {
   /** mm², signed: material added (+) or removed (−). */
   readonly area: number;
   /**
-   * Where it acted, worst first, measured before the repair: thin width (mm) for thicken; narrow width (mm)
-   * for fill-holes, then the holes filled for their area (measured = area, mm²); corner radius (mm) for
-   * open-corners; island area (mm²) for drop-islands.
+   * Where it acted, worst first, measured before the repair, one per connected region it changed (the worst
+   * value measured there): thin width (mm) for thicken; narrow width (mm) for fill-holes, or for a hole filled
+   * for its area the area (mm²); corner radius (mm) for open-corners; island area (mm²) for drop-islands.
    */
   readonly locations: { x: number; y: number; measured: number }[];
   /** The region added or removed (for the `repair` layer of DXF/SVG). */
   readonly changed: PolygonSet;
   /** Why it did nothing (no limit given), or null. */
   readonly skipped: string | null;
+  /**
+   * What its checks would still find on the repaired outline (before the pipeline re-applies symmetry and the
+   * passive regions) and the likely reason — "2 thin places still below 8 mm (thinnest 7.8 mm at x 99, y 70):
+   * beside a passive-void region, which the repairs never fill" — or null when nothing is left.
+   */
+  readonly unresolved: string | null;
 }
 
 /** The checks each repair answers (DESIGN §5). */

@@ -1,0 +1,83 @@
+/**
+ * What the repairs could not settle: after the last round, each asked repair's own survey runs once more on the
+ * result (the same measures as its check), and what is left is said in words — how many places, the worst one,
+ * where, and the likely reason.
+ *
+ * Frame: millimetres, y up, origin at the lower-left corner of the grid.
+ */
+import { joinedPieces } from '../check/islands.js';
+import { polygonArea, ringArea } from '../geom/area.js';
+import { ringContains } from '../geom/contains.js';
+import type { Morphology } from '../morph/types.js';
+import type { RepairName } from '../settings.js';
+import type { PolygonSet, Ring } from '../types.js';
+import type { RepairInput } from './types.js';
+
+const fmt = (v: number): string => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(2));
+
+/** Distance (mm) from (x, y) to the nearest passive-void ring's boundary (Infinity without any). */
+function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
+  let best = Infinity;
+  for (const r of voids) {
+    if (ringContains(r, [x, y]) > 0) return 0;
+    for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
+      const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
+      const l2 = ex * ex + ey * ey;
+      let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
+      t = t < 0 ? 0 : t > 1 ? 1 : t;
+      best = Math.min(best, Math.hypot(x - ax - t * ex, y - ay - t * ey));
+    }
+  }
+  return best;
+}
+
+/** The likely reason a place of size limit `limit` (mm) at (x, y) stayed. */
+function why(x: number, y: number, limit: number, input: RepairInput, rounds: number): string {
+  if (nearVoid(x, y, input.passiveVoid) < limit) return 'beside a passive-void region, which the repairs never fill';
+  return `the repairs of neighbouring places undid each other within ${rounds} rounds`;
+}
+
+/**
+ * The unresolved text of repair `id` on the final outline `set` (its morphology `morph`), or null when its
+ * survey finds nothing left. `rounds`: how many rounds ran.
+ */
+export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput, morph: Morphology, rounds: number): string | null {
+  const L = input.limits;
+  if (id === 'thicken' && L.minMember !== null) {
+    const s = morph.width('solid', L.minMember);
+    if (s.places.length === 0) return null;
+    const p = s.places[0];
+    return `${s.places.length} thin place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minMember)} mm (thinnest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minMember, input, rounds)}`;
+  }
+  if (id === 'fill-holes') {
+    const parts: string[] = [];
+    if (L.minHole !== null) {
+      const s = morph.width('void', L.minHole);
+      if (s.places.length > 0) {
+        const p = s.places[0];
+        parts.push(`${s.places.length} narrow place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minHole)} mm (narrowest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minHole, input, rounds)}`);
+      }
+    }
+    if (L.minHoleArea !== null) {
+      let n = 0;
+      for (const p of set.polygons) for (const h of p.holes) if (Math.abs(ringArea(h)) < L.minHoleArea) n++;
+      if (n > 0) parts.push(`${n} hole${n === 1 ? '' : 's'} still below ${fmt(L.minHoleArea)} mm²: passive-void regions, which the repairs never fill`);
+    }
+    return parts.length ? parts.join('; ') : null;
+  }
+  if (id === 'open-corners' && L.toolRadius !== null) {
+    const s = morph.corners(L.toolRadius, Math.max(input.tolerance, 0.05 * L.toolRadius));
+    if (s.places.length === 0) return null;
+    const p = s.places[0];
+    return `${s.places.length} corner${s.places.length === 1 ? '' : 's'} still tighter than ${fmt(L.toolRadius)} mm (tightest ${fmt(p.radius)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, 2 * L.toolRadius, input, rounds)}`;
+  }
+  if (id === 'drop-islands') {
+    const areas = new Float64Array(set.polygons.length);
+    set.polygons.forEach((p, k) => (areas[k] = polygonArea(p)));
+    const joined = joinedPieces(set, areas, input.passiveSolid);
+    let n = 0;
+    for (let k = 0; k < areas.length; k++) if (!joined[k] && areas[k] > L.minIslandArea) n++;
+    return n > 0 ? `${n} island${n === 1 ? '' : 's'} left` : null;
+  }
+  return null;
+}
