@@ -182,7 +182,11 @@ function cleanRing(r: Ring, needle: number): Ring {
     const q = out[out.length - 1];
     if (q && q[0] === p[0] && q[1] === p[1]) continue;
     out.push(p);
-    while (out.length >= 3 && spike(out[out.length - 3], out[out.length - 2], out[out.length - 1])) out.splice(out.length - 2, 1);
+    while (out.length >= 3 && spike(out[out.length - 3], out[out.length - 2], out[out.length - 1])) {
+      out.splice(out.length - 2, 1);
+      const a = out[out.length - 2], b = out[out.length - 1];
+      if (a[0] === b[0] && a[1] === b[1]) out.pop(); // the needle's base came back to where it left
+    }
   }
   // the seam: the last and first vertices
   let changed = true;
