@@ -65,6 +65,7 @@ export function runRepairs(ids: readonly RepairName[], input: RepairInput): { po
     return morph.m;
   };
   let rounds = 0;
+  let settled = false;
   for (let round = 0; round < MAX_ROUNDS; round++) {
     rounds = round + 1;
     let changedAny = false;
@@ -79,12 +80,15 @@ export function runRepairs(ids: readonly RepairName[], input: RepairInput): { po
       current = r.polygons;
       changedAny = true;
     }
-    if (!changedAny) break;
+    if (!changedAny) {
+      settled = true;
+      break;
+    }
   }
   const actions = asked.map((id): RepairAction => {
     const a = acc.get(id)!;
     const changed = merge(a.changed, id, input);
-    const unresolved = a.skipped === null ? unresolvedOf(id, current, input, morphology(), rounds) : null;
+    const unresolved = a.skipped === null ? unresolvedOf(id, current, input, morphology(), rounds, settled) : null;
     return { id, checks: [...REPAIR_CHECKS[id]], area: a.area, locations: id === 'drop-islands' ? a.locations : clusterLocations(a.locations, changed, reachOf(id, input)), changed, skipped: a.skipped, unresolved };
   });
   return { polygons: current, actions };

@@ -31,23 +31,27 @@ function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
   return best;
 }
 
-/** The likely reason a place of size limit `limit` (mm) at (x, y) stayed. */
-function why(x: number, y: number, limit: number, input: RepairInput, rounds: number): string {
+/**
+ * The likely reason a place of size limit `limit` (mm) at (x, y) stayed. `settled`: the last round changed
+ * nothing (the repair found nothing to do there), else the rounds ran out.
+ */
+function why(x: number, y: number, limit: number, input: RepairInput, rounds: number, settled: boolean): string {
   if (nearVoid(x, y, input.passiveVoid) < limit) return 'beside a passive-void region, which the repairs never fill';
-  return `the repairs of neighbouring places undid each other within ${rounds} rounds`;
+  if (settled) return 'the repair finds nothing to add there (a neck beside a sharp convex corner that a larger disc passes, or a place on the domain edge)';
+  return `the repairs of neighbouring places still undid each other after ${rounds} rounds`;
 }
 
 /**
  * The unresolved text of repair `id` on the final outline `set` (its morphology `morph`), or null when its
- * survey finds nothing left. `rounds`: how many rounds ran.
+ * survey finds nothing left. `rounds`: how many rounds ran; `settled`: whether the last one changed nothing.
  */
-export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput, morph: Morphology, rounds: number): string | null {
+export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput, morph: Morphology, rounds: number, settled: boolean): string | null {
   const L = input.limits;
   if (id === 'thicken' && L.minMember !== null) {
     const s = morph.width('solid', L.minMember);
     if (s.places.length === 0) return null;
     const p = s.places[0];
-    return `${s.places.length} thin place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minMember)} mm (thinnest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minMember, input, rounds)}`;
+    return `${s.places.length} thin place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minMember)} mm (thinnest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minMember, input, rounds, settled)}`;
   }
   if (id === 'fill-holes') {
     const parts: string[] = [];
@@ -55,7 +59,7 @@ export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput
       const s = morph.width('void', L.minHole);
       if (s.places.length > 0) {
         const p = s.places[0];
-        parts.push(`${s.places.length} narrow place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minHole)} mm (narrowest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minHole, input, rounds)}`);
+        parts.push(`${s.places.length} narrow place${s.places.length === 1 ? '' : 's'} still below ${fmt(L.minHole)} mm (narrowest ${fmt(p.width)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, L.minHole, input, rounds, settled)}`);
       }
     }
     if (L.minHoleArea !== null) {
@@ -69,7 +73,7 @@ export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput
     const s = morph.corners(L.toolRadius, Math.max(input.tolerance, 0.05 * L.toolRadius));
     if (s.places.length === 0) return null;
     const p = s.places[0];
-    return `${s.places.length} corner${s.places.length === 1 ? '' : 's'} still tighter than ${fmt(L.toolRadius)} mm (tightest ${fmt(p.radius)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, 2 * L.toolRadius, input, rounds)}`;
+    return `${s.places.length} corner${s.places.length === 1 ? '' : 's'} still tighter than ${fmt(L.toolRadius)} mm (tightest ${fmt(p.radius)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, 2 * L.toolRadius, input, rounds, settled)}`;
   }
   if (id === 'drop-islands') {
     const areas = new Float64Array(set.polygons.length);

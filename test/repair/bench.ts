@@ -1,5 +1,5 @@
 /**
- * Repair benchmark and convergence probe (not a test): `npx tsc -p tsconfig.json --outDir /tmp/rb &&
+ * Repair benchmark and convergence probe (not a test), run from the package root: `npx tsc -p tsconfig.json --outDir /tmp/rb &&
  * node /tmp/rb/test/repair/bench.js [demo|plate|props] …`.
  * - demo: the bundled demo through build() (all four repairs), the repair stage's time and the re-check;
  * - plate [cols rows]: the bench plate (test/bench/plate.ts, 1 mm cells) contoured and smoothed as in
