@@ -139,7 +139,7 @@ export function repairStage(input: RepairStageInput): RepairStageResult {
   const byId = new Map<RepairName, RepairAction>(run.actions.map((a) => [a.id, a]));
   const records: RepairRecord[] = input.settings.repair.map((id) => {
     const a = byId.get(id);
-    if (!a) return { id, area: 0, locations: [], checks: [...REPAIR_CHECKS[id]], skipped: offReason(id, plannedIds) ?? 'not run', locationsTotal: 0 };
+    if (!a) return { id, area: 0, locations: [], checks: [...REPAIR_CHECKS[id]], skipped: offReason(id, plannedIds) ?? 'not run', locationsTotal: 0, unresolved: null };
     return {
       id,
       area: a.area,
@@ -147,6 +147,7 @@ export function repairStage(input: RepairStageInput): RepairStageResult {
       checks: [...a.checks],
       skipped: a.skipped,
       locationsTotal: a.locations.length,
+      unresolved: a.unresolved,
     };
   });
   const finished = finishOutline(run.polygons, input.planes, input.passive, input.domain, input.tolerance);

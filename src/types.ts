@@ -54,6 +54,8 @@ export interface RepairRecord {
   skipped: string | null;
   /** Additive: the number of places it acted on (locations may be capped). */
   locationsTotal: number;
+  /** Additive: what this repair could not fix and why (count, worst value, where, reason), or null. */
+  unresolved: string | null;
 }
 
 /** A located finding or repair, in the report frame (mm, y up) and as a 1-based file position. */

@@ -119,7 +119,7 @@ function repairsSection(r: Report): string {
     (p, k) =>
       `<tr id="repair-${k + 1}"><td class="n">R${k + 1}</td><td class="id">${e(p.id)}</td><td>${e(p.checks.join(', '))}</td>` +
       `<td class="n">${p.skipped === null ? `${e(fmt(p.area, 5))} mm²` : '–'}</td><td class="n">${p.skipped === null ? p.locationsTotal : 0}</td>` +
-      `<td>${p.skipped === null ? 'repaired' : e(`did nothing: ${p.skipped}`)}</td></tr>`,
+      `<td>${p.skipped !== null ? e(`did nothing: ${p.skipped}`) : p.unresolved ? e(`not repaired: ${p.unresolved}`) : 'repaired'}</td></tr>`,
   );
   const f = r.finishing;
   const note = f

@@ -162,6 +162,7 @@ function repairRows(r: Report, c: boolean): string[] {
         ? `did nothing: ${x.skipped}`
         : `${x.locationsTotal} place${x.locationsTotal === 1 ? '' : 's'}, area ${signed(x.area)} mm² (for ${x.checks.join(', ')})`;
     out.push(...wrap(text, TEXT_WIDTH, ' '.repeat(visible(head)), head));
+    if (x.unresolved) out.push(...wrap(`not repaired: ${x.unresolved}`, TEXT_WIDTH, ' '.repeat(visible(head) + 2), ' '.repeat(visible(head))));
   }
   return out;
 }

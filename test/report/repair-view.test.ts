@@ -17,8 +17,9 @@ function repaired(): Report {
     checks: after,
     checksBeforeRepair: sampleChecks(),
     repairs: [
-      { id: 'thicken', area: 41.5, locations: [loc(12.5, 40.25, 1.52), loc(30, 10, 1.61)], checks: ['min-member-size'], skipped: null, locationsTotal: 2 },
-      { id: 'open-corners', area: 0, locations: [], checks: ['min-inner-radius'], skipped: 'its check min-inner-radius is off (no limit, or --severity …=off)', locationsTotal: 0 },
+      { id: 'thicken', area: 41.5, locations: [loc(12.5, 40.25, 1.52), loc(30, 10, 1.61)], checks: ['min-member-size'], skipped: null, locationsTotal: 2, unresolved: null },
+      { id: 'open-corners', area: 0, locations: [], checks: ['min-inner-radius'], skipped: 'its check min-inner-radius is off (no limit, or --severity …=off)', locationsTotal: 0, unresolved: null },
+      { id: 'fill-holes', area: 3, locations: [loc(60, 20, 2.98)], checks: ['min-hole-size', 'small-holes'], skipped: null, locationsTotal: 1, unresolved: '1 narrow place of 2.98 mm at x 60 y 20 mm beside a passive void' },
     ],
     finishing: { areaChange: 41.5, fractionChange: 41.5 / 7200, maxDeviation: 1.1 },
   });
@@ -47,6 +48,7 @@ describe('text report of a repaired run', () => {
   it('one row per repair: places and area, or why it did nothing', () => {
     expect(text).toMatch(/REPAIR {2}thicken {7}2 places, area \+41\.5 mm² \(for min-member-size\)/);
     expect(text).toMatch(/REPAIR {2}open-corners {2}did nothing: its check min-inner-radius is off/);
+    expect(text).toMatch(/REPAIR {2}fill-holes {4}1 place, area \+3 mm² .*\n\s+not repaired: 1 narrow place of 2\.98 mm at x 60 y 20 mm beside a passive\s+void/);
   });
 
   it('states the change after smoothing as reported, not checked', () => {
@@ -80,6 +82,7 @@ describe('HTML report of a repaired run', () => {
   it('has the repairs table with ids R1, R2 and the before-repair column in the checks table', () => {
     expect(html).toMatch(/<tr id="repair-1">.*?R1.*?thicken/s);
     expect(html).toMatch(/<tr id="repair-2">.*?did nothing/s);
+    expect(html).toMatch(/<tr id="repair-3">.*?not repaired: 1 narrow place/s);
     expect(html).toMatch(/<th>before repair<\/th>/);
     // the member check row shows FAIL before and PASS now
     const row = /<tr class="pass"><td><span class="badge pass">PASS<\/span><\/td><td class="id">min-member-size<\/td><td class="n">(.*?)<\/td>/.exec(html);
