@@ -156,6 +156,10 @@ export function applyPassiveToGrid(
   const f: Frame = { nx: grid.nx, ny: grid.ny, ox: grid.origin[0], oy: grid.origin[1], hx, hy, s: grid.placement === 'nodes' ? 0 : 0.5 };
   const role = new Uint8Array(values.length);
   for (const r of regions.regions) if (r.role === 'solid') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = SOLID));
+  // Void wins: a sample anywhere in a void primitive is never set solid, deep or not (with an inset, the
+  // samples near its edge keep their own value rather than the pad's 1).
+  const BLOCKED = 3;
+  if (inset > 0) for (const r of regions.regions) if (r.role === 'void') forEachInside(r.shape, f, (k) => (role[k] = role[k] === SOLID ? BLOCKED : role[k]));
   for (const r of regions.regions) if (r.role === 'void') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = VOID));
   let solidSamples = 0;
   let voidSamples = 0;

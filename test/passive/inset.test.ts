@@ -34,6 +34,30 @@ describe('passive cells with an inset (only samples deep inside a primitive are 
     expect([Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)]).toEqual([2, 8, 2, 8]);
   });
 
+  it('void still wins: no sample inside a void primitive is set solid, even where only the solid one is deep', () => {
+    const g = grid(100, 0.5); // 50 × 50 mm, all 0.5
+    const bolt = { cx: 25, cy: 25, r: 5 };
+    const out = applyPassiveToGrid(
+      g,
+      {
+        regions: [
+          { role: 'solid', shape: { kind: 'circle', cx: 25, cy: 25, r: 15 }, name: 'boss', path: 'regions[0]' },
+          { role: 'void', shape: { kind: 'circle', ...bolt }, name: 'bolt', path: 'regions[1]' },
+        ],
+      },
+      { inset: 1 },
+    );
+    for (let j = 0; j < 100; j++) {
+      for (let i = 0; i < 100; i++) {
+        const d = Math.hypot((i + 0.5) * 0.5 - 25, (j + 0.5) * 0.5 - 25);
+        const v = out.grid.values[j * 100 + i];
+        if (d <= bolt.r) expect(v).not.toBe(1); // geometric fact: inside the bolt hole
+        if (d <= bolt.r - 1) expect(v).toBe(0); // deep in the hole
+        if (d > bolt.r && d <= 15 - 1) expect(v).toBe(1); // deep in the boss, outside the hole
+      }
+    }
+  });
+
   it('inset 0 is the plain rule', () => {
     const g = grid(50, 1);
     const region = { regions: [{ role: 'solid' as const, shape: { kind: 'circle' as const, cx: 25, cy: 25, r: 10 }, name: null, path: 'r' }] };
