@@ -62,6 +62,10 @@ export function thicknessMap(
     const c = j * cnx + i;
     if (pick[c] < 0 || samples.r[k] > samples.r[pick[c]]) pick[c] = k;
   }
+  // the disc that set each pixel's value (centre mm, radius mm; radius 0 = only the pixel's own disc)
+  const pX = new Float32Array(cnx * cny);
+  const pY = new Float32Array(cnx * cny);
+  const pR = new Float32Array(cnx * cny);
   for (let c = 0; c < pick.length; c++) {
     const k = pick[c];
     if (k < 0) continue;
@@ -77,7 +81,12 @@ export function thicknessMap(
         const cx = minX + (i + 0.5) * s - x;
         if (cx * cx + cy * cy > r * r) continue;
         const q = j * cnx + i;
-        if (values[q] < tau) values[q] = tau; // NaN (void) stays NaN
+        if (values[q] < tau) {
+          values[q] = tau; // NaN (void) stays NaN
+          pX[q] = x;
+          pY[q] = y;
+          pR[q] = r;
+        }
       }
     }
   }
@@ -91,6 +100,7 @@ export function thicknessMap(
   }
   const at = (i: number, j: number): number => (i < 0 || j < 0 || i >= cnx || j >= cny ? 0 : Number.isNaN(d0[j * cnx + i]) ? 0 : d0[j * cnx + i]);
   const DIRS = [[1, 0], [0, 1], [1, 1], [1, -1]] as const;
+  const ridges: number[] = [];
   for (let j = 0; j < cny; j++) {
     for (let i = 0; i < cnx; i++) {
       const r = d0[j * cnx + i];
@@ -98,18 +108,45 @@ export function thicknessMap(
       let ridge = false;
       for (const [di, dj] of DIRS) if (r >= at(i - di, j - dj) && r >= at(i + di, j + dj)) ridge = true;
       if (!ridge) continue;
-      const x = minX + (i + 0.5) * s;
-      const y = minY + (j + 0.5) * s;
-      const tau = 2 * r;
-      const ia = Math.max(0, Math.floor((x - r - minX) / s)), ib = Math.min(cnx - 1, Math.floor((x + r - minX) / s));
-      const ja = Math.max(0, Math.floor((y - r - minY) / s)), jb = Math.min(cny - 1, Math.floor((y + r - minY) / s));
-      for (let jj = ja; jj <= jb; jj++) {
-        const cy = minY + (jj + 0.5) * s - y;
-        for (let ii = ia; ii <= ib; ii++) {
-          const cx = minX + (ii + 0.5) * s - x;
-          if (cx * cx + cy * cy > r * r) continue;
-          const q = jj * cnx + ii;
-          if (values[q] < tau) values[q] = tau;
+      // a ridge on the counted medial axis was painted by its medial sample already
+      let nearSample = false;
+      for (let dj = -1; dj <= 1 && !nearSample; dj++) {
+        for (let di = -1; di <= 1; di++) {
+          const ii = i + di, jj = j + dj;
+          if (ii >= 0 && jj >= 0 && ii < cnx && jj < cny && pick[jj * cnx + ii] >= 0) {
+            nearSample = true;
+            break;
+          }
+        }
+      }
+      if (!nearSample) ridges.push(j * cnx + i);
+    }
+  }
+  // largest first, and a disc inside the one that already painted its centre adds nothing (to a pixel's slack):
+  // this skips the many ridges of the discrete distance near smooth convex boundaries, which lie inside the
+  // medial discs there, and keeps the corner branches, whose centres only their own small discs reach
+  ridges.sort((a, b) => d0[b] - d0[a]);
+  for (const c of ridges) {
+    const r = d0[c];
+    const i = c % cnx;
+    const j = (c - i) / cnx;
+    const x = minX + (i + 0.5) * s;
+    const y = minY + (j + 0.5) * s;
+    if (pR[c] > 0 && Math.hypot(x - pX[c], y - pY[c]) + r <= pR[c] + s) continue;
+    const tau = 2 * r;
+    const ia = Math.max(0, Math.floor((x - r - minX) / s)), ib = Math.min(cnx - 1, Math.floor((x + r - minX) / s));
+    const ja = Math.max(0, Math.floor((y - r - minY) / s)), jb = Math.min(cny - 1, Math.floor((y + r - minY) / s));
+    for (let jj = ja; jj <= jb; jj++) {
+      const cy = minY + (jj + 0.5) * s - y;
+      for (let ii = ia; ii <= ib; ii++) {
+        const cx = minX + (ii + 0.5) * s - x;
+        if (cx * cx + cy * cy > r * r) continue;
+        const q = jj * cnx + ii;
+        if (values[q] < tau) {
+          values[q] = tau;
+          pX[q] = x;
+          pY[q] = y;
+          pR[q] = r;
         }
       }
     }
