@@ -42,8 +42,8 @@ const JOIN: Record<JoinKind, clipperLib.JoinType> = {
   square: clipperLib.JoinType.Square,
 };
 
-/** The largest |coordinate| over some rings (mm). */
-function extentOf(groups: readonly (readonly (readonly Point[])[])[]): number {
+/** The largest |coordinate| over some groups of rings or polylines (mm); 0 when there are none. */
+export function extentOf(groups: readonly (readonly (readonly Point[])[])[]): number {
   let m = 0;
   for (const rings of groups) {
     for (const r of rings) {

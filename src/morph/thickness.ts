@@ -66,12 +66,8 @@ export function thicknessMap(
   const pX = new Float32Array(cnx * cny);
   const pY = new Float32Array(cnx * cny);
   const pR = new Float32Array(cnx * cny);
-  for (let c = 0; c < pick.length; c++) {
-    const k = pick[c];
-    if (k < 0) continue;
-    const x = frame.x0 + (samples.x[k] + 0.5) * px;
-    const y = frame.y0 + (samples.y[k] + 0.5) * px;
-    const r = samples.r[k] * px;
+  /** Raise every coarse pixel whose centre the disc (x, y, r) (mm) covers to τ = 2r; NaN (void) stays NaN. */
+  const paint = (x: number, y: number, r: number): void => {
     const tau = 2 * r;
     const ia = Math.max(0, Math.floor((x - r - minX) / s)), ib = Math.min(cnx - 1, Math.floor((x + r - minX) / s));
     const ja = Math.max(0, Math.floor((y - r - minY) / s)), jb = Math.min(cny - 1, Math.floor((y + r - minY) / s));
@@ -82,13 +78,21 @@ export function thicknessMap(
         if (cx * cx + cy * cy > r * r) continue;
         const q = j * cnx + i;
         if (values[q] < tau) {
-          values[q] = tau; // NaN (void) stays NaN
+          values[q] = tau;
           pX[q] = x;
           pY[q] = y;
           pR[q] = r;
         }
       }
     }
+  };
+  for (let c = 0; c < pick.length; c++) {
+    const k = pick[c];
+    if (k < 0) continue;
+    const x = frame.x0 + (samples.x[k] + 0.5) * px;
+    const y = frame.y0 + (samples.y[k] + 0.5) * px;
+    const r = samples.r[k] * px;
+    paint(x, y, r);
   }
   // discs on the ridges of the coarse distance d = values/2 (mm), read before any disc is painted
   const d0 = new Float32Array(values.length);
@@ -133,23 +137,7 @@ export function thicknessMap(
     const x = minX + (i + 0.5) * s;
     const y = minY + (j + 0.5) * s;
     if (pR[c] > 0 && Math.hypot(x - pX[c], y - pY[c]) + r <= pR[c] + s) continue;
-    const tau = 2 * r;
-    const ia = Math.max(0, Math.floor((x - r - minX) / s)), ib = Math.min(cnx - 1, Math.floor((x + r - minX) / s));
-    const ja = Math.max(0, Math.floor((y - r - minY) / s)), jb = Math.min(cny - 1, Math.floor((y + r - minY) / s));
-    for (let jj = ja; jj <= jb; jj++) {
-      const cy = minY + (jj + 0.5) * s - y;
-      for (let ii = ia; ii <= ib; ii++) {
-        const cx = minX + (ii + 0.5) * s - x;
-        if (cx * cx + cy * cy > r * r) continue;
-        const q = jj * cnx + ii;
-        if (values[q] < tau) {
-          values[q] = tau;
-          pX[q] = x;
-          pY[q] = y;
-          pR[q] = r;
-        }
-      }
-    }
+    paint(x, y, r);
   }
   return { nx: cnx, ny: cny, domain: [minX, minY, minX + cnx * s, minY + cny * s], values };
 }

@@ -19,7 +19,7 @@
  * counter-clockwise, holes clockwise.
  */
 import { circleSegments } from '../geom/circle.js';
-import { booleanOp, quantumFor, ringsOf } from '../geom/clipper.js';
+import { booleanOp, extentOf, quantumFor, ringsOf } from '../geom/clipper.js';
 import { RhoformError } from '../errors.js';
 import type { Point, PolygonSet, Ring } from '../types.js';
 import type { RingCircle } from '../write/types.js';
@@ -34,20 +34,6 @@ export interface PassiveExactResult {
   readonly ringCircles: RingCircle[];
   /** The solid primitives as counter-clockwise rings (mm, not clipped to the domain), as used in the union. */
   readonly solidRings: Ring[];
-}
-
-/** The largest |coordinate| (mm) over some rings. */
-function extentOf(rings: readonly Ring[], start: number): number {
-  let m = start;
-  for (const r of rings) {
-    for (const p of r) {
-      const a = Math.abs(p[0]);
-      const b = Math.abs(p[1]);
-      if (a > m) m = a;
-      if (b > m) m = b;
-    }
-  }
-  return m;
 }
 
 interface CircleRef {
@@ -103,7 +89,7 @@ export function applyPassiveExact(
     [x0, y1],
   ];
   const partRings = ringsOf(set);
-  const extent = extentOf(voidRings, extentOf(solidRings, extentOf(partRings, extentOf([box], 0))));
+  const extent = extentOf([voidRings, solidRings, partRings, [box]]);
   const quantum = quantumFor(extent);
 
   let result = solidRings.length > 0 ? booleanOp('union', partRings, solidRings, { quantum }) : set;
