@@ -1,3 +1,4 @@
+import { missingImage } from '../support/mirror-image.js';
 import { describe, expect, it } from 'vitest';
 import type { MirrorPlane } from '../../src/field/mirror.js';
 import { symmetricArea, symmetrize } from '../../src/geom/symmetry.js';
@@ -66,23 +67,9 @@ const vertices = (s: PolygonSet): Point[] => s.polygons.flatMap((p) => [p.outer,
 
 /** Every vertex has its image under `map` among the vertices, within `tol` mm. */
 function expectInvariant(s: PolygonSet, map: (v: Point) => Point, tol = 1e-9): void {
-  const vs = vertices(s);
-  expect(vs.length).toBeGreaterThan(0);
-  const sorted = [...vs].sort((a, b) => a[0] - b[0]);
-  for (const v of vs) {
-    const w = map(v);
-    // binary search on x, then scan the neighbours within tol
-    let lo = 0;
-    let hi = sorted.length;
-    while (lo < hi) {
-      const m = (lo + hi) >> 1;
-      if (sorted[m][0] < w[0] - tol) lo = m + 1;
-      else hi = m;
-    }
-    let found = false;
-    for (let k = lo; k < sorted.length && sorted[k][0] <= w[0] + tol; k++) if (Math.abs(sorted[k][1] - w[1]) <= tol) found = true;
-    if (!found) throw new Error(`vertex (${v[0]}, ${v[1]}) has no mirror image near (${w[0]}, ${w[1]})`);
-  }
+  expect(vertices(s).length).toBeGreaterThan(0);
+  const miss = missingImage(s, map, tol);
+  if (miss) throw new Error(`vertex (${miss.v[0]}, ${miss.v[1]}) has no mirror image near (${miss.w[0]}, ${miss.w[1]})`);
 }
 
 function expectOriented(s: PolygonSet): void {

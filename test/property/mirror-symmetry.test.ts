@@ -14,6 +14,7 @@
  * Sources: analytic reflection (x ↦ 2a − x); the count argument above; the boolean engine's rounding bound
  * (src/geom/clipper.ts: vertices on a lattice of q = 2^⌈log2(2·extent / 2^29)⌉ mm).
  */
+import { missingImage } from '../support/mirror-image.js';
 import { describe, expect, it } from 'vitest';
 import { contourGrid } from '../../src/contour/index.js';
 import { gridDomain } from '../../src/field/mean.js';
@@ -34,22 +35,7 @@ const perimeter = (s: PolygonSet) =>
 
 /** Every vertex has its image under `map` among the vertices, within `tol` mm. */
 function mirrorInvariant(s: PolygonSet, map: (v: Point) => Point, tol: number): boolean {
-  const vs = rings(s).flat();
-  const sorted = [...vs].sort((a, b) => a[0] - b[0]);
-  for (const v of vs) {
-    const w = map(v);
-    let lo = 0;
-    let hi = sorted.length;
-    while (lo < hi) {
-      const m = (lo + hi) >> 1;
-      if (sorted[m][0] < w[0] - tol) lo = m + 1;
-      else hi = m;
-    }
-    let ok = false;
-    for (let k = lo; k < sorted.length && sorted[k][0] <= w[0] + tol; k++) if (Math.abs(sorted[k][1] - w[1]) <= tol) ok = true;
-    if (!ok) return false;
-  }
-  return true;
+  return missingImage(s, map, tol) === null;
 }
 
 /** Smoothed pieces that do not cross a plane but come within `reach` mm of it (their nearest point is a vertex). */
