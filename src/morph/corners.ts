@@ -20,6 +20,12 @@
  *    — centred on the void-side normal at f, found by bisection on the radius against the exact segments. The
  *    corner's radius is the smallest over its points, capped at R; a sharp vertex gives 0, a fillet of radius
  *    ρ < R gives ρ, a slot narrower than 2R gives its half-width (uncut too: correct for a milling tool).
+ * 5. A fillet reaches us as a polygon (vertices on the arc). Taken literally, the largest disc tangent to a chord
+ *    at a point a from a vertex turning by Δ has radius ≈ 2a/Δ, far below ρ near every vertex; so the radius
+ *    search treats vertices turning by less than 15° as points of a smooth curve: the normal at f is blended
+ *    between the end vertices' bisector normals, and a segment may cut into the disc by its own sagitta
+ *    r − √(r² − L²/4) for that disc (≤ ¼ pixel; not next to a vertex turning ≥ 15° into the void). The fit test
+ *    walks each candidate segment's ring towards (x, y), so the closest segment is never missed.
  */
 import type { CornerPlace, CornerSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
@@ -33,6 +39,12 @@ const VERTEX_TURN = (15 * Math.PI) / 180;
 
 /** How far (pixel units) a disc may cut into the boundary and still count as fitting. */
 const FIT_SLACK = 0.01;
+
+/** Largest sagitta (pixel units) a segment may cut into a disc by in the radius search (see chordFits). */
+const SAGITTA_CAP = 0.25;
+
+/** Most ring steps the fit test walks from one candidate segment towards the closest (see chordFits). */
+const WALK_MAX = 64;
 
 /** Padding (pixels) the raster needs for tool radius R (mm). */
 export function padFor(toolRadius: number, pixel: number): number {
@@ -67,9 +79,50 @@ export function cornerSurvey(
     }
     return Math.sqrt(best);
   };
-  // a disc may cut into the polygon by this much (pixel units) and still count as fitting: the chords of a
-  // polygonal arc poke into a tangent disc by up to r·Δ²/2 near their vertices (Δ = turn per vertex)
+  // a disc may cut into the polygon by this much (pixel units) and still count as fitting (rounding only; the
+  // chords of a polygonised curve get their own allowance in chordFits)
   const slack = Math.max(FIT_SLACK, 1e-6 * R);
+
+  // Fit test of the radius search. A polygonised smooth curve (vertices on the curve, turning by less than
+  // VERTEX_TURN) pokes its chords into the disc of the curve's own radius by their sagitta r − √(r² − L²/4),
+  // however fine the pixel; so each segment may cut into the disc by its sagitta for that disc (at most
+  // SAGITTA_CAP pixel), except a segment ending at a vertex that turns sharply towards the void (a real corner).
+  const sharp = sharpEnds(set);
+  const chordFits = (x: number, y: number, r: number, extra: number): boolean => {
+    const ci = Math.round(x), cj = Math.round(y);
+    const ok = (s: number): boolean => {
+      const d = Math.sqrt(segD2(geo, s, x, y));
+      if (d >= r - slack) return true;
+      if (sharp[s] === 1) return false;
+      const o = 5 * s;
+      const q = 0.25 * (geo[o + 2] * geo[o + 2] + geo[o + 3] * geo[o + 3]);
+      const sag = Math.min(SAGITTA_CAP, r - Math.sqrt(Math.max(0, r * r - q)));
+      return d >= r - slack - sag;
+    };
+    // from a candidate, walk the ring both ways while the segments come closer to (x, y): the candidates are
+    // the nearest segments of the 3×3 pixels around (x, y), which can be up to ~0.7 pixel farther than the
+    // ring's closest segment to (x, y) itself
+    const walkFrom = (s0: number, step: Int32Array): boolean => {
+      let s = s0, d = segD2(geo, s0, x, y);
+      for (let k = 0; k < WALK_MAX; k++) {
+        const t = step[s];
+        const dt = segD2(geo, t, x, y);
+        if (!(dt < d) || t === s0) break;
+        if (!ok(t)) return false;
+        s = t; d = dt;
+      }
+      return true;
+    };
+    const walk = (s0: number): boolean => ok(s0) && walkFrom(s0, set.prev) && walkFrom(s0, set.next);
+    if (extra >= 0 && !walk(extra)) return false;
+    for (let j = Math.max(0, cj - 1); j <= Math.min(ny - 1, cj + 1); j++) {
+      for (let i = Math.max(0, ci - 1); i <= Math.min(nx - 1, ci + 1); i++) {
+        const s = seg[j * nx + i];
+        if (s >= 0 && !walk(s)) return false;
+      }
+    }
+    return true;
+  };
 
   // 1. power transform of the tool positions
   const f = new Float64Array(N).fill(Infinity);
@@ -116,7 +169,7 @@ export function cornerSurvey(
 
     // largest disc inside the void containing boundary point (x, y), centred along unit normal (nx, ny)
     const radiusAt = (x: number, y: number, ux: number, uy: number, s: number): number => {
-      const fits = (r: number): boolean => near(x + r * ux, y + r * uy, s) >= r - slack;
+      const fits = (r: number): boolean => chordFits(x + r * ux, y + r * uy, r, s);
       if (fits(R)) return R;
       let lo = 0, hi = R;
       for (let it = 0; it < 40 && hi - lo > 1e-7 * R; it++) {
@@ -149,7 +202,13 @@ export function cornerSurvey(
         const o = 5 * s;
         const t = ((fx - geo[o]) * geo[o + 2] + (fy - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
         if (t > 1e-6 && t < 1 - 1e-6) {
-          ux = -set.normal[2 * s]; uy = -set.normal[2 * s + 1];
+          // the normal blended linearly between the end vertices' normals (a vertex's normal is the bisector of
+          // its two segments' normals when it turns by less than VERTEX_TURN, else this segment's): on a
+          // polygonised smooth curve it follows the curve's normal instead of jumping at every vertex
+          const [ax, ay] = vertexNormal(set, s, 0), [bx, by] = vertexNormal(set, s, 1);
+          const mx = (1 - t) * ax + t * bx, my = (1 - t) * ay + t * by;
+          const l = Math.hypot(mx, my);
+          ux = -mx / l; uy = -my / l;
         } else {
           // foot on a vertex: a vertex turning towards the void is touched along its bisector; a vertex turning
           // away (a convex corner of the solid) along the direction to the pixel
@@ -185,6 +244,36 @@ export function cornerSurvey(
     places.sort((a, b) => a.radius - b.radius);
   }
   return { min: places.length > 0 ? places[0].radius : null, places, resolution: 0.5 * pixel };
+}
+
+/** Turn (radians) at the vertex where segment a ends and segment b starts; < 0 turns towards the void. */
+function turnAt(set: SegmentSet, a: number, b: number): number {
+  const n = set.normal;
+  const ax = n[2 * a], ay = n[2 * a + 1], bx = n[2 * b], by = n[2 * b + 1];
+  return Math.atan2(ax * by - ay * bx, ax * bx + ay * by);
+}
+
+/** Per segment: 1 when either end vertex turns towards the void by VERTEX_TURN or more (a real corner). */
+function sharpEnds(set: SegmentSet): Uint8Array {
+  const out = new Uint8Array(set.n);
+  for (let s = 0; s < set.n; s++) {
+    if (turnAt(set, set.prev[s], s) <= -VERTEX_TURN || turnAt(set, s, set.next[s]) <= -VERTEX_TURN) out[s] = 1;
+  }
+  return out;
+}
+
+/**
+ * Unit solid-side normal at the start (end = 0) or end (end = 1) vertex of segment s: the bisector of the two
+ * segments' normals when the vertex turns by less than VERTEX_TURN either way, else segment s's own normal.
+ */
+function vertexNormal(set: SegmentSet, s: number, end: 0 | 1): [number, number] {
+  const n = set.normal;
+  const o = end === 0 ? set.prev[s] : set.next[s];
+  const turn = end === 0 ? turnAt(set, o, s) : turnAt(set, s, o);
+  if (!(Math.abs(turn) < VERTEX_TURN)) return [n[2 * s], n[2 * s + 1]];
+  const x = n[2 * s] + n[2 * o], y = n[2 * s + 1] + n[2 * o + 1];
+  const l = Math.hypot(x, y);
+  return [x / l, y / l];
 }
 
 /** Whether a pixel of group `c` lies within one pixel of (x, y). */
