@@ -10,7 +10,11 @@
  * - the root c of D_a(x) − D_b(x) on the segment pq (exact when both feet are inside their segments: the
  *   distances are then linear along pq; otherwise three regula-falsi steps); r = D_a(c) = D_b(c);
  * - the phase at c, from the side of segment a (pseudo-normal at a vertex): a pair of solid pixels around a thin
- *   void sliver yields a void sample, a solid pixel next to a void pixel across a sub-pixel strut a solid one;
+ *   void sliver yields a void sample, a solid pixel next to a void pixel across a sub-pixel strut a solid one.
+ *   The side test is exact only where the foot is a nearest boundary point (Bærentzen & Aanæs 2005, segments.ts);
+ *   so the side of b is asked too, and a root where the two disagree is dropped: a third segment between the
+ *   feet is closer there (e.g. a short edge from a concave to a convex vertex that no pixel holds as nearest),
+ *   so c is not on the medial axis — kept, it became a "void" sample inside the solid beside a concave vertex;
  * - the separation angle θ at c between the two feet (Foskey, Lin & Manocha, "Efficient computation of a
  *   simplified medial axis", Proc. 8th ACM Symposium on Solid Modeling and Applications, 2003,
  *   DOI 10.1145/781606.781623 — title and authors confirmed, DOI from memory).
@@ -98,7 +102,12 @@ export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField
     if (!(da > 1e-9 && db > 1e-9)) return;
     const cos = (ax * bx + ay * by) / (da * db);
     if (cos > 0) return;
-    const solid = sideOf(set, a, cx, cy) > 0 ? 1 : 0;
+    // the phase at c: both feet are nearest boundary points of a true medial point, so the side of a and the side
+    // of b agree there; when they do not, a third segment between the two feet is closer (a short edge between
+    // a concave and a convex vertex that no pixel holds as its nearest) and c is no medial point of a and b
+    const sa = sideOf(set, a, cx, cy), sb = sideOf(set, b, cx, cy);
+    if ((sa > 0 && sb < 0) || (sa < 0 && sb > 0)) return;
+    const solid = (sa !== 0 ? sa : sb) > 0 ? 1 : 0;
     const v = snapToVertex(set, seg, nx, ny, a, b, cx, cy, 0.5 * (da + db), solid === 1 ? 1 : -1);
     if (v && v.x >= box[0] && v.x <= box[2] && v.y >= box[1] && v.y <= box[3]) push(v.x, v.y, v.r, v.cos, solid);
     else push(cx, cy, 0.5 * (da + db), cos, solid);
