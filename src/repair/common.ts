@@ -143,6 +143,23 @@ export function holdsPoint(p: Polygon, xs: Float64Array, order: readonly number[
   return false;
 }
 
+/** Whether (x, y) lies within `d` mm of polygon p (in it, or within d of its outer ring; holes count as material). */
+export function nearPiece(p: Polygon, x: number, y: number, d: number): boolean {
+  const b = ringBounds(p.outer);
+  if (x < b[0] - d || x > b[2] + d || y < b[1] - d || y > b[3] + d) return false;
+  if (ringContains(p.outer, [x, y]) >= 0) return true;
+  const r = p.outer, d2 = d * d;
+  for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
+    const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
+    const l2 = ex * ex + ey * ey;
+    let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
+    t = t < 0 ? 0 : t > 1 ? 1 : t;
+    const dx = x - ax - t * ex, dy = y - ay - t * ey;
+    if (dx * dx + dy * dy <= d2) return true;
+  }
+  return false;
+}
+
 /** Whether point q lies in the material of polygon p (inside the outer ring, in none of its holes). */
 export function inPiece(p: Polygon, q: Point): boolean {
   if (ringContains(p.outer, q) < 0) return false;

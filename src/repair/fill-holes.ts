@@ -22,7 +22,8 @@ import { booleanOp, ringsOf } from '../geom/clipper.js';
 import { interiorPoint } from '../geom/interior.js';
 import type { Morphology } from '../morph/types.js';
 import type { Polygon, PolygonSet, Ring } from '../types.js';
-import { addMaterial, arcToleranceOf, closing, holdsPoint, marginOf, quantumOf } from './common.js';
+import { addMaterial, arcToleranceOf, closing, holdsPoint, marginOf, nearPiece, quantumOf } from './common.js';
+import { discHulls } from './discs.js';
 import { thinOut } from './thicken.js';
 import type { RepairInput, StepResult } from './types.js';
 
@@ -54,6 +55,25 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
         current = added.polygons;
         area += added.area;
         changed.push(...added.changed.polygons);
+      }
+      // the samples the closing left alone (a neck beside a sharp convex corner, which a disc of radius ρ passes):
+      // their own inscribed discs, enlarged by δ, with the hulls of neighbouring discs (discs.ts). A sample within
+      // ρ of a filled part is not taken: the fill changed the walls there (the samples of a wedge between its
+      // new fillet and the disc that made it are no longer thin), and the next round measures it afresh.
+      const reach = rho + input.pixel;
+      const left = order.filter((k) => !chosen.some((p) => nearPiece(p, pts.x[k], pts.y[k], reach)));
+      if (left.length > 0) {
+        const delta = marginOf(input, L / 2);
+        const rings = discHulls(
+          left.map((k) => pts.x[k]), left.map((k) => pts.y[k]), left.map((k) => pts.radius[k] + delta), left.length,
+          input.pixel, input.domain[0], input.domain[1], arcToleranceOf(input, L / 2),
+        );
+        const more = addMaterial(current, rings, input, quantum);
+        if (more.polygons !== current) {
+          current = more.polygons;
+          area += more.area;
+          changed.push(...more.changed.polygons);
+        }
       }
       for (const p of morph.width('void', below).places) locations.push({ x: p.x, y: p.y, measured: p.width });
     }

@@ -80,3 +80,38 @@ describe('fill-holes', () => {
     expect(sizeChecks(kept.polygons, domain, tolerance, pixel, { ...lim, minHoleArea: 150 }, ['small-holes'])[0].status).toBe('pass');
   });
 });
+
+describe('fill-holes: a neck beside a sharp convex corner', () => {
+  // A V-notch cut from below into a block, with a step on its left wall: the convex corner B of the step faces
+  // the right wall DE across a neck narrower than the limit (4 mm), while a disc of the limit's size passes below
+  // B — the closing by that disc leaves the neck (the shape of a random part, test/repair/property.test.ts).
+  const A: [number, number] = [47.432, 32.173], B: [number, number] = [54.199, 51.091], C: [number, number] = [53.484, 51.346];
+  const D: [number, number] = [55.968, 55.035], E: [number, number] = [66.475, 37.208];
+  const block = { polygons: [poly([A, B, C, D, E, [80, 37.208], [80, 60], [30, 60], [30, 32.173]])] };
+  const lim = { minMember: null, minHole: 4, toolRadius: null, minIslandArea: 0, minHoleArea: null };
+  const px = 0.5;
+  const inp: RepairInput = { polygons: block, domain: [20, 20, 90, 60], tolerance, limits: lim, passiveSolid: [], passiveVoid: [], pixel: px };
+  // analytic: the neck is the distance from the corner B to the line DE
+  const ex = E[0] - D[0], ey = E[1] - D[1];
+  const neck = Math.abs((B[0] - D[0]) * ey - (B[1] - D[1]) * ex) / Math.hypot(ex, ey);
+
+  it('the check finds the neck (width = distance from B to the line DE, analytic), and fill-holes bridges it', () => {
+    expect(neck).toBeLessThan(4);
+    const before = sizeChecks(block, [20, 20, 90, 60], tolerance, px, lim, ['min-hole-size'])[0];
+    expect(before.status).toBe('fail');
+    expect(Math.abs(before.measured! - neck)).toBeLessThanOrEqual(px); // the check's resolution is pixel/2 per side
+    const { polygons, actions } = runRepairs(['fill-holes'], inp);
+    // the check runner is the judge (src/check/run.ts)
+    expect(sizeChecks(polygons, [20, 20, 90, 60], tolerance, px, lim, ['min-hole-size'])[0].status).toBe('pass');
+    expect(actions[0].unresolved).toBeNull();
+    // only material is added, and only near the notch: everything added lies in the notch's bounding box
+    expect(actions[0].area).toBeGreaterThan(0);
+    const added = actions[0].changed.polygons.flatMap((p) => p.outer);
+    for (const q of added) {
+      expect(q[0]).toBeGreaterThanOrEqual(A[0] - 1e-6);
+      expect(q[0]).toBeLessThanOrEqual(E[0] + 1e-6);
+      expect(q[1]).toBeGreaterThanOrEqual(A[1] - 1e-6);
+      expect(q[1]).toBeLessThanOrEqual(D[1] + 1e-6);
+    }
+  });
+});
