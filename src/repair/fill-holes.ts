@@ -13,6 +13,12 @@
  * unreachable part, rather than only the discs at the samples, leaves the remaining void a union of discs of
  * radius ρ there: no sliver wedge where a disc would cross a wall at a grazing angle.
  *
+ * Then the thin samples the closing left alone — a neck between a sharp convex corner and a wall, where a disc of
+ * radius ρ passes beside the corner — get their own inscribed disc, enlarged by δ, and the convex hull of the
+ * discs of neighbouring samples (discs.ts); samples within ρ + pixel of a part the closing filled are left to
+ * the next round, which measures the changed walls afresh. A disc that reaches past the domain edge is clipped
+ * there (a neck between the part and the domain edge fills up to the edge).
+ *
  * By area (limit A): every hole ring enclosing less than A mm² (shoelace) is filled (after the width step).
  *
  * Never fills a passive-void region, and does not count its area (addMaterial subtracts them).

@@ -37,7 +37,7 @@ function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
  */
 function why(x: number, y: number, limit: number, input: RepairInput, rounds: number, settled: boolean): string {
   if (nearVoid(x, y, input.passiveVoid) < limit) return 'beside a passive-void region, which the repairs never fill';
-  if (settled) return 'the repair finds nothing to add there (a neck beside a sharp convex corner that a larger disc passes, or a place on the domain edge)';
+  if (settled) return 'the repair finds nothing to add there (its discs there changed nothing, or met a passive region or the domain edge)';
   return `the repairs of neighbouring places still undid each other after ${rounds} rounds`;
 }
 
