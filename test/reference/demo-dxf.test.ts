@@ -4,13 +4,11 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import DxfParserModule from 'dxf-parser';
 import type { IDxf, ILwpolylineEntity } from 'dxf-parser';
 import { build } from '../../src/pipeline.js';
 import { resolveSettings } from '../../src/settings.js';
+import { DxfParser } from '../support/dxf-parser.js';
 
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = (DxfParserModule as unknown as { default?: ParserClass }).default ?? (DxfParserModule as unknown as ParserClass);
 
 describe('demo grid → DXF → dxf-parser', () => {
   const bytes = readFileSync(new URL('../../fixtures/grids/demo-bracket.npy', import.meta.url));

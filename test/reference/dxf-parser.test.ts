@@ -3,22 +3,14 @@
  * and compares what it sees with what we wrote.
  */
 import { describe, expect, it } from 'vitest';
-import DxfParserModule from 'dxf-parser';
 import type { ICircleEntity, IDxf, ILwpolylineEntity, IPointEntity, ITextEntity } from 'dxf-parser';
 import { writeDxf } from '../../src/write/dxf.js';
 import type { WriterInput } from '../../src/write/types.js';
 import { partRings, sampleInput } from '../write/fixtures.js';
+import { parseDxf } from '../support/dxf-parser.js';
 
-// dxf-parser ships a CommonJS bundle; under NodeNext the default import may be the module object.
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = ((DxfParserModule as unknown as { default?: ParserClass }).default ??
-  (DxfParserModule as unknown as ParserClass));
 
-function parse(text: string): IDxf {
-  const dxf = new DxfParser().parseSync(text);
-  if (!dxf) throw new Error('dxf-parser returned nothing');
-  return dxf;
-}
+const parse = parseDxf;
 
 /** Written precision: 6 decimals, so a read-back coordinate is within half a unit of the 6th decimal. */
 const HALF_ULP6 = 0.5e-6 + 1e-12;

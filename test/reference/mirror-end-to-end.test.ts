@@ -14,7 +14,6 @@
  * `--tolerance` (docs/smoothing.md: every final point within tolerance of the raw contour).
  */
 import { describe, expect, it } from 'vitest';
-import DxfParserModule from 'dxf-parser';
 import type { IDxf, ILwpolylineEntity } from 'dxf-parser';
 import { contourGrid } from '../../src/contour/index.js';
 import { fieldMean, gridDomain } from '../../src/field/mean.js';
@@ -28,9 +27,8 @@ import { smoothPolygons } from '../../src/smooth/smooth.js';
 import { chooseThreshold } from '../../src/threshold/choose.js';
 import type { Point, PolygonSet } from '../../src/types.js';
 import { npyFloat64 } from '../bench/npy-write.js';
+import { DxfParser } from '../support/dxf-parser.js';
 
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = (DxfParserModule as unknown as { default?: ParserClass }).default ?? (DxfParserModule as unknown as ParserClass);
 
 /** The half disc as an NPY file (rows top-down): density 0.5 + 0.5·tanh(signed distance / h), a ramp about one cell wide. */
 function halfDisc(R: number, h: number, yc: number): { bytes: Uint8Array; cols: number; rows: number } {

@@ -5,13 +5,11 @@
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import DxfParserModule from 'dxf-parser';
 import type { ICircleEntity, IDxf, ILwpolylineEntity } from 'dxf-parser';
 import { describe, expect, it } from 'vitest';
 import { cli, tempDir } from '../cli/harness.js';
+import { DxfParser } from '../support/dxf-parser.js';
 
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = (DxfParserModule as unknown as { default?: ParserClass }).default ?? (DxfParserModule as unknown as ParserClass);
 
 /** A 60×30 cell plate, 1 mm cells, fully solid except a void band along the top (rows 1–5 of the file). */
 function plateCsv(): string {

@@ -4,24 +4,15 @@
  * grammar (§8.3) and the arc endpoint → centre conversion of SVG 1.1 Appendix F.6.5.
  */
 import { describe, expect, it } from 'vitest';
-import DxfParserModule from 'dxf-parser';
 import type { ICircleEntity, IDxf, ILwpolylineEntity } from 'dxf-parser';
 import { RhoformError } from '../../src/errors.js';
 import { writeDxf } from '../../src/write/dxf.js';
 import { writeSvg } from '../../src/write/svg.js';
 import type { RingCircle, WriterInput } from '../../src/write/types.js';
 import { dxfPairs, regularPolygon } from './fixtures.js';
+import { parseDxf } from '../support/dxf-parser.js';
 
-// dxf-parser ships a CommonJS bundle; under NodeNext the default import may be the module object.
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = ((DxfParserModule as unknown as { default?: ParserClass }).default ??
-  (DxfParserModule as unknown as ParserClass));
 
-function parseDxf(text: string): IDxf {
-  const dxf = new DxfParser().parseSync(text);
-  if (!dxf) throw new Error('dxf-parser returned nothing');
-  return dxf;
-}
 
 /** 6 decimals written: a read-back value is within half a unit of the 6th decimal. */
 const HALF_ULP6 = 0.5e-6 + 1e-12;

@@ -3,21 +3,13 @@
  * page and viewBox are in inches. Read back with dxf-parser 1.1.2 (independent reader) and by attribute.
  */
 import { describe, expect, it } from 'vitest';
-import DxfParserModule from 'dxf-parser';
 import type { ICircleEntity, IDxf, ILwpolylineEntity, IPoint, IPointEntity, ITextEntity } from 'dxf-parser';
 import { writeDxf } from '../../src/write/dxf.js';
 import { writeSvg } from '../../src/write/svg.js';
 import type { WriterInput } from '../../src/write/types.js';
 import { regularPolygon } from './fixtures.js';
+import { parseDxf } from '../support/dxf-parser.js';
 
-type ParserClass = new () => { parseSync(text: string): IDxf | null };
-const DxfParser = ((DxfParserModule as unknown as { default?: ParserClass }).default ??
-  (DxfParserModule as unknown as ParserClass));
-function parseDxf(text: string): IDxf {
-  const dxf = new DxfParser().parseSync(text);
-  if (!dxf) throw new Error('dxf-parser returned nothing');
-  return dxf;
-}
 
 const MM_PER_IN = 25.4; // exact by definition (NIST SP 811, Appendix B)
 const HALF_ULP6 = 0.5e-6 + 1e-12; // 6 decimals written in the DXF
