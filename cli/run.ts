@@ -13,12 +13,12 @@ import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
 import { fmt } from '../src/report/number.js';
 import { formatText } from '../src/report/text.js';
-import { REPAIR_IDS, resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
+import { loadBooleanEngine } from '../src/geom/clipper.js';
+import { needsBooleanEngine, REPAIR_IDS, resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
 import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
-import { runBatch, runMerge } from './batch.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
 
@@ -264,8 +264,14 @@ export async function runAsync(argv: readonly string[], io: Io): Promise<number>
   } catch (e) {
     return run(argv, io);
   }
-  if (args.command !== 'batch' && args.command !== 'merge') return run(argv, io);
+  if (args.command !== 'batch' && args.command !== 'merge') {
+    // The boolean engine loads on demand (src/geom/clipper.ts): only runs that use it pay its start-up.
+    const s = args.command === 'demo' ? { ...DEMO.settings, ...args.settings } : args.settings;
+    if (args.command !== 'help' && args.command !== 'version' && needsBooleanEngine(resolveSettings(s))) await loadBooleanEngine();
+    return run(argv, io);
+  }
   try {
+    const { runBatch, runMerge } = await import('./batch.js');
     return args.command === 'batch' ? await runBatch(args, io) : await runMerge(args, io);
   } catch (e) {
     return reportError(e, io);

@@ -1,7 +1,7 @@
 /** rhoform as a library: re-exports only. */
 export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat, RepairRecord } from './types.js';
 export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
-export { DEFAULT_SETTINGS, resolveSettings, REPAIR_IDS, MIRROR_EDGES, type Settings, type OutputFormat, type SaddleRuleName, type RepairName, type MirrorEdge } from './settings.js';
+export { DEFAULT_SETTINGS, resolveSettings, needsBooleanEngine, REPAIR_IDS, MIRROR_EDGES, type Settings, type OutputFormat, type SaddleRuleName, type RepairName, type MirrorEdge } from './settings.js';
 export { build, type BuildResult, type BuildExtras } from './pipeline.js';
 export { inspect, loadGrid, describeInput, type InspectResult, type InputFile } from './input.js';
 export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
@@ -37,6 +37,6 @@ export type { PassiveRegions, PassiveRegion, PassiveShape, PassiveRole } from '.
 export { unfoldGrid, unfoldLocate, mirrorPlanes, type MirrorPlane } from './field/mirror.js';
 export { symmetrize } from './geom/symmetry.js';
 export { fitCircle, findCircleRings } from './geom/fit-circle.js';
-export { booleanOp, unionRings, offsetRings, bufferPolylines, type BooleanOp } from './geom/clipper.js';
+export { booleanOp, unionRings, offsetRings, bufferPolylines, loadBooleanEngine, type BooleanOp } from './geom/clipper.js';
 export type { Circle } from './geom/circle.js';
 export type { RingCircle, WriterInput } from './write/types.js';

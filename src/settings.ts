@@ -129,3 +129,11 @@ export function resolveSettings(partial: Partial<Settings>): Settings {
   s.cellSizeDefaulted = partial.cellSize === undefined;
   return s;
 }
+
+/**
+ * Whether a run with these settings needs the polygon boolean engine (src/geom/clipper.ts), which is loaded on
+ * demand: passive regions, symmetry and repair use it; a plain build does not.
+ */
+export function needsBooleanEngine(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): boolean {
+  return s.passive !== null || s.mirror.length > 0 || s.repair.length > 0;
+}

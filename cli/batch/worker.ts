@@ -5,7 +5,8 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { RhoformError } from '../../src/errors.js';
-import type { Settings } from '../../src/settings.js';
+import { loadBooleanEngine } from '../../src/geom/clipper.js';
+import { needsBooleanEngine, type Settings } from '../../src/settings.js';
 import { buildFile } from '../run.js';
 import { errorRow, rowFromReport, type SummaryRow } from './summary.js';
 
@@ -60,6 +61,8 @@ export function processTask(setup: WorkerSetup, task: WorkerTask): WorkerAnswer 
 
 const setupData = workerData as WorkerSetup | null | undefined;
 if (parentPort && setupData?.kind === 'rhoform-batch') {
+  // the boolean engine loads on demand (src/geom/clipper.ts); messages wait in the port until the listener below
+  if (needsBooleanEngine(setupData.settings)) await loadBooleanEngine();
   const port = parentPort;
   const setup = setupData;
   port.on('message', (m: { id: number; task: WorkerTask }) => {

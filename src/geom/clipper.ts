@@ -14,13 +14,39 @@
  * clockwise, each hole under its outer ring, material inside a hole as a separate polygon (DESIGN §3), no
  * repeated closing vertex.
  *
- * The WASM module is loaded once, when this module is first imported (top-level await, ~10–20 ms).
+ * The WASM module is loaded on demand, once: `await loadBooleanEngine()` before the first call (it costs about
+ * 35 ms of start-up, which runs that need no booleans — no passive regions, --mirror or --repair — do not pay).
+ * A call before it is loaded throws a RhoformError that says so.
  */
 import * as clipperLib from 'js-angusj-clipper';
 import { RhoformError } from '../errors.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 
-const lib = await clipperLib.loadNativeClipperLibInstanceAsync(clipperLib.NativeClipperLibRequestedFormat.WasmWithAsmJsFallback);
+let loaded: clipperLib.ClipperLibWrapper | null = null;
+let loading: Promise<void> | null = null;
+
+/** Loads the boolean engine (WebAssembly) once; later calls return at once. Safe to call concurrently. */
+export function loadBooleanEngine(): Promise<void> {
+  loading ??= clipperLib.loadNativeClipperLibInstanceAsync(clipperLib.NativeClipperLibRequestedFormat.WasmWithAsmJsFallback).then((l) => {
+    loaded = l;
+  });
+  return loading;
+}
+
+/** Whether loadBooleanEngine has finished. */
+export function booleanEngineLoaded(): boolean {
+  return loaded !== null;
+}
+
+function engine(): clipperLib.ClipperLibWrapper {
+  if (loaded === null) {
+    throw new RhoformError(
+      'E_INTERNAL',
+      'the boolean engine is not loaded: await loadBooleanEngine() before build() with passive regions, --mirror or --repair',
+    );
+  }
+  return loaded;
+}
 
 /** Scaled coordinates stay below this (Clipper's 'loRange', 2^30 − 1, where it needs no 128-bit products). */
 const RANGE = 0x3fffffff;
@@ -145,7 +171,7 @@ export function booleanOp(op: BooleanOp, subject: readonly Ring[], clip: readonl
     [s, c, clipType] = [c, [], 'union'];
   }
   return guarded(op, () => {
-    const tree = lib.clipToPolyTree({
+    const tree = engine().clipToPolyTree({
       clipType: CLIP[clipType],
       subjectInputs: [{ data: s, closed: true }],
       clipInputs: c.length ? [{ data: c }] : [],
@@ -197,7 +223,7 @@ function offsetPaths(
   if (paths.length === 0) return { polygons: [] };
   const arcTolerance = Math.max(opts.arcTolerance / q, 0.25);
   return guarded('offset', () => {
-    const tree = lib.offsetToPolyTree({
+    const tree = engine().offsetToPolyTree({
       delta: delta / q,
       arcTolerance,
       miterLimit: opts.miterLimit ?? 2,

@@ -9,6 +9,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
+import { loadBooleanEngine } from '../../src/geom/clipper.js';
 import { parsePassive } from '../../src/passive/parse.js';
 import { build } from '../../src/pipeline.js';
 import { resolveSettings, REPAIR_IDS } from '../../src/settings.js';
@@ -23,6 +24,8 @@ import { gridDomain } from '../../src/field/mean.js';
 import { finishOutline } from '../../src/finish.js';
 import { shapeRing } from '../../src/passive/rings.js';
 import { randomPart, sizeChecks, type Box } from './support.js';
+
+await loadBooleanEngine();
 
 
 const root = process.cwd(); // run from the package root
