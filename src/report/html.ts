@@ -33,13 +33,22 @@ function badge(status: CheckResult['status']): string {
   return `<span class="badge ${status}">${STATUS_WORD[status]}</span>`;
 }
 
+/** " — after repair (before: 2 failed, 0 warned)" when the checks are those of repaired geometry; else empty. */
+function repairNote(r: Report): string {
+  const b = r.checksBeforeRepair;
+  if (!b) return '';
+  const fail = b.filter((c) => c.status === 'fail').length;
+  const warn = b.filter((c) => c.status === 'warn').length;
+  return ` — after <a href="#repairs">repair</a> (before: ${fail} failed, ${warn} warned)`;
+}
+
 function header(r: Report, findings: readonly NumberedFinding[]): string {
   const s = r.summary;
   const result =
     r.checks.length === 0
       ? '<p class="result"><span class="badge none">NO CHECKS</span> Geometry and report written; no manufacturability checks ran.</p>'
       : `<p class="result">${badge(s.status)} ${r.checks.length} check${r.checks.length === 1 ? '' : 's'}: ${s.pass} passed, ${s.warn} warned, ${s.fail} failed` +
-        `${findings.length > 0 ? `; ${findings.length} located finding${findings.length === 1 ? '' : 's'}` : ''}.</p>`;
+        `${findings.length > 0 ? `; ${findings.length} located finding${findings.length === 1 ? '' : 's'}` : ''}${repairNote(r)}.</p>`;
   const t = r.threshold;
   const g = r.geometry;
   const [hx, hy] = r.input.cellSize;

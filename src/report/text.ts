@@ -193,7 +193,8 @@ export function summaryLine(r: Report, color: boolean): string {
   const n = numberFindings(r).length;
   return (
     `result     ${statusWord(color, s.status, true)}  ${r.checks.length} check${r.checks.length === 1 ? '' : 's'}: ` +
-    `${s.pass} passed, ${s.warn} warned, ${s.fail} failed${n > 0 ? `; ${n} located finding${n === 1 ? '' : 's'}` : ''}`
+    `${s.pass} passed, ${s.warn} warned, ${s.fail} failed${n > 0 ? `; ${n} located finding${n === 1 ? '' : 's'}` : ''}` +
+    (r.checksBeforeRepair ? ' (after repair)' : '')
   );
 }
 

@@ -51,6 +51,10 @@ describe('text report of a repaired run', () => {
     expect(text).toMatch(/REPAIR {2}fill-holes {4}1 place, area \+3 mm² .*\n\s+not repaired: 1 narrow place of 2\.98 mm at x 60 y 20 mm beside a passive\s+void/);
   });
 
+  it('the result line says the verdict is after repair', () => {
+    expect(text).toMatch(/^result .*failed.*\(after repair\)$/m);
+  });
+
   it('states the change after smoothing as reported, not checked', () => {
     expect(text).toMatch(/final {6}area 3240 mm² \(\+41\.5 mm² after smoothing\)/);
     expect(text).toMatch(/reported, not checked/);
@@ -77,6 +81,10 @@ describe('HTML report of a repaired run', () => {
     expect(html).toMatch(/class="rp-before"/);
     expect((html.match(/class="rp-site" data-r="1"/g) ?? []).length).toBe(2); // two thicken places
     expect(html).not.toMatch(/data-r="2"/); // open-corners did nothing
+  });
+
+  it('says in the headline that the verdict is after repair, with the count before', () => {
+    expect(html).toMatch(/<p class="result">.*— after <a href="#repairs">repair<\/a> \(before: 1 failed, 2 warned\)\.<\/p>/);
   });
 
   it('has the repairs table with ids R1, R2 and the before-repair column in the checks table', () => {
