@@ -18,7 +18,7 @@ import { shapeRing } from './passive/rings.js';
 import type { PassiveRegions } from './passive/types.js';
 import { REPAIR_CHECKS, runRepairs, type RepairAction } from './repair/index.js';
 import type { RepairName, Settings } from './settings.js';
-import type { PolygonSet, RepairRecord, Report, Location } from './types.js';
+import type { Location, PolygonSet, RepairRecord, Report, Ring } from './types.js';
 import type { RingCircle } from './write/types.js';
 
 /** Repair locations kept per repair in the report (like MAX_LOCATIONS of the checks). */
@@ -88,6 +88,8 @@ export interface RepairStageInput {
   readonly planned: readonly PlannedCheck[];
   readonly planes: readonly MirrorPlane[];
   readonly passive: PassiveRegions | null;
+  /** The passive-solid primitives as rings, as the exact passive step drew them (PassiveExactResult.solidRings). */
+  readonly passiveSolid: readonly Ring[];
   readonly domain: readonly [number, number, number, number];
   readonly tolerance: number;
   /** Morphology raster pixel, mm (choosePixel). */
@@ -117,9 +119,6 @@ export function repairStage(input: RepairStageInput): RepairStageResult {
   const passiveVoid = input.passive
     ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, input.tolerance / 4))
     : [];
-  const passiveSolid = input.passive
-    ? input.passive.regions.filter((r) => r.role === 'solid').map((r) => shapeRing(r.shape, input.tolerance / 4))
-    : [];
   const has = (c: CheckId) => plannedIds.has(c);
   const run = runRepairs(ids, {
     polygons: input.polygons,
@@ -132,7 +131,7 @@ export function repairStage(input: RepairStageInput): RepairStageResult {
       minIslandArea: input.settings.minIslandArea,
       minHoleArea: has('small-holes') ? input.settings.minHoleArea : null,
     },
-    passiveSolid,
+    passiveSolid: input.passiveSolid,
     passiveVoid,
     pixel: input.pixel,
   });

@@ -123,16 +123,14 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   // --passive, first act: the samples they cover become 1 or 0, so the threshold and contours see them.
   // With --mirror the regions' mirror images are added, so a half model's bolt hole has a true-circle twin.
   const passive = more.passive ? mirrorPassive(more.passive, planes) : null;
-  const [chx, chy] = grid.cellSize;
-  const outlineTolerance = s.tolerance ?? 0.25 * Math.min(chx, chy);
-  const passiveCells = passive ? applyPassiveToGrid(grid, passive, { inset: Math.hypot(chx, chy) + outlineTolerance }) : null;
+  const [hx, hy] = grid.cellSize;
+  const tolerance = s.tolerance ?? 0.25 * Math.min(hx, hy);
+  const passiveCells = passive ? applyPassiveToGrid(grid, passive, { inset: Math.hypot(hx, hy) + tolerance }) : null;
   if (passiveCells) grid = passiveCells.grid;
   const range = grid === prep.grid ? { min: prep.min, max: prep.max } : valueRange(grid.values);
   lap('prepare');
   const domain = gridDomain(grid);
   const domainArea = (domain[2] - domain[0]) * (domain[3] - domain[1]);
-  const [hx, hy] = grid.cellSize;
-  const tolerance = s.tolerance ?? 0.25 * Math.min(hx, hy);
   const smoothOpts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance, domain } as const;
 
   // The target is the prepared field's mean: with passive regions, the field they set (docs/passive.md).
@@ -272,18 +270,18 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   let repair: { before: PolygonSet; changed: PolygonSet } | null = null;
   if (s.repair.length > 0) {
     const before = final;
-    const done = repairStage({ polygons: final, settings: s, limits, planned, planes, passive, domain, tolerance, pixel, locate: inFile });
+    const done = repairStage({ polygons: final, settings: s, limits, planned, planes, passive, passiveSolid: passiveExact?.solidRings ?? [], domain, tolerance, pixel, locate: inFile });
     final = done.polygons;
     passiveExact = done.passive;
     report.repairs = done.records;
     report.checksBeforeRepair = report.checks;
     lap('repair');
     report.checks = check(final, passiveExact);
+    report.geometry = summarizeGeometry(final, domainArea);
     lap('checks');
     repair = { before, changed: done.changed };
   }
   report.summary = summarize(report.checks);
-  report.geometry = summarizeGeometry(final, domainArea);
   if (final !== smoothed.polygons) report.finishing = finishingOf(final, smoothed.areaAfter, raw, domainArea, tolerance);
 
   const findings = numberFindings(report);
