@@ -56,7 +56,6 @@ function packageRoot(): string {
  */
 export const DEMO = {
   file: 'fixtures/grids/demo-bracket.npy',
-  passive: 'fixtures/passive/demo-bracket.passive.json',
   settings: {
     cellSize: [2, 2],
     process: 'waterjet-cut',
@@ -198,7 +197,7 @@ function runDemo(args: ParsedArgs, io: Io): number {
   const demoArgs: ParsedArgs = { ...args, settings: { ...DEMO.settings, ...args.settings } };
   // The demo replaces its own earlier output (and only that): the same names in its own folder.
   // The demo's own passive-region file sits in the package; a --passive of the user's replaces it.
-  const passivePath = args.settings.passive === undefined ? join(root, DEMO.passive) : undefined;
+  const passivePath = args.settings.passive === undefined ? join(root, DEMO.settings.passive as string) : undefined;
   const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir, passivePath });
   if (!args.cli.json && !args.cli.quiet) {
     io.stdout(`\nThe demo grid is ${DEMO.file} (a bracket of our own invention: fixtures/grids/demo-bracket.md).\nIts DXF, SVG and reports are in ${resolve(io.cwd, outDir)}/\n`);
