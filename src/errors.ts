@@ -27,6 +27,9 @@ export type ErrorCode =
   | 'E_OUTPUT_WRITE'
   | 'E_PASSIVE_JSON'
   | 'E_PASSIVE_FORMAT'
+  | 'E_LOADS_JSON'
+  | 'E_LOADS_FORMAT'
+  | 'E_LOADS_CASE'
   | 'E_SUMMARY_FORMAT'
   | 'E_INTERNAL';
 

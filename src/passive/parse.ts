@@ -12,6 +12,7 @@
  */
 import { RhoformError, show, type Where } from '../errors.js';
 import type { Point } from '../types.js';
+import { describe, jsonMessage, jsonOffset } from '../json/strict.js';
 import { elementPath, lineCol, memberPath, scanJson, type JsonSpot } from './json-scan.js';
 import { absArea, allCollinear, dropRepeats, firstSelfIntersection } from './polygon-check.js';
 import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
@@ -26,35 +27,6 @@ const REGION_KEYS = ['role', 'circle', 'rect', 'polygon', 'name'] as const;
 const SHAPE_KEYS = ['circle', 'rect', 'polygon'] as const;
 
 type Obj = Record<string, unknown>;
-
-/** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
-function describe(v: unknown): string {
-  if (v === undefined) return 'nothing';
-  if (v === null) return 'null';
-  if (Array.isArray(v)) return v.length === 0 ? 'an empty array' : `an array of ${v.length}`;
-  if (typeof v === 'object') return 'an object';
-  return show(v);
-}
-
-/** The text of the message of a JSON.parse error, without its position and without the echo of the input. */
-function jsonMessage(e: unknown): string {
-  const m = e instanceof Error ? e.message : String(e);
-  return m
-    .replace(/,\s*"[\s\S]*" is not valid JSON$/, '')
-    .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
-    .replace(/\s*\(line \d+ column \d+\)/, '');
-}
-
-/** The offset of a JSON.parse error, if its message gives one (Node 20: "at position N"; later: "line L column C"). */
-function jsonOffset(text: string, e: unknown): number | { line: number; col: number } | null {
-  const m = e instanceof Error ? e.message : '';
-  const pos = /at position (\d+)/.exec(m);
-  if (pos) return Math.min(Number(pos[1]), text.length);
-  const lc = /line (\d+) column (\d+)/.exec(m);
-  if (lc) return { line: Number(lc[1]), col: Number(lc[2]) };
-  if (/end of (JSON )?input/i.test(m)) return text.length;
-  return null;
-}
 
 class Checker {
   private spots: ReadonlyMap<string, JsonSpot>;

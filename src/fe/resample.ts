@@ -1,0 +1,57 @@
+/**
+ * Coarsening of a cell field for the structural re-check: the area-weighted mean of the fine cells over each
+ * coarse cell, the domain unchanged. With an integer factor c the coarse grid has ⌈nx/c⌉ × ⌈ny/c⌉ cells of size
+ * (nx·hx/⌈nx/c⌉) × (ny·hy/⌈ny/c⌉); when c divides nx and ny these are plain c × c block means. O(fine cells).
+ */
+
+/** Overlap lengths of fine cells [i, i+1)·h with coarse cells [I, I+1)·H, as (first fine, weights) per coarse. */
+function axisWeights(n: number, m: number): { start: Int32Array; count: Int32Array; w: Float64Array; stride: number } {
+  // lengths in units of the fine cell; coarse cell I spans [I·r, (I+1)·r), r = n/m
+  const r = n / m;
+  const stride = Math.ceil(r) + 1;
+  const start = new Int32Array(m);
+  const count = new Int32Array(m);
+  const w = new Float64Array(m * stride);
+  for (let I = 0; I < m; I++) {
+    const a = I * r;
+    const b = Math.min(n, (I + 1) * r);
+    const i0 = Math.floor(a);
+    start[I] = i0;
+    let k = 0;
+    for (let i = i0; i < n && i < b; i++) {
+      const len = Math.min(b, i + 1) - Math.max(a, i);
+      if (len > 0) w[I * stride + k] = len / r;
+      k++;
+    }
+    count[I] = k;
+  }
+  return { start, count, w, stride };
+}
+
+/** Coarsen `values` (nx × ny, values[j·nx + i]) by the integer factor c ≥ 1. */
+export function coarsenCells(values: Float64Array, nx: number, ny: number, c: number): { values: Float64Array; nx: number; ny: number } {
+  if (!(Number.isInteger(c) && c >= 1)) throw new RangeError(`coarsening factor must be an integer ≥ 1, found ${c}`);
+  if (c === 1) return { values, nx, ny };
+  const mx = Math.ceil(nx / c);
+  const my = Math.ceil(ny / c);
+  const ax = axisWeights(nx, mx);
+  const ay = axisWeights(ny, my);
+  // separable: first along x into a (mx × ny) field, then along y
+  const tmp = new Float64Array(mx * ny);
+  for (let j = 0; j < ny; j++) {
+    for (let I = 0; I < mx; I++) {
+      let s = 0;
+      for (let k = 0; k < ax.count[I]; k++) s += ax.w[I * ax.stride + k] * values[j * nx + ax.start[I] + k];
+      tmp[j * mx + I] = s;
+    }
+  }
+  const out = new Float64Array(mx * my);
+  for (let J = 0; J < my; J++) {
+    for (let k = 0; k < ay.count[J]; k++) {
+      const w = ay.w[J * ay.stride + k];
+      const row = (ay.start[J] + k) * mx;
+      for (let I = 0; I < mx; I++) out[J * mx + I] += w * tmp[row + I];
+    }
+  }
+  return { values: out, nx: mx, ny: my };
+}

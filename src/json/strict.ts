@@ -1,0 +1,83 @@
+/**
+ * Reading a strict JSON input file of our own formats (the passive-region file, the loads file): JSON.parse for
+ * the values, the position scanner (passive/json-scan.ts) for where each value sits and for repeated keys, and
+ * the wording shared by their messages (`file:line:col: key.path: expected …, found …`).
+ */
+import { RhoformError, show, type ErrorCode, type Where } from '../errors.js';
+import { lineCol, scanJson, type JsonSpot } from '../passive/json-scan.js';
+
+/** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
+export function describe(v: unknown): string {
+  if (v === undefined) return 'nothing';
+  if (v === null) return 'null';
+  if (Array.isArray(v)) return v.length === 0 ? 'an empty array' : `an array of ${v.length}`;
+  if (typeof v === 'object') return 'an object';
+  return show(v);
+}
+
+/** The text of the message of a JSON.parse error, without its position and without the echo of the input. */
+export function jsonMessage(e: unknown): string {
+  const m = e instanceof Error ? e.message : String(e);
+  return m
+    .replace(/,\s*"[\s\S]*" is not valid JSON$/, '')
+    .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
+    .replace(/\s*\(line \d+ column \d+\)/, '');
+}
+
+/** The offset of a JSON.parse error, if its message gives one (Node 20: "at position N"; later: "line L column C"). */
+export function jsonOffset(text: string, e: unknown): number | { line: number; col: number } | null {
+  const m = e instanceof Error ? e.message : '';
+  const pos = /at position (\d+)/.exec(m);
+  if (pos) return Math.min(Number(pos[1]), text.length);
+  const lc = /line (\d+) column (\d+)/.exec(m);
+  if (lc) return { line: Number(lc[1]), col: Number(lc[2]) };
+  if (/end of (JSON )?input/i.test(m)) return text.length;
+  return null;
+}
+
+export interface StrictJson {
+  /** The text without a byte-order mark (positions refer to it). */
+  readonly text: string;
+  readonly data: unknown;
+  readonly spots: ReadonlyMap<string, JsonSpot>;
+}
+
+/**
+ * Parse `text` as JSON; a syntax error throws `jsonCode` at its line and column, a repeated key throws
+ * `formatCode` at the second occurrence of the key. `file` names the file in messages.
+ */
+export function parseStrictJson(text: string, file: string, jsonCode: ErrorCode, formatCode: ErrorCode): StrictJson {
+  const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // a byte-order mark is not JSON; editors add one
+  let data: unknown;
+  try {
+    data = JSON.parse(src);
+  } catch (e) {
+    let at = jsonOffset(src, e);
+    if (at === null) {
+      const scan = scanJson(src);
+      if (!scan.ok) at = scan.offset;
+    }
+    const where: Where = at === null ? { file } : typeof at === 'number' ? { file, ...lineCol(src, at) } : { file, ...at };
+    throw new RhoformError(jsonCode, `expected JSON, found a syntax error (${jsonMessage(e)})`, where);
+  }
+  const scan = scanJson(src);
+  const spots = scan.ok ? scan.spots : new Map<string, JsonSpot>();
+  if (scan.ok && scan.duplicate !== null) {
+    const { path, key } = scan.duplicate;
+    throw new RhoformError(formatCode, `${path}: expected each key once, found it repeated`, { file, ...lineCol(src, key) });
+  }
+  return { text: src, data, spots };
+}
+
+/** Where the value (or, with `key`, the key) at `path` sits; the nearest enclosing value when it is missing. */
+export function whereOf(json: StrictJson, file: string, path: string, key = false): Where {
+  let p = path;
+  for (;;) {
+    const spot = json.spots.get(p);
+    if (spot) return { file, ...lineCol(json.text, key && spot.key !== undefined ? spot.key : spot.value) };
+    if (p === '') return { file };
+    const cut = Math.max(p.lastIndexOf('.'), p.lastIndexOf('['));
+    p = cut < 0 ? '' : p.slice(0, cut);
+    key = false;
+  }
+}
