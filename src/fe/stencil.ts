@@ -28,29 +28,27 @@ export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float6
   const nx = ex + 1;
   const ny = ey + 1;
   const s = new Float64Array(nx * ny * 36);
-  // slot and source of each of the 16 node-pair blocks of one element
-  const slot = new Int32Array(16);
-  const ofs = new Int32Array(16);
+  // for each of the 16 node-pair blocks of one element: its offset in s from the element's first node, and
+  // where the block starts in ke
+  const off = new Int32Array(16);
+  const src = new Int32Array(16);
   for (let a = 0; a < 4; a++) {
     for (let b = 0; b < 4; b++) {
-      slot[a * 4 + b] = (LJ[b] - LJ[a] + 1) * 3 + (LI[b] - LI[a] + 1);
-      ofs[a * 4 + b] = LJ[a] * nx + LI[a];
+      off[a * 4 + b] = (LJ[a] * nx + LI[a]) * 36 + ((LJ[b] - LJ[a] + 1) * 3 + (LI[b] - LI[a] + 1)) * 4;
+      src[a * 4 + b] = 2 * a * 8 + 2 * b;
     }
   }
   for (let ej = 0; ej < ey; ej++) {
     for (let ei = 0; ei < ex; ei++) {
       const w = scale[ej * ex + ei];
-      if (w === 0) continue;
-      const n0 = ej * nx + ei;
-      for (let a = 0; a < 4; a++) {
-        for (let b = 0; b < 4; b++) {
-          const base = (n0 + ofs[a * 4 + b]) * 36 + slot[a * 4 + b] * 4;
-          const r0 = 2 * a * 8 + 2 * b;
-          s[base] += w * ke[r0];
-          s[base + 1] += w * ke[r0 + 1];
-          s[base + 2] += w * ke[r0 + 8];
-          s[base + 3] += w * ke[r0 + 9];
-        }
+      const n36 = (ej * nx + ei) * 36;
+      for (let p = 0; p < 16; p++) {
+        const base = n36 + off[p];
+        const r0 = src[p];
+        s[base] += w * ke[r0];
+        s[base + 1] += w * ke[r0 + 1];
+        s[base + 2] += w * ke[r0 + 8];
+        s[base + 3] += w * ke[r0 + 9];
       }
     }
   }
