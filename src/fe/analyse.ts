@@ -138,7 +138,7 @@ export function analyse(grid: FeGridSpec, design: FeDesign, spec: LoadsSpec, opt
   if (free.length > 0) {
     const words = free.map((m) => (m === 'rotation' ? 'rotation' : `translation in ${m}`)).join(' and ');
     const held = spec.supports.map((s) => entryLabel(s)).join(', ');
-    throw new RhoformError('E_LOADS_CASE', `supports: expected supports that hold the part still (no rigid-body motion), found ${words} left free by ${held}`, { file: spec.file });
+    throw new RhoformError('E_LOADS_CASE', `supports: expected supports that hold the part still (no rigid-body motion), found ${words} left free by ${held}`, { file: spec.file, ...spec.supportsAt });
   }
 
   const sol = solveElastic({ ex, ey, hx, hy, nu, stiffness, fixed: lc.fixed, force: lc.force }, opts);

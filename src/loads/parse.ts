@@ -176,7 +176,7 @@ class Checker {
     }
     const supports = this.list(o.supports, 'supports', 'supports').map((s, k) => this.support(s, elementPath('supports', k)));
     const loads = this.list(o.loads, 'loads', 'loads').map((s, k) => this.load(s, elementPath('loads', k)));
-    return { file, material: { E, nu }, thickness, interpolation: { penal, minStiffness }, supports, loads };
+    return { file, material: { E, nu }, thickness, interpolation: { penal, minStiffness }, supports, loads, supportsAt: this.at('supports') };
   }
 }
 

@@ -47,4 +47,6 @@ export interface LoadsSpec {
   readonly interpolation: { readonly penal: number; readonly minStiffness: number };
   readonly supports: readonly Support[];
   readonly loads: readonly Load[];
+  /** Where the `supports` array starts in the file (1-based), for messages about the supports together. */
+  readonly supportsAt?: { readonly line?: number; readonly col?: number };
 }

@@ -76,8 +76,11 @@ describe('parseLoads: bad files (fixtures/loads/bad/) give the right code, key p
     expect(e.detail).toMatch(/^supports\[1\] \("stop"\): the rect catches no node of the grid/);
     expect(e.where?.line).toBe(positionOf(nothing, '"stop"').line);
 
-    e = errorOf(() => analyse(demo, solid, parseLoads(bad('rigid-body.json'), 'rigid-body.json')));
+    const rigid = bad('rigid-body.json');
+    e = errorOf(() => analyse(demo, solid, parseLoads(rigid, 'rigid-body.json')));
     expect(e.code).toBe('E_LOADS_CASE');
+    const s = positionOf(rigid, '[{ "fix"');
+    expect(e.where).toEqual({ file: 'rigid-body.json', line: s.line, col: s.col });
     expect(e.detail).toBe('supports: expected supports that hold the part still (no rigid-body motion), found rotation left free by supports[0] ("one bolt")');
   });
 });
