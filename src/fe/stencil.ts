@@ -85,32 +85,125 @@ export function eliminate(A: Stencil, fixed: Uint8Array): void {
   }
 }
 
-/** y = A x. */
-export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
-  const { nx, ny, s } = A;
-  for (let j = 0; j < ny; j++) {
-    const j0 = j > 0 ? -1 : 0;
-    const j1 = j < ny - 1 ? 1 : 0;
-    for (let i = 0; i < nx; i++) {
-      const i0 = i > 0 ? -1 : 0;
-      const i1 = i < nx - 1 ? 1 : 0;
-      const n = j * nx + i;
-      let yu = 0;
-      let yv = 0;
-      for (let dj = j0; dj <= j1; dj++) {
-        for (let di = i0; di <= i1; di++) {
-          const m = n + dj * nx + di;
-          const b = n * 36 + ((dj + 1) * 3 + di + 1) * 4;
-          const xu = x[2 * m];
-          const xv = x[2 * m + 1];
-          yu += s[b] * xu + s[b + 1] * xv;
-          yv += s[b + 2] * xu + s[b + 3] * xv;
-        }
-      }
-      y[2 * n] = yu;
-      y[2 * n + 1] = yv;
+/** Row n of A x into y (generic path, any node: neighbours outside the grid are skipped). */
+function applyNode(nx: number, ny: number, s: Float64Array, x: Float64Array, y: Float64Array, i: number, j: number): void {
+  const n = j * nx + i;
+  let yu = 0;
+  let yv = 0;
+  for (let dj = j > 0 ? -1 : 0; dj <= (j < ny - 1 ? 1 : 0); dj++) {
+    for (let di = i > 0 ? -1 : 0; di <= (i < nx - 1 ? 1 : 0); di++) {
+      const m = n + dj * nx + di;
+      const b = n * 36 + ((dj + 1) * 3 + di + 1) * 4;
+      const xu = x[2 * m];
+      const xv = x[2 * m + 1];
+      yu += s[b] * xu + s[b + 1] * xv;
+      yv += s[b + 2] * xu + s[b + 3] * xv;
     }
   }
+  y[2 * n] = yu;
+  y[2 * n + 1] = yv;
+}
+
+/** y = A x. Interior nodes take an unrolled path; the boundary ring the generic one. */
+export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
+  const { nx, ny, s } = A;
+  const rowUp = 2 * nx;
+  for (let j = 0; j < ny; j++) {
+    if (j === 0 || j === ny - 1 || nx < 3) {
+      for (let i = 0; i < nx; i++) applyNode(nx, ny, s, x, y, i, j);
+      continue;
+    }
+    applyNode(nx, ny, s, x, y, 0, j);
+    for (let i = 1; i < nx - 1; i++) {
+      const n = j * nx + i;
+      const o = n * 36;
+      const d = 2 * n;
+      // slots 0..8: (−1,−1) (0,−1) (1,−1) (−1,0) (0,0) (1,0) (−1,1) (0,1) (1,1) as (di, dj)
+      let m = d - rowUp - 2;
+      let yu = s[o] * x[m] + s[o + 1] * x[m + 1];
+      let yv = s[o + 2] * x[m] + s[o + 3] * x[m + 1];
+      m += 2;
+      yu += s[o + 4] * x[m] + s[o + 5] * x[m + 1];
+      yv += s[o + 6] * x[m] + s[o + 7] * x[m + 1];
+      m += 2;
+      yu += s[o + 8] * x[m] + s[o + 9] * x[m + 1];
+      yv += s[o + 10] * x[m] + s[o + 11] * x[m + 1];
+      m = d - 2;
+      yu += s[o + 12] * x[m] + s[o + 13] * x[m + 1];
+      yv += s[o + 14] * x[m] + s[o + 15] * x[m + 1];
+      m += 2;
+      yu += s[o + 16] * x[m] + s[o + 17] * x[m + 1];
+      yv += s[o + 18] * x[m] + s[o + 19] * x[m + 1];
+      m += 2;
+      yu += s[o + 20] * x[m] + s[o + 21] * x[m + 1];
+      yv += s[o + 22] * x[m] + s[o + 23] * x[m + 1];
+      m = d + rowUp - 2;
+      yu += s[o + 24] * x[m] + s[o + 25] * x[m + 1];
+      yv += s[o + 26] * x[m] + s[o + 27] * x[m + 1];
+      m += 2;
+      yu += s[o + 28] * x[m] + s[o + 29] * x[m + 1];
+      yv += s[o + 30] * x[m] + s[o + 31] * x[m + 1];
+      m += 2;
+      yu += s[o + 32] * x[m] + s[o + 33] * x[m + 1];
+      yv += s[o + 34] * x[m] + s[o + 35] * x[m + 1];
+      y[d] = yu;
+      y[d + 1] = yv;
+    }
+    applyNode(nx, ny, s, x, y, nx - 1, j);
+  }
+}
+
+/** One block Gauss–Seidel update of node (i, j): solve its 2×2 diagonal block against the rest of its row. */
+function relaxNode(nx: number, ny: number, s: Float64Array, x: Float64Array, b: Float64Array, i: number, j: number): void {
+  const n = j * nx + i;
+  const o = n * 36;
+  let ru = b[2 * n];
+  let rv = b[2 * n + 1];
+  if (i > 0 && j > 0 && i < nx - 1 && j < ny - 1) {
+    const rowUp = 2 * nx;
+    const d = 2 * n;
+    let m = d - rowUp - 2;
+    ru -= s[o] * x[m] + s[o + 1] * x[m + 1];
+    rv -= s[o + 2] * x[m] + s[o + 3] * x[m + 1];
+    m += 2;
+    ru -= s[o + 4] * x[m] + s[o + 5] * x[m + 1];
+    rv -= s[o + 6] * x[m] + s[o + 7] * x[m + 1];
+    m += 2;
+    ru -= s[o + 8] * x[m] + s[o + 9] * x[m + 1];
+    rv -= s[o + 10] * x[m] + s[o + 11] * x[m + 1];
+    m = d - 2;
+    ru -= s[o + 12] * x[m] + s[o + 13] * x[m + 1];
+    rv -= s[o + 14] * x[m] + s[o + 15] * x[m + 1];
+    m = d + 2;
+    ru -= s[o + 20] * x[m] + s[o + 21] * x[m + 1];
+    rv -= s[o + 22] * x[m] + s[o + 23] * x[m + 1];
+    m = d + rowUp - 2;
+    ru -= s[o + 24] * x[m] + s[o + 25] * x[m + 1];
+    rv -= s[o + 26] * x[m] + s[o + 27] * x[m + 1];
+    m += 2;
+    ru -= s[o + 28] * x[m] + s[o + 29] * x[m + 1];
+    rv -= s[o + 30] * x[m] + s[o + 31] * x[m + 1];
+    m += 2;
+    ru -= s[o + 32] * x[m] + s[o + 33] * x[m + 1];
+    rv -= s[o + 34] * x[m] + s[o + 35] * x[m + 1];
+  } else {
+    for (let dj = j > 0 ? -1 : 0; dj <= (j < ny - 1 ? 1 : 0); dj++) {
+      for (let di = i > 0 ? -1 : 0; di <= (i < nx - 1 ? 1 : 0); di++) {
+        if (di === 0 && dj === 0) continue;
+        const m = n + dj * nx + di;
+        const q = o + ((dj + 1) * 3 + di + 1) * 4;
+        ru -= s[q] * x[2 * m] + s[q + 1] * x[2 * m + 1];
+        rv -= s[q + 2] * x[2 * m] + s[q + 3] * x[2 * m + 1];
+      }
+    }
+  }
+  const a = s[o + 16];
+  const bb = s[o + 17];
+  const c = s[o + 18];
+  const d = s[o + 19];
+  const det = a * d - bb * c;
+  x[2 * n] = (d * ru - bb * rv) / det;
+  x[2 * n + 1] = (a * rv - c * ru) / det;
 }
 
 /**
@@ -119,35 +212,9 @@ export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
  */
 export function gaussSeidel(A: Stencil, x: Float64Array, b: Float64Array, forward: boolean): void {
   const { nx, ny, s } = A;
-  const N = nx * ny;
-  for (let t = 0; t < N; t++) {
-    const n = forward ? t : N - 1 - t;
-    const i = n % nx;
-    const j = (n - i) / nx;
-    const j0 = j > 0 ? -1 : 0;
-    const j1 = j < ny - 1 ? 1 : 0;
-    const i0 = i > 0 ? -1 : 0;
-    const i1 = i < nx - 1 ? 1 : 0;
-    let ru = b[2 * n];
-    let rv = b[2 * n + 1];
-    for (let dj = j0; dj <= j1; dj++) {
-      for (let di = i0; di <= i1; di++) {
-        if (di === 0 && dj === 0) continue;
-        const m = n + dj * nx + di;
-        const o = n * 36 + ((dj + 1) * 3 + di + 1) * 4;
-        const xu = x[2 * m];
-        const xv = x[2 * m + 1];
-        ru -= s[o] * xu + s[o + 1] * xv;
-        rv -= s[o + 2] * xu + s[o + 3] * xv;
-      }
-    }
-    const o = n * 36 + 16;
-    const a = s[o];
-    const bb = s[o + 1];
-    const c = s[o + 2];
-    const d = s[o + 3];
-    const det = a * d - bb * c;
-    x[2 * n] = (d * ru - bb * rv) / det;
-    x[2 * n + 1] = (a * rv - c * ru) / det;
+  if (forward) {
+    for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) relaxNode(nx, ny, s, x, b, i, j);
+  } else {
+    for (let j = ny - 1; j >= 0; j--) for (let i = nx - 1; i >= 0; i--) relaxNode(nx, ny, s, x, b, i, j);
   }
 }
