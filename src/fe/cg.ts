@@ -39,7 +39,7 @@ export function pcg(
   const maxIt = opts.maxIterations ?? 1000;
   const n = f.length;
   const u = new Float64Array(n);
-  const r = Float64Array.from(f);
+  const r = f.slice();
   const z = new Float64Array(n);
   const p = new Float64Array(n);
   const q = new Float64Array(n);

@@ -41,7 +41,7 @@ export function solveElastic(p: ElasticProblem, opts: SolveOptions = {}): Elasti
   const ke = elementStiffness(p.hx, p.hy, p.nu);
   const A = assemble(p.ex, p.ey, ke, p.stiffness);
   eliminate(A, p.fixed);
-  const f = Float64Array.from(p.force);
+  const f = p.force.slice();
   for (let d = 0; d < f.length; d++) if (p.fixed[d]) f[d] = 0;
   const mg = buildMultigrid(A, opts.coarsestDofs);
   const { u, stats } = pcg(A, f, mg.precondition, opts);

@@ -49,11 +49,13 @@ function runCase(nx: number, ny: number, maxElements: number): Record<string, nu
     'bench.json',
   );
   const t0 = performance.now();
+  const cpu0 = process.cpuUsage();
   const density = coverage(polygons, { nx, ny, hx: h, hy: h });
   const tCov = (performance.now() - t0) / 1000;
   const input = analyse({ nx, ny, hx: h, hy: h }, { kind: 'density', values: density }, spec, { maxElements });
   const final = analyse({ nx, ny, hx: h, hy: h }, { kind: 'geometry', polygons }, spec, { maxElements });
   const total = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
   return {
     grid: `${nx}×${ny}`,
     coarsened: input.coarsened,
@@ -66,6 +68,7 @@ function runCase(nx: number, ny: number, maxElements: number): Record<string, nu
     finalResidual: final.solver.relativeResidual,
     levels: input.levels,
     totalSeconds: +total.toFixed(2),
+    cpuSeconds: +((cpu.user + cpu.system) / 1e6).toFixed(2),
     peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
     complianceChange: +(final.compliance / input.compliance - 1).toFixed(4),
   };
@@ -78,12 +81,12 @@ if (arg) {
   console.log(JSON.stringify(runCase(nx, ny, maxElements)));
 } else {
   const me = fileURLToPath(import.meta.url);
-  const rows = ['| grid | coarsened | input: s / CG its | final: s / CG its | MG levels | total s (with coverage) | peak RSS MB |', '|---|---|---|---|---|---|---|'];
+  const rows = ['| grid | coarsened | input: s / CG its | final: s / CG its | MG levels | total wall s (with coverage) | CPU s | peak RSS MB |', '|---|---|---|---|---|---|---|---|'];
   for (const size of ['400x200', '1000x500']) {
     const r = spawnSync(process.execPath, [me, size], { encoding: 'utf8', env: process.env });
     if (r.status !== 0) throw new Error(`fe bench ${size} failed: ${r.stderr}`);
     const o = JSON.parse(r.stdout.trim().split('\n').pop() as string) as Record<string, number | string>;
-    rows.push(`| ${o.grid} | ${o.coarsened} | ${o.inputSeconds} / ${o.inputIterations} | ${o.finalSeconds} / ${o.finalIterations} | ${o.levels} | ${o.totalSeconds} | ${o.peakRssMb} |`);
+    rows.push(`| ${o.grid} | ${o.coarsened} | ${o.inputSeconds} / ${o.inputIterations} | ${o.finalSeconds} / ${o.finalIterations} | ${o.levels} | ${o.totalSeconds} | ${o.cpuSeconds} | ${o.peakRssMb} |`);
     console.error(JSON.stringify(o));
   }
   console.log(rows.join('\n'));
