@@ -5,4 +5,4 @@ export { freeRigidModes, type RigidMode } from './rigid.js';
 export { solveElastic, type ElasticProblem, type ElasticSolution, type SolveOptions } from './solve.js';
 export type { SolverStats, CgOptions } from './cg.js';
 export { vonMises } from './stress.js';
-export { coarsenCells } from './resample.js';
+export { coarsenCells, nodalToCells } from './resample.js';

@@ -58,42 +58,38 @@ interface Level {
   readonly x: Float64Array;
 }
 
+/** Parents of every fine index along one axis as flat arrays: up to two (coarse index, weight) pairs per index. */
+function parentLists(m: AxisMap): { idx: Int32Array; wt: Float64Array; cnt: Uint8Array } {
+  const idx = new Int32Array(2 * m.nf);
+  const wt = new Float64Array(2 * m.nf);
+  const cnt = new Uint8Array(m.nf);
+  for (let i = 0; i < m.nf; i++) {
+    let k = 0;
+    if (m.w0[i] !== 0) {
+      idx[2 * i] = m.p0[i];
+      wt[2 * i] = m.w0[i];
+      k = 1;
+    }
+    if (m.w0[i] !== 1) {
+      idx[2 * i + k] = m.p0[i] + 1;
+      wt[2 * i + k] = 1 - m.w0[i];
+      k++;
+    }
+    cnt[i] = k;
+  }
+  return { idx, wt, cnt };
+}
+
 /** Galerkin product Pᵀ A P for the tensor-product bilinear prolongation given by `mx`, `my`. */
 export function galerkin(A: Stencil, mx: AxisMap, my: AxisMap): Stencil {
   const { nx, ny, s } = A;
   const cx = mx.nc;
-  const cy = my.nc;
-  const sc = new Float64Array(cx * cy * 36);
-  const PI = new Int32Array(4);
-  const PJ = new Int32Array(4);
-  const PW = new Float64Array(4);
-  const QI = new Int32Array(4);
-  const QJ = new Int32Array(4);
-  const QW = new Float64Array(4);
-  const parents = (i: number, j: number, I: Int32Array, J: Int32Array, Wt: Float64Array): number => {
-    let k = 0;
-    const xi = mx.p0[i];
-    const xw = mx.w0[i];
-    const yj = my.p0[j];
-    const yw = my.w0[j];
-    for (let a = 0; a < 2; a++) {
-      const wxa = a === 0 ? xw : 1 - xw;
-      if (wxa === 0) continue;
-      for (let b = 0; b < 2; b++) {
-        const wyb = b === 0 ? yw : 1 - yw;
-        if (wyb === 0) continue;
-        I[k] = xi + a;
-        J[k] = yj + b;
-        Wt[k] = wxa * wyb;
-        k++;
-      }
-    }
-    return k;
-  };
+  const sc = new Float64Array(cx * my.nc * 36);
+  const X = parentLists(mx);
+  const Y = parentLists(my);
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
       const n = j * nx + i;
-      const np = parents(i, j, PI, PJ, PW);
       for (let k = 0; k < 9; k++) {
         const ii = i + (k % 3) - 1;
         const jj = j + ((k / 3) | 0) - 1;
@@ -104,23 +100,33 @@ export function galerkin(A: Stencil, mx: AxisMap, my: AxisMap): Stencil {
         const a10 = s[o + 2];
         const a11 = s[o + 3];
         if (a00 === 0 && a01 === 0 && a10 === 0 && a11 === 0) continue;
-        const nq = parents(ii, jj, QI, QJ, QW);
-        for (let p = 0; p < np; p++) {
-          const rowBase = (PJ[p] * cx + PI[p]) * 36;
-          for (let q = 0; q < nq; q++) {
-            const w = PW[p] * QW[q];
-            const slot = (QJ[q] - PJ[p] + 1) * 3 + (QI[q] - PI[p] + 1);
-            const t = rowBase + slot * 4;
-            sc[t] += w * a00;
-            sc[t + 1] += w * a01;
-            sc[t + 2] += w * a10;
-            sc[t + 3] += w * a11;
+        // rows: parents (PI, PJ) of fine node (i, j); columns: parents (QI, QJ) of its neighbour (ii, jj)
+        for (let py = 0; py < Y.cnt[j]; py++) {
+          const PJ = Y.idx[2 * j + py];
+          const wpy = Y.wt[2 * j + py];
+          for (let px = 0; px < X.cnt[i]; px++) {
+            const PI = X.idx[2 * i + px];
+            const wp = wpy * X.wt[2 * i + px];
+            const rowBase = (PJ * cx + PI) * 36;
+            for (let qy = 0; qy < Y.cnt[jj]; qy++) {
+              const QJ = Y.idx[2 * jj + qy];
+              const wpq = wp * Y.wt[2 * jj + qy];
+              const slotRow = rowBase + (QJ - PJ + 1) * 12;
+              for (let qx = 0; qx < X.cnt[ii]; qx++) {
+                const w = wpq * X.wt[2 * ii + qx];
+                const t = slotRow + (X.idx[2 * ii + qx] - PI + 1) * 4;
+                sc[t] += w * a00;
+                sc[t + 1] += w * a01;
+                sc[t + 2] += w * a10;
+                sc[t + 3] += w * a11;
+              }
+            }
           }
         }
       }
     }
   }
-  return { nx: cx, ny: cy, s: sc };
+  return { nx: cx, ny: my.nc, s: sc };
 }
 
 /** rc = Pᵀ rf. */

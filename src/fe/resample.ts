@@ -55,3 +55,22 @@ export function coarsenCells(values: Float64Array, nx: number, ny: number, c: nu
   }
   return { values: out, nx: mx, ny: my };
 }
+
+/**
+ * Element values of a nodal grid (`--values nodes`: N × M samples on cell corners): the (N − 1) × (M − 1) cells
+ * between the samples, each with the mean of its four corners (DESIGN §12) — the mean of the bilinear field
+ * over the cell.
+ */
+export function nodalToCells(values: Float64Array, nx: number, ny: number): { values: Float64Array; nx: number; ny: number } {
+  if (!(nx >= 2 && ny >= 2)) throw new RangeError(`a nodal grid needs at least 2 × 2 samples, found ${nx} × ${ny}`);
+  const ex = nx - 1;
+  const ey = ny - 1;
+  const out = new Float64Array(ex * ey);
+  for (let j = 0; j < ey; j++) {
+    for (let i = 0; i < ex; i++) {
+      const k = j * nx + i;
+      out[j * ex + i] = 0.25 * (values[k] + values[k + 1] + values[k + nx] + values[k + nx + 1]);
+    }
+  }
+  return { values: out, nx: ex, ny: ey };
+}

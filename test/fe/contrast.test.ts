@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { analyse, coarseningFactor } from '../../src/fe/analyse.js';
 import { factorBanded, solveBanded } from '../../src/fe/banded.js';
 import { elementStiffness } from '../../src/fe/element.js';
-import { coarsenCells } from '../../src/fe/resample.js';
+import { coarsenCells, nodalToCells } from '../../src/fe/resample.js';
 import { assemble, eliminate } from '../../src/fe/stencil.js';
 import { parseLoads } from '../../src/loads/parse.js';
 import { resolveLoadCase } from '../../src/loads/resolve.js';
@@ -53,6 +53,16 @@ describe('coarsening above the element limit', () => {
     expect(coarseningFactor(1000, 500, 500_000)).toBe(1);
     expect(coarseningFactor(1001, 500, 500_000)).toBe(2);
     expect(coarseningFactor(4000, 2000, 500_000)).toBe(4);
+  });
+
+  it('a nodal grid becomes the cells between its samples, each the mean of its corners — the exact mean of the bilinear field (DESIGN §12)', () => {
+    // a bilinear field f = 1 + 2x + 3y + xy sampled on a 4 × 3 node grid of unit cells: the exact cell mean of
+    // f over [i, i+1] × [j, j+1] is 1 + 2(i + ½) + 3(j + ½) + (i + ½)(j + ½) (analytic: f is bilinear)
+    const f = (x: number, y: number): number => 1 + 2 * x + 3 * y + x * y;
+    const v = Float64Array.from({ length: 12 }, (_, k) => f(k % 4, Math.floor(k / 4)));
+    const c = nodalToCells(v, 4, 3);
+    expect([c.nx, c.ny]).toEqual([3, 2]);
+    for (let j = 0; j < 2; j++) for (let i = 0; i < 3; i++) expect(c.values[j * 3 + i]).toBeCloseTo(f(i + 0.5, j + 0.5), 13);
   });
 
   it('a coarsened bar in tension still gives FL/(EA) (Gere & Timoshenko), and the factor is reported', () => {
