@@ -11,7 +11,7 @@
  * interpolant on the non-uniform coarse grid. An axis of 3 nodes or fewer is no longer coarsened.
  */
 import { factorBanded, solveBanded, type BandedCholesky } from './banded.js';
-import { apply, gaussSeidel, type Stencil } from './stencil.js';
+import { gaussSeidel, residualAfterForwardSweep, type Stencil } from './stencil.js';
 
 /** The parents of the fine nodes along one axis: fine i takes w0[i] of coarse p0[i] and 1 − w0[i] of p0[i] + 1. */
 interface AxisMap {
@@ -223,8 +223,7 @@ export function buildMultigrid(A: Stencil, coarsestDofs = COARSEST_DOFS): Multig
     }
     x.fill(0);
     gaussSeidel(L.A, x, b, true);
-    apply(L.A, x, L.r);
-    for (let k = 0; k < b.length; k++) L.r[k] = b[k] - L.r[k];
+    residualAfterForwardSweep(L.A, x, L.r);
     const next = levels[l + 1];
     restrict(L.mx!, L.my!, L.r, next.b);
     vcycle(l + 1, next.b, next.x);
