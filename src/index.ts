@@ -1,8 +1,17 @@
 /** rhoform as a library: re-exports only. */
-export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, CheckResult, Location, Status, InputFormat, RepairRecord } from './types.js';
+export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, ReportSettings, ThresholdSummary, Domain, CheckResult, Location, Status, InputFormat, RepairRecord } from './types.js';
 export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
 export { DEFAULT_SETTINGS, resolveSettings, needsBooleanEngine, REPAIR_IDS, MIRROR_EDGES, type Settings, type OutputFormat, type SaddleRuleName, type RepairName, type MirrorEdge } from './settings.js';
-export { build, type BuildResult, type BuildExtras } from './pipeline.js';
+export { build, prepareBuild, type BuildResult, type BuildExtras } from './pipeline.js';
+// The stages, each callable alone (docs/architecture.md).
+export { prepareStage, type PreparedField } from './field/stage.js';
+export { thresholdStage, outlineStage, type ThresholdRecord, type OutlineRecord, type ThresholdInput, type OutlineInput } from './threshold/stage.js';
+export { passiveStage, type PassiveRecord, type PassiveStageInput } from './passive/stage.js';
+export { applyFixedParts, type FixedPartsResult } from './passive/fixed-parts.js';
+export { planStage, checkStage, type CheckPlan, type CheckInput, type CheckRecord } from './check/stage.js';
+export { repairStage, type RepairStageInput, type RepairStageRecord } from './repair/stage.js';
+export { writeStage, type WriteStageInput, type WriteRecord } from './write/stage.js';
+export { assembleReport, reportSettings, type ReportRecords } from './report/assemble.js';
 export { inspect, loadGrid, describeInput, type InspectResult, type InputFile } from './input.js';
 export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
 export { readGrid, detectFormat } from './read/detect.js';
@@ -28,7 +37,7 @@ export { runChecks, summarize, verdict, type PlannedCheck } from './check/run.js
 export { PROCESS_IDS, processLimits, processTitle, type ProcessId, type PresetValue } from './check/process.js';
 export { buildMorphology, choosePixel } from './morph/index.js';
 export type { Morphology, MorphologyOptions, WidthSurvey, CornerSurvey, ThicknessMap } from './morph/types.js';
-export { numberFindings, type NumberedFinding } from './report/findings.js';
+export { numberFindings, type NumberedFinding } from './check/findings.js';
 export type { HtmlPictures } from './report/html.js';
 export { parsePassive } from './passive/parse.js';
 export { applyPassiveToGrid } from './passive/cells.js';
@@ -38,5 +47,5 @@ export { unfoldGrid, unfoldLocate, mirrorPlanes, type MirrorPlane } from './fiel
 export { symmetrize } from './geom/symmetry.js';
 export { fitCircle, findCircleRings } from './geom/fit-circle.js';
 export { booleanOp, unionRings, offsetRings, bufferPolylines, loadBooleanEngine, type BooleanOp } from './geom/clipper.js';
-export type { Circle } from './geom/circle.js';
-export type { RingCircle, WriterInput } from './write/types.js';
+export type { Circle, RingCircle } from './geom/circle.js';
+export type { WriterInput } from './write/types.js';

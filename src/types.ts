@@ -38,6 +38,11 @@ export interface PolygonSet {
   readonly polygons: readonly Polygon[];
 }
 
+import type { Settings } from './settings.js';
+
+/** The domain rectangle [minX, minY, maxX, maxY], mm, y up (the grid's cells, unfolded under `--mirror`). */
+export type Domain = readonly [minX: number, minY: number, maxX: number, maxY: number];
+
 /** Where a grid came from, as far as the report is concerned. */
 export type InputFormat = 'csv' | 'npy';
 
@@ -86,6 +91,29 @@ export interface CheckResult {
   locationsTotal: number;
 }
 
+/**
+ * Every option of the run as the report prints it: the settings resolved for this grid (the tolerance in mm, the
+ * layout read, the size limits after a process preset, the cell size used). Key order is the JSON order.
+ */
+export interface ReportSettings extends Omit<Settings, 'tolerance' | 'layout'> {
+  /** mm: the outline's deviation budget actually used. */
+  tolerance: number;
+  /** The layout read ('auto' resolved). */
+  layout: 'grid' | 'long';
+}
+
+/** The threshold stage's choice (report `threshold`; docs/threshold.md). Fractions of the domain area. */
+export interface ThresholdSummary {
+  mode: 'volume' | 'level' | 'constant';
+  /** The iso-level; null when there is no level (a constant field). */
+  level: number | null;
+  targetFraction: number;
+  /** Smoothed polygon area / domain area, before passive regions and repair. */
+  achievedFraction: number;
+  /** Share of samples at or above the level. */
+  pixelFraction: number;
+}
+
 /** The JSON report, schemaVersion 1 (docs/report-schema.md). Fields may be added, never renamed or removed. */
 export interface Report {
   schemaVersion: 1;
@@ -103,14 +131,8 @@ export interface Report {
     greyLevel: number;
     nonFinite: number;
   };
-  settings: Record<string, unknown>;
-  threshold: {
-    mode: 'volume' | 'level' | 'constant';
-    level: number | null;
-    targetFraction: number;
-    achievedFraction: number;
-    pixelFraction: number;
-  };
+  settings: ReportSettings;
+  threshold: ThresholdSummary;
   geometry: {
     polygons: number;
     holes: number;

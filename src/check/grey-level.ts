@@ -12,11 +12,11 @@ import type { CheckContext, CheckDefinition, Measurement } from './types.js';
 export const GREY_RESOLUTION = 1e-9;
 
 /**
- * Reads M_nd (%) of the input from ctx.report.input.greyLevel (computed once over the finite input values,
+ * Reads M_nd (%) of the input from ctx.greyLevel (computed once over the finite input values,
  * clipped to [0, 1], by the input statistics). Null when the input has no finite value.
  */
 export function measureGreyLevel(ctx: CheckContext, _limit: number): Measurement {
-  const g = ctx.report.input.greyLevel;
+  const g = ctx.greyLevel;
   const measured = Number.isFinite(g) ? g : null;
   return {
     measured,

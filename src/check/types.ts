@@ -5,10 +5,9 @@
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
  */
 import type { Morphology } from '../morph/types.js';
-import type { CheckResult, DensityGrid, PolygonSet, Report, Ring } from '../types.js';
+import type { CheckResult, DensityGrid, PolygonSet, Ring, ThresholdSummary } from '../types.js';
 import type { CheckId } from './ids.js';
 
-export type Severity = 'off' | 'warn' | 'fail';
 export type CheckUnit = CheckResult['unit'];
 
 /** A place in the report frame (mm, y up) with the value measured there (in the check's unit). */
@@ -49,8 +48,10 @@ export interface CheckContext {
   readonly domain: readonly [number, number, number, number];
   /** The prepared density grid (values 0..1). */
   readonly grid: DensityGrid;
-  /** The report sections the checks read: input statistics, the threshold and the smoothing measures. */
-  readonly report: Pick<Report, 'input' | 'threshold' | 'smoothing' | 'settings'>;
+  /** The threshold stage's choice: the target and the achieved (smoothed) fraction. */
+  readonly threshold: ThresholdSummary;
+  /** M_nd of the input, % (Sigmund 2007; the report's `input.greyLevel`). */
+  readonly greyLevel: number;
   /** The outline's deviation budget, mm (the resolved `--tolerance`). */
   readonly tolerance: number;
   /**

@@ -2,7 +2,7 @@
  * `volume-fraction`: relative error of the smoothed polygon area against the target volume fraction
  * (docs/threshold.md; docs/checks/volume-fraction.md). Unit '1' (a ratio); measured ≤ limit passes.
  *
- * Reads ctx.report.threshold: `achievedFraction` (smoothed polygon area / domain area, before passive regions
+ * Reads ctx.threshold: `achievedFraction` (smoothed polygon area / domain area, before passive regions
  * and repair) and `targetFraction`. No locations: the error belongs to the whole part.
  */
 import type { CheckContext, CheckDefinition, Measurement } from './types.js';
@@ -26,7 +26,7 @@ export function volumeError(targetFraction: number, achievedFraction: number): n
 
 /** Measures the relative volume error of the smoothed outline (see {@link volumeError}). */
 export function measureVolumeFraction(ctx: CheckContext, _limit: number): Measurement {
-  const { targetFraction, achievedFraction, mode } = ctx.report.threshold;
+  const { targetFraction, achievedFraction, mode } = ctx.threshold;
   const measured = volumeError(targetFraction, achievedFraction);
   const how = targetFraction > 0
     ? '|achieved − target| / target, achieved = smoothed polygon area / domain area'

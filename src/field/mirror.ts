@@ -19,17 +19,10 @@
 import { UsageError } from '../errors.js';
 import type { SamplePosition } from '../read/types.js';
 import type { MirrorEdge } from '../settings.js';
+import type { MirrorPlane } from '../geom/symmetry.js';
 import type { DensityGrid } from '../types.js';
 
-/** A symmetry plane in the frame of the input grid (mm, y up): the line `axis` = `at`. */
-export interface MirrorPlane {
-  /** 'x': the vertical line x = at (from `left`/`right`); 'y': the horizontal line y = at (`bottom`/`top`). */
-  readonly axis: 'x' | 'y';
-  /** mm, in the input grid's frame (unchanged by unfolding). */
-  readonly at: number;
-  /** The side the input lies on: 'above' = coordinates ≥ at, 'below' = coordinates ≤ at. */
-  readonly keep: 'below' | 'above';
-}
+export type { MirrorPlane } from '../geom/symmetry.js';
 
 type Sides = { x: 'left' | 'right' | null; y: 'bottom' | 'top' | null };
 

@@ -3,6 +3,14 @@
  */
 import type { Point, Ring } from '../types.js';
 
+/**
+ * The sagitta (mm) within which circles and arcs are polygonised: a quarter of the outline's deviation budget
+ * `tolerance` (mm), so a polygonised arc spends at most a quarter of what the outline may deviate.
+ */
+export function arcSagitta(tolerance: number): number {
+  return tolerance / 4;
+}
+
 /** A circle: centre (mm) and radius (mm). */
 export interface Circle {
   readonly cx: number;
@@ -38,4 +46,22 @@ export function circleRing(c: Circle, tolerance: number): Point[] {
 /** The same ring in the opposite direction (a hole from an outer ring and back). */
 export function reversed(ring: Ring): Point[] {
   return [...ring].reverse();
+}
+
+/**
+ * A ring of the part that is a true circle (a passive-void bolt hole, or a ring `--circles` recognised): the
+ * writers draw the circle instead of the ring's vertices — a DXF CIRCLE, SVG arc commands inside the part's
+ * even-odd path (so it still cuts). mm, y up.
+ */
+export interface RingCircle {
+  /** Index into `polygons.polygons`. */
+  readonly polygon: number;
+  /** 0 = the outer ring, k ≥ 1 = hole k − 1. */
+  readonly ring: number;
+  /** Centre (mm) and radius (mm, > 0). */
+  readonly x: number;
+  readonly y: number;
+  readonly r: number;
+  /** DXF layer of the circle: 'passive' for a passive region's circle; default the ring's own (outline / hole). */
+  readonly layer?: 'passive';
 }

@@ -15,7 +15,7 @@
  */
 import { RhoformError } from '../errors.js';
 import type { PolygonSet, Ring } from '../types.js';
-import type { RingCircle } from '../write/types.js';
+import type { RingCircle } from './circle.js';
 import type { Circle } from './circle.js';
 
 /** Fewest vertices a ring needs to count as a circle. */

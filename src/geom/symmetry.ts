@@ -1,12 +1,20 @@
 /**
  * Exact mirror symmetry of an outline about the planes of a `--mirror` unfolding (docs/symmetry.md).
  */
-import type { MirrorPlane } from '../field/mirror.js';
 import { RhoformError } from '../errors.js';
 import type { Point, PolygonSet, Ring } from '../types.js';
 import { booleanOp, quantumFor, ringsOf, unionRings } from './clipper.js';
 
-export type { MirrorPlane } from '../field/mirror.js';
+/** A symmetry plane in the frame of the input grid (mm, y up): the line `axis` = `at`. */
+export interface MirrorPlane {
+  /** 'x': the vertical line x = at (from `left`/`right`); 'y': the horizontal line y = at (`bottom`/`top`). */
+  readonly axis: 'x' | 'y';
+  /** mm, in the input grid's frame (unchanged by unfolding). */
+  readonly at: number;
+  /** The side the input lies on: 'above' = coordinates ≥ at, 'below' = coordinates ≤ at. */
+  readonly keep: 'below' | 'above';
+}
+
 
 /**
  * Makes an outline of an unfolded grid exactly symmetric about the mirror planes: the part on the input's

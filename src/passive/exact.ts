@@ -18,11 +18,11 @@
  * Frame: mm, y up, origin at the lower-left corner of the grid. Output orientation as DESIGN §3: outer rings
  * counter-clockwise, holes clockwise.
  */
-import { circleSegments } from '../geom/circle.js';
+import { arcSagitta, circleSegments } from '../geom/circle.js';
 import { booleanOp, extentOf, quantumFor, ringsOf } from '../geom/clipper.js';
 import { RhoformError } from '../errors.js';
 import type { Point, PolygonSet, Ring } from '../types.js';
-import type { RingCircle } from '../write/types.js';
+import type { RingCircle } from '../geom/circle.js';
 import { shapeRing } from './rings.js';
 import type { PassiveRegions } from './types.js';
 
@@ -70,7 +70,7 @@ export function applyPassiveExact(
   if (!(x1 > x0 && y1 > y0)) throw new RhoformError('E_INTERNAL', `passive domain must have x0 < x1 and y0 < y1, found ${domain.join(', ')}`);
   if (regions.regions.length === 0) return { polygons: set, ringCircles: [], solidRings: [] };
 
-  const circleTol = tolerance / 4;
+  const circleTol = arcSagitta(tolerance);
   const solidRings: Ring[] = [];
   const voidRings: Ring[] = [];
   const circles: CircleRef[] = [];

@@ -5,7 +5,7 @@
  *
  * Frame: mm, y up, the input grid's frame (the unfolded grid shares it; MirrorPlane.at is in it).
  */
-import type { MirrorPlane } from '../field/mirror.js';
+import type { MirrorPlane } from '../geom/symmetry.js';
 import type { Point } from '../types.js';
 import type { PassiveRegion, PassiveRegions, PassiveShape } from './types.js';
 

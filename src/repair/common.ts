@@ -9,6 +9,7 @@ import { polygonArea, polygonSetArea, ringArea, ringPerimeter } from '../geom/ar
 import { booleanOp, offsetRings, quantumFor, ringsOf, unionRings } from '../geom/clipper.js';
 import { ringBounds, ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
+import { arcSagitta } from '../geom/circle.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RepairInput } from './types.js';
 
@@ -25,7 +26,7 @@ const COS_HALF_STEP = Math.cos((6 * Math.PI) / 180);
  * their vertices (cost: about 360 vertices per full turn at ρ = 16 pixels, paid only where the outline turns). Never below radius·10⁻⁴ (`--tolerance 0`).
  */
 export function arcToleranceOf(input: Pick<RepairInput, 'tolerance' | 'pixel'>, radius: number, fillet = false): number {
-  const coarse = Math.min(input.tolerance / 4, radius * (1 - COS_HALF_STEP));
+  const coarse = Math.min(arcSagitta(input.tolerance), radius * (1 - COS_HALF_STEP));
   return Math.max(fillet ? Math.min(coarse, input.pixel / 1600) : coarse, radius * 1e-4);
 }
 

@@ -8,7 +8,7 @@ import type { ThicknessMap } from '../morph/types.js';
 import type { DensityGrid, PolygonSet, Report } from '../types.js';
 import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
 import { escapeHtml } from './escape.js';
-import type { NumberedFinding } from './findings.js';
+import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
 import { dataUrl, encodePng, pngDataUrl } from './png.js';
 import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';

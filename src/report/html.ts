@@ -6,7 +6,7 @@
 import type { CheckResult, Report } from '../types.js';
 import { escapeHtml } from './escape.js';
 import { figuresHtml, type HtmlPictures } from './figures.js';
-import { numberFindings, type NumberedFinding } from './findings.js';
+import { numberFindings, type NumberedFinding } from '../check/findings.js';
 import { fmt, pct } from './number.js';
 import { PAGE_CSS } from './page-style.js';
 import { limitText, processLimits, resolutionText, withUnit } from './units.js';

@@ -6,7 +6,7 @@
  * y' = maxY − y (y flipped once, here), in mm; [minX, minY, maxX, maxY] is the domain.
  */
 import type { PolygonSet, Ring } from '../types.js';
-import type { NumberedFinding } from './findings.js';
+import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
 import { escapeHtml } from './escape.js';
 

@@ -6,7 +6,7 @@
  * Lengths in mm, report frame y up with the origin at the lower-left corner of the grid.
  */
 import type { CheckResult, Report } from '../types.js';
-import { numberFindings, type NumberedFinding } from './findings.js';
+import { numberFindings, type NumberedFinding } from '../check/findings.js';
 import { fmt, pct } from './number.js';
 import { limitText, processLimits, withUnit } from './units.js';
 

@@ -1,5 +1,5 @@
 /** How check values read in every human-facing report: unit symbols, comparison signs, "measured / limit". */
-import type { CheckResult } from '../types.js';
+import type { CheckResult, ReportSettings } from '../types.js';
 import { fmt } from './number.js';
 
 /** Unit symbol as printed: mm, mm², % or nothing for a plain ratio ('1'). */
@@ -24,9 +24,11 @@ export function resolutionText(c: Pick<CheckResult, 'resolution' | 'unit'>): str
   return `± ${withUnit(c.resolution, c.unit, 2)}`;
 }
 
+type LimitKey = 'minMember' | 'minHole' | 'toolRadius' | 'minIslandArea' | 'minHoleArea' | 'thickness';
+
 /** The process-preset limits of `settings` as "min member 2 mm, min hole 3 mm, …" (set values only). */
-export function processLimits(settings: Readonly<Record<string, unknown>>): string {
-  const names: readonly (readonly [string, string, string])[] = [
+export function processLimits(settings: Pick<ReportSettings, LimitKey>): string {
+  const names: readonly (readonly [LimitKey, string, string])[] = [
     ['minMember', 'min member', 'mm'],
     ['minHole', 'min hole', 'mm'],
     ['toolRadius', 'tool radius', 'mm'],

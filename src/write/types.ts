@@ -4,7 +4,10 @@
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
  * The writers convert to the output units themselves; the SVG writer does the only y-down flip of the tool.
  */
+import type { RingCircle } from '../geom/circle.js';
 import type { PolygonSet, Ring } from '../types.js';
+
+export type { RingCircle } from '../geom/circle.js';
 
 /** Layers a caller may add beside the part. */
 export type ExtraLayer = 'passive' | 'finding' | 'repair';
@@ -35,24 +38,6 @@ export interface WriterExtra {
   readonly circles?: readonly WriterCircle[];
   /** Labelled points, mm, y up. */
   readonly markers?: readonly WriterMarker[];
-}
-
-/**
- * A ring of the part that is a true circle (a passive-void bolt hole, or a ring `--circles` recognised): the
- * writers draw the circle instead of the ring's vertices — a DXF CIRCLE, SVG arc commands inside the part's
- * even-odd path (so it still cuts). mm, y up.
- */
-export interface RingCircle {
-  /** Index into `polygons.polygons`. */
-  readonly polygon: number;
-  /** 0 = the outer ring, k ≥ 1 = hole k − 1. */
-  readonly ring: number;
-  /** Centre (mm) and radius (mm, > 0). */
-  readonly x: number;
-  readonly y: number;
-  readonly r: number;
-  /** DXF layer of the circle: 'passive' for a passive region's circle; default the ring's own (outline / hole). */
-  readonly layer?: 'passive';
 }
 
 export interface WriterInput {

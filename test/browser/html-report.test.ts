@@ -13,7 +13,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { build } from '../../src/pipeline.js';
-import { numberFindings } from '../../src/report/findings.js';
+import { numberFindings } from '../../src/check/findings.js';
 import { formatHtml } from '../../src/report/html.js';
 import { resolveSettings } from '../../src/settings.js';
 import type { Report } from '../../src/types.js';

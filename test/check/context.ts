@@ -30,15 +30,8 @@ export function makeContext(parts: ContextParts): CheckContext {
     domain,
     grid,
     tolerance,
-    report: {
-      input: {
-        file: 'hand-made', sha256: '', format: 'csv', nx: grid.nx, ny: grid.ny, cellSize: [grid.cellSize[0], grid.cellSize[1]],
-        min: 0, max: 1, mean: 0.5, greyLevel: parts.greyLevel ?? 0, nonFinite: 0,
-      },
-      settings: {},
-      threshold: { mode: 'volume', level: 0.5, targetFraction: 0.5, achievedFraction: 0.5, pixelFraction: 0.5, ...parts.threshold },
-      smoothing: { maxDeviation: parts.maxDeviation ?? 0, tolerance, rawArea: 0, area: 0, rawVertices: 0, vertices: 0 },
-    },
+    threshold: { mode: 'volume', level: 0.5, targetFraction: 0.5, achievedFraction: 0.5, pixelFraction: 0.5, ...parts.threshold },
+    greyLevel: parts.greyLevel ?? 0,
     morphology() {
       throw new Error('this check must not use the morphology engine');
     },

@@ -25,7 +25,8 @@ describe('outline-fidelity fast path', () => {
         raw: r.raw,
         domain: [0, 0, 1, 1],
         grid: r.grid,
-        report: r.report,
+        threshold: r.report.threshold,
+        greyLevel: r.report.input.greyLevel,
         tolerance,
         smoothingDeviation: sd,
         morphology: () => {

@@ -89,7 +89,7 @@ describe('outline-fidelity on the smoothing stage output', () => {
         const m = outlineFidelity.measure(ctx, tolerance);
         // the smoothing stage's own measure samples every tolerance/4 (docs/smoothing.md §4): both are within
         // half that step (tolerance/8) of the true directed Hausdorff distance, so of each other
-        expect(Math.abs(m.measured! - ctx.report.smoothing.maxDeviation)).toBeLessThanOrEqual(tolerance / 8 + m.resolution);
+        expect(Math.abs(m.measured! - sm.maxDeviation)).toBeLessThanOrEqual(tolerance / 8 + m.resolution);
         // independent O(n²) oracle sampled every tolerance/20 (test/smooth/oracle.ts): a lower bound of the true
         // value, and within tolerance/40 of it
         const brute = bruteDeviation(sm.polygons, raw, tolerance / 20);

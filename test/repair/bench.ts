@@ -21,7 +21,7 @@ import type { DensityGrid, PolygonSet } from '../../src/types.js';
 import { platePattern } from '../bench/plate.js';
 import { writeFileSync } from 'node:fs';
 import { gridDomain } from '../../src/field/mean.js';
-import { finishOutline } from '../../src/finish.js';
+import { applyFixedParts } from '../../src/passive/fixed-parts.js';
 import { shapeRing } from '../../src/passive/rings.js';
 import { randomPart, sizeChecks, type Box } from './support.js';
 
@@ -44,7 +44,7 @@ function demo(): void {
   for (const a of rep.repairs) console.log(`${a.id.padEnd(14)} ${a.area.toFixed(1)} mm² ${a.locationsTotal} places ${JSON.stringify((a as unknown as { unresolved?: unknown }).unresolved ?? null)}`);
 }
 
-/** The demo's repair stage by hand (as src/finish.ts repairStage does), with crops of the findings as SVG. */
+/** The demo's repair stage by hand (as src/repair/stage.ts repairStage does), with crops of the findings as SVG. */
 function demoDirect(): void {
   const file = 'fixtures/grids/demo-bracket.npy';
   const passiveFile = 'fixtures/passive/demo-bracket.passive.json';
@@ -54,19 +54,19 @@ function demoDirect(): void {
   const domain = gridDomain(r.grid);
   const tolerance = r.report.settings.tolerance as number;
   const pixel = choosePixel(r.grid.cellSize, domain);
-  const before = finishOutline(r.smoothed.polygons, [], passive, domain, tolerance);
+  const before = applyFixedParts(r.smoothed.polygons, [], passive, domain, tolerance);
   const ring = (role: string) => passive.regions.filter((x) => x.role === role).map((x) => shapeRing(x.shape, tolerance / 4));
   const limits = { minMember: 8, minHole: 8, toolRadius: 0.381, minIslandArea: 0, minHoleArea: null };
   const t = performance.now();
   const run = runRepairs(REPAIR_IDS, { polygons: before.polygons, domain, tolerance, limits, passiveSolid: ring('solid'), passiveVoid: ring('void'), pixel });
   const ms = performance.now() - t;
-  const after = finishOutline(run.polygons, [], passive, domain, tolerance);
+  const after = applyFixedParts(run.polygons, [], passive, domain, tolerance);
   console.log(`runRepairs ${Math.round(ms)} ms; vertices ${verts(before.polygons)} → ${verts(after.polygons)}`);
   for (const a of run.actions) console.log(`${a.id.padEnd(14)} ${a.area.toFixed(1)} mm² ${a.locations.length} places ${JSON.stringify((a as unknown as { unresolved?: unknown }).unresolved ?? null)}`);
   const cs = sizeChecks(after.polygons, domain as unknown as Box, tolerance, pixel, limits);
   const raw = sizeChecks(run.polygons, domain as unknown as Box, tolerance, pixel, limits);
   for (const c of cs) console.log(`${c.id.padEnd(18)} ${c.status} ${c.measured?.toPrecision(4)} (${c.locationsTotal})`, c.locations.slice(0, 8).map((l) => `${l.x.toFixed(2)},${l.y.toFixed(2)}:${l.measured.toPrecision(3)}`).join(' '));
-  console.log('(before finishOutline again:)', raw.filter((c) => c.status !== 'pass').map((c) => `${c.id} ${c.status} ${c.measured?.toPrecision(4)} ${c.locations.slice(0, 8).map((l) => `${l.x.toFixed(2)},${l.y.toFixed(2)}:${l.measured.toPrecision(3)}`).join(' ')}`).join('; '));
+  console.log('(before the fixed parts again:)', raw.filter((c) => c.status !== 'pass').map((c) => `${c.id} ${c.status} ${c.measured?.toPrecision(4)} ${c.locations.slice(0, 8).map((l) => `${l.x.toFixed(2)},${l.y.toFixed(2)}:${l.measured.toPrecision(3)}`).join(' ')}`).join('; '));
   const spots = cs.filter((c) => c.status !== 'pass').flatMap((c) => c.locations);
   spots.forEach((l, k) => writeFileSync(`/tmp/crop_${k}.svg`, cropSvg(before.polygons, after.polygons, l.x, l.y, 4, spots)));
   const rspots = raw.filter((c) => c.status !== 'pass').flatMap((c) => c.locations);

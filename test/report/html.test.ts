@@ -1,10 +1,10 @@
 import { inflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../src/report/cautions.js';
-import { numberFindings } from '../../src/report/findings.js';
+import { numberFindings } from '../../src/check/findings.js';
 import { escapeHtml, formatHtml } from '../../src/report/html.js';
 import { niceBelow, outlinePathData, planFrame } from '../../src/report/svg-figures.js';
-import { check, loc, platePictures, sampleReport } from './sample.js';
+import { check, loc, platePictures, sampleReport, sampleSettings } from './sample.js';
 
 /** HTML void elements (HTML Living Standard §13.1.2): they take no end tag. */
 const VOID = new Set(['area', 'base', 'br', 'col', 'embed', 'hr', 'img', 'input', 'link', 'meta', 'source', 'track', 'wbr']);
@@ -118,10 +118,10 @@ describe('HTML report', () => {
   });
 
   it('says so when no checks ran, and shows a process preset with the fabricator caution', () => {
-    const page = formatHtml(sampleReport({ checks: [], summary: { status: 'pass', pass: 0, warn: 0, fail: 0 }, settings: { process: 'waterjet-cut', minMember: 3, thickness: 10 } }));
+    const page = formatHtml(sampleReport({ checks: [], summary: { status: 'pass', pass: 0, warn: 0, fail: 0 }, settings: sampleSettings({ process: 'waterjet-cut', minMember: 3, thickness: 10 }) }));
     expect(page).toContain('no manufacturability checks ran');
     expect(page).not.toContain('class="badge pass"');
-    expect(page).toContain('<strong>Process preset waterjet-cut:</strong> limits used min member 3 mm, thickness 10 mm.');
+    expect(page).toContain('<strong>Process preset waterjet-cut:</strong> limits used min member 3 mm, min island area 0 mm², thickness 10 mm.');
     expect(page).toMatch(/limits of your fabricator, machine and material govern/);
   });
 

@@ -5,7 +5,13 @@
 import type { ThicknessMap } from '../../src/morph/types.js';
 import { CAUTIONS } from '../../src/report/cautions.js';
 import type { HtmlPictures } from '../../src/report/html.js';
-import type { CheckResult, DensityGrid, Location, Polygon, Report, Ring } from '../../src/types.js';
+import { DEFAULT_SETTINGS } from '../../src/settings.js';
+import type { CheckResult, DensityGrid, Location, Polygon, Report, ReportSettings, Ring } from '../../src/types.js';
+
+/** Report settings as a run resolves them (defaults, 1 mm cells, tolerance 0.25 mm), with `over` on top. */
+export function sampleSettings(over: Partial<ReportSettings> = {}): ReportSettings {
+  return { ...DEFAULT_SETTINGS, tolerance: 0.25, layout: 'grid', ...over };
+}
 
 export function loc(x: number, y: number, measured: number, cell = 1, ny = 60): Location {
   return { x, y, measured, fileCol: Math.floor(x / cell) + 1, fileRow: ny - Math.floor(y / cell) };
@@ -47,7 +53,7 @@ export function sampleReport(over: Partial<Report> = {}): Report {
     schemaVersion: 1,
     tool: { name: 'rhoform', version: '0.1.0' },
     input: { file: 'plate-holes.npy', sha256: 'ab'.repeat(32), format: 'npy', nx: 120, ny: 60, cellSize: [1, 1], min: 0, max: 1, mean: 0.45, greyLevel: 31.2, nonFinite: 0 },
-    settings: { cellSize: [1, 1], cellSizeDefaulted: false, values: 'cells', minMember: 2, minHole: 3, toolRadius: null, process: null, thickness: null },
+    settings: sampleSettings({ cellSize: [1, 1], cellSizeDefaulted: false, values: 'cells', minMember: 2, minHole: 3, toolRadius: null, process: null, thickness: null }),
     threshold: { mode: 'volume', level: 0.4812, targetFraction: 0.45, achievedFraction: 0.4501, pixelFraction: 0.4493 },
     geometry: { polygons: 1, holes: 3, area: 3240, perimeter: 520, vertices: 400, bbox: [0, 0, 120, 60], finalFraction: 0.45 },
     smoothing: { maxDeviation: 0.12, tolerance: 0.25, rawArea: 3239, area: 3240, rawVertices: 900, vertices: 400 },

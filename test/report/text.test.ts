@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { numberFindings } from '../../src/report/findings.js';
+import { numberFindings } from '../../src/check/findings.js';
 import { formatText, TEXT_FINDINGS_PER_CHECK, TEXT_WIDTH } from '../../src/report/text.js';
-import { check, loc, sampleReport } from './sample.js';
+import { check, loc, sampleReport, sampleSettings } from './sample.js';
 
 // ECMA-48 §5.3: control sequences start with ESC (0x1B); stripping CSI "ESC [ … m" leaves the plain text
 const ESC = '\u001b';
@@ -68,8 +68,8 @@ describe('text report', () => {
   });
 
   it('prints the limits of a process preset with the fabricator caution', () => {
-    const t = formatText(sampleReport({ settings: { process: 'laser-cut', minMember: 1.5, minHole: 2, toolRadius: null, thickness: 3 } }), { color: false });
-    expect(t).toMatch(/process\s+laser-cut: limits used min member 1\.5 mm, min hole 2 mm, thickness 3 mm/);
+    const t = formatText(sampleReport({ settings: sampleSettings({ process: 'laser-cut', minMember: 1.5, minHole: 2, toolRadius: null, thickness: 3 }) }), { color: false });
+    expect(t).toMatch(/process\s+laser-cut: limits used min member 1\.5 mm, min hole 2 mm, min island area 0 mm², thickness\s+3 mm/);
     expect(t).toMatch(/fabricator's limits govern/);
     expect(formatText(sampleReport(), { color: false })).not.toMatch(/^process/m);
   });

@@ -3,7 +3,7 @@
  * DXF and SVG number the same findings the same way — checks in report order, each check's locations worst
  * first, counted from 1.
  */
-import type { Location, Report } from '../types.js';
+import type { CheckResult, Location } from '../types.js';
 
 export interface NumberedFinding {
   /** 1-based finding number. */
@@ -14,7 +14,7 @@ export interface NumberedFinding {
 }
 
 /** Every located finding of the report's warned or failed checks, numbered. */
-export function numberFindings(report: Pick<Report, 'checks'>): NumberedFinding[] {
+export function numberFindings(report: { readonly checks: readonly CheckResult[] }): NumberedFinding[] {
   const out: NumberedFinding[] = [];
   for (const c of report.checks) {
     if (c.status === 'pass') continue;

@@ -1,0 +1,97 @@
+/**
+ * The repair stage (`--repair[=list]`, docs/repair.md): run the requested repairs on the checked outline, then
+ * apply the design's fixed parts again (symmetry, passive regions): they win over any repair, so a thickened
+ * member never closes a bolt hole. A repair whose checks are off is recorded as skipped. The pipeline re-runs
+ * the checks on the result.
+ *
+ * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
+ */
+import type { CheckId } from '../check/ids.js';
+import { MAX_LOCATIONS, type PlannedCheck } from '../check/run.js';
+import type { MirrorPlane } from '../geom/symmetry.js';
+import type { PassiveExactResult } from '../passive/exact.js';
+import { applyFixedParts } from '../passive/fixed-parts.js';
+import { arcSagitta } from '../geom/circle.js';
+import { shapeRing } from '../passive/rings.js';
+import type { PassiveRegions } from '../passive/types.js';
+import type { RepairName, Settings } from '../settings.js';
+import type { Domain, Location, PolygonSet, RepairRecord, Ring } from '../types.js';
+import { runRepairs } from './run.js';
+import { REPAIR_CHECKS, type RepairAction } from './types.js';
+
+/** Why a repair does nothing because the check it answers is off or has no limit; null when it can run. */
+function offReason(id: RepairName, planned: ReadonlySet<CheckId>): string | null {
+  const checks = REPAIR_CHECKS[id];
+  if (checks.some((c) => planned.has(c))) return null;
+  return `its check${checks.length === 1 ? '' : 's'} ${checks.join(', ')} ${checks.length === 1 ? 'is' : 'are'} off (no limit, or --severity …=off)`;
+}
+
+export interface RepairStageInput {
+  readonly polygons: PolygonSet;
+  readonly settings: Pick<Settings, 'repair' | 'minIslandArea' | 'minHoleArea'>;
+  readonly limits: { readonly minMember: number | null; readonly minHole: number | null; readonly toolRadius: number | null };
+  readonly planned: readonly PlannedCheck[];
+  readonly planes: readonly MirrorPlane[];
+  readonly passive: PassiveRegions | null;
+  /** The passive-solid primitives as rings, as the exact passive step drew them (PassiveExactResult.solidRings). */
+  readonly passiveSolid: readonly Ring[];
+  readonly domain: Domain;
+  readonly tolerance: number;
+  /** Morphology raster pixel, mm (choosePixel). */
+  readonly pixel: number;
+  /** Maps a point (mm) to its 1-based file row and column (the check locator). */
+  readonly locate: (x: number, y: number) => Pick<Location, 'fileRow' | 'fileCol'>;
+}
+
+export interface RepairStageRecord {
+  /** The repaired outline, symmetric again and with the passive regions applied again. */
+  readonly polygons: PolygonSet;
+  readonly passive: PassiveExactResult | null;
+  /** One record per requested repair, in REPAIR_IDS order (report `repairs`). */
+  readonly records: readonly RepairRecord[];
+  /** The outline the repairs started from. */
+  readonly before: PolygonSet;
+  /** The material added or removed, for the `repair` layer and the HTML figure. */
+  readonly changed: PolygonSet;
+}
+
+export function repairStage(input: RepairStageInput): RepairStageRecord {
+  const plannedIds = new Set(input.planned.map((p) => p.def.id));
+  const ids = input.settings.repair.filter((id) => offReason(id, plannedIds) === null);
+  const passiveVoid = input.passive
+    ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, arcSagitta(input.tolerance)))
+    : [];
+  const has = (c: CheckId) => plannedIds.has(c);
+  const run = runRepairs(ids, {
+    polygons: input.polygons,
+    domain: input.domain,
+    tolerance: input.tolerance,
+    limits: {
+      minMember: has('min-member-size') ? input.limits.minMember : null,
+      minHole: has('min-hole-size') ? input.limits.minHole : null,
+      toolRadius: has('min-inner-radius') ? input.limits.toolRadius : null,
+      minIslandArea: input.settings.minIslandArea,
+      minHoleArea: has('small-holes') ? input.settings.minHoleArea : null,
+    },
+    passiveSolid: input.passiveSolid,
+    passiveVoid,
+    pixel: input.pixel,
+  });
+  const byId = new Map<RepairName, RepairAction>(run.actions.map((a) => [a.id, a]));
+  const records: RepairRecord[] = input.settings.repair.map((id) => {
+    const a = byId.get(id);
+    if (!a) return { id, area: 0, locations: [], checks: [...REPAIR_CHECKS[id]], skipped: offReason(id, plannedIds) ?? 'not run', locationsTotal: 0, unresolved: null };
+    return {
+      id,
+      area: a.area,
+      locations: a.locations.slice(0, MAX_LOCATIONS).map((l) => ({ x: l.x, y: l.y, measured: l.measured, ...input.locate(l.x, l.y) })),
+      checks: [...a.checks],
+      skipped: a.skipped,
+      locationsTotal: a.locations.length,
+      unresolved: a.unresolved,
+    };
+  });
+  const fixed = applyFixedParts(run.polygons, input.planes, input.passive, input.domain, input.tolerance);
+  const changed: PolygonSet = { polygons: run.actions.flatMap((a) => a.changed.polygons) };
+  return { polygons: fixed.polygons, passive: fixed.passive, records, before: input.polygons, changed };
+}
