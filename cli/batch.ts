@@ -14,7 +14,7 @@ import { RhoformError, UsageError } from '../src/errors.js';
 import { resolveSettings } from '../src/settings.js';
 import { VERSION } from '../src/version.js';
 import type { ParsedArgs } from './args.js';
-import { collectInputs, displayPath } from './batch/collect.js';
+import { collectInputs } from './batch/collect.js';
 import { placeOutputs } from './batch/layout.js';
 import { mergeSummaries, parseSummary, type LoadedSummary } from './batch/merge.js';
 import { runPool } from './batch/pool.js';
@@ -24,15 +24,9 @@ import { selectShard } from './batch/shard.js';
 import { errorRow, makeSummary, summaryCsv, summaryJson, summaryNames, type BatchSummary, type SummaryRow } from './batch/summary.js';
 import type { WorkerAnswer, WorkerSetup, WorkerTask } from './batch/worker.js';
 import { writeOutputsAtomically } from './files.js';
-import { reportError, type Io } from './run.js';
+import { displayPath, reportError, useColor, type Io } from './io.js';
 
 const TOOL = { name: 'rhoform' as const, version: VERSION };
-
-function useColor(args: ParsedArgs, io: Io): boolean {
-  if (args.cli.color === false) return false;
-  if (io.env.NO_COLOR !== undefined && io.env.NO_COLOR !== '') return false;
-  return io.isTTY;
-}
 
 function terminalColumns(io: Io): number | undefined {
   const c = Number(io.env.COLUMNS);
@@ -73,7 +67,7 @@ function finish(args: ParsedArgs, io: Io, summary: BatchSummary, paths: { csv: s
     code = reportError(e, io);
   }
   if (args.cli.json) io.stdout(summaryJson(summary));
-  else if (!args.cli.quiet) io.stdout(formatBatchTable(summary, { color: useColor(args, io), written }));
+  else if (!args.cli.quiet) io.stdout(formatBatchTable(summary, { color: useColor(args.cli.color, io), written }));
   return code;
 }
 

@@ -3,40 +3,21 @@
  * stdout carries only the product (summary or JSON); warnings and errors go to stderr.
  */
 import { existsSync } from 'node:fs';
-import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { RhoformError, UsageError } from '../src/errors.js';
-import { parsePassive } from '../src/passive/parse.js';
-import type { PassiveRegions } from '../src/passive/types.js';
-import { build, inspect } from '../src/pipeline.js';
-import { formatHtml } from '../src/report/html.js';
+import { UsageError } from '../src/errors.js';
+import { inspect, prepareBuild } from '../src/pipeline.js';
 import { formatJson } from '../src/report/json.js';
 import { fmt } from '../src/report/number.js';
 import { formatText } from '../src/report/text.js';
-import { loadBooleanEngine } from '../src/geom/clipper.js';
-import { needsBooleanEngine, REPAIR_IDS, resolveSettings, type OutputFormat, type Settings } from '../src/settings.js';
-import type { Report } from '../src/types.js';
+import { REPAIR_IDS, resolveSettings, type Settings } from '../src/settings.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
-import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { buildFile } from './build-file.js';
+import { readInput } from './files.js';
+import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
-
-export interface Io {
-  stdout(text: string): void;
-  stderr(text: string): void;
-  /** Whether stdout is a terminal (for colour). */
-  readonly isTTY: boolean;
-  /** Whether stderr is a terminal (progress redrawn in place); absent = not a terminal. */
-  readonly stderrIsTTY?: boolean;
-  readonly env: Readonly<Record<string, string | undefined>>;
-  readonly cwd: string;
-}
-
-/** Exit codes of docs/cli.md. */
-export const EXIT_OK = 0;
-export const EXIT_CHECK_FAILED = 1;
-export const EXIT_ERROR = 2;
 
 const here = dirname(fileURLToPath(import.meta.url));
 /** The package root, from src (cli/) or from the compiled dist/cli/. */
@@ -65,79 +46,6 @@ export const DEMO = {
   } as Partial<Settings>,
 };
 
-const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
-
-function stem(file: string): string {
-  const b = basename(file);
-  const ext = extname(b);
-  return ext ? b.slice(0, -ext.length) : b;
-}
-
-/** A path as a person would type it here: relative to the working folder when inside it, else absolute. */
-function displayPath(cwd: string, path: string): string {
-  const rel = relative(cwd, path);
-  return rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
-}
-
-function useColor(args: ParsedArgs, io: Io): boolean {
-  if (args.cli.color === false) return false;
-  if (io.env.NO_COLOR !== undefined && io.env.NO_COLOR !== '') return false;
-  return io.isTTY;
-}
-
-/** Exit code of one grid's report (docs/cli.md): 1 when a check failed, or warned under `--fail-on warn`. */
-export function reportExitCode(report: Report, failOn: 'warn' | 'fail'): number {
-  if (report.summary.fail > 0) return EXIT_CHECK_FAILED;
-  if (failOn === 'warn' && report.summary.warn > 0) return EXIT_CHECK_FAILED;
-  return EXIT_OK;
-}
-
-/** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
-function readPassive(path: string, name: string): PassiveRegions {
-  const bytes = readInput(path, name);
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
-  }
-  return parsePassive(text, name);
-}
-
-/**
- * Build one grid file into `outDir` (the outputs of `formats`, geometry only when `writeGeometry`), atomically,
- * and return its report. Prints nothing: callers decide what goes to stdout and stderr. Throws RhoformError on
- * bad input or an unwritable output (then nothing is written).
- */
-export function buildFile(
-  settings: Settings,
-  opts: { cwd: string; file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string },
-): { report: Report; warnings: readonly string[]; exitCode: number } {
-  const inputPath = resolve(opts.cwd, opts.file);
-  const name = opts.name ?? opts.file;
-  const bytes = readInput(inputPath, name);
-  const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
-  const passive = passivePath === null ? null : readPassive(passivePath, settings.passive as string);
-  const result = build({ name, bytes }, settings, { passive });
-  const report = result.report;
-  const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
-  const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
-  const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
-  report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format }));
-  const planned: PlannedOutput[] = [];
-  let svg: string | undefined;
-  for (const p of paths) {
-    let content: string;
-    if (p.format === 'dxf') content = result.dxf();
-    else if (p.format === 'svg') content = svg ??= result.svg();
-    else if (p.format === 'json') content = formatJson(report);
-    else content = formatHtml(report, result.pictures());
-    planned.push({ path: p.path, content });
-  }
-  writeOutputsAtomically(planned, passivePath === null ? [inputPath] : [inputPath, passivePath], opts.force);
-  return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
-}
-
 function runBuild(
   args: ParsedArgs,
   io: Io,
@@ -155,7 +63,7 @@ function runBuild(
   const { report, warnings, exitCode } = built;
   for (const w of warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) io.stdout(formatJson(report));
-  else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args, io) }));
+  else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args.cli.color, io) }));
   return exitCode;
 }
 
@@ -241,17 +149,6 @@ export function run(argv: readonly string[], io: Io): number {
   }
 }
 
-/** Print a fatal error on stderr (a RhoformError with its code, anything else as an internal error); returns 2. */
-export function reportError(e: unknown, io: Io): number {
-  if (e instanceof RhoformError) {
-    io.stderr(`rhoform: error ${e.code}: ${e.message}\n`);
-    return EXIT_ERROR;
-  }
-  const err = e as Error;
-  io.stderr(`rhoform: internal error: ${err?.stack ?? String(e)}\nPlease report this with the input file and the command line.\n`);
-  return EXIT_ERROR;
-}
-
 /**
  * Run one command line, including the asynchronous commands (`batch` on worker threads, `merge`); the
  * rhoform binary calls this. Other commands run as in `run`.
@@ -264,9 +161,9 @@ export async function runAsync(argv: readonly string[], io: Io): Promise<number>
     return run(argv, io);
   }
   if (args.command !== 'batch' && args.command !== 'merge') {
-    // The boolean engine loads on demand (src/geom/clipper.ts): only runs that use it pay its start-up.
+    // What a build needs before it runs (the boolean engine, only when the settings use it).
     const s = args.command === 'demo' ? { ...DEMO.settings, ...args.settings } : args.settings;
-    if (args.command !== 'help' && args.command !== 'version' && needsBooleanEngine(resolveSettings(s))) await loadBooleanEngine();
+    if (args.command !== 'help' && args.command !== 'version') await prepareBuild(resolveSettings(s));
     return run(argv, io);
   }
   try {

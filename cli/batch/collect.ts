@@ -8,7 +8,8 @@
  * does not read its previous summary as a grid. Symbolic links are followed; a link loop is visited once.
  */
 import { readdirSync, realpathSync, statSync } from 'node:fs';
-import { extname, isAbsolute, join, relative, resolve } from 'node:path';
+import { extname, join, resolve } from 'node:path';
+import { displayPath } from '../io.js';
 import { comparePaths } from './shard.js';
 
 export const GRID_EXTENSIONS: readonly string[] = ['.csv', '.tsv', '.txt', '.npy'];
@@ -22,12 +23,6 @@ export interface BatchInput {
   readonly path: string;
   /** Set when the path could not be used (nothing is built for it). */
   readonly error: { readonly code: string; readonly message: string } | null;
-}
-
-/** A path as a person would type it here: relative to `cwd` when inside it, else absolute. */
-export function displayPath(cwd: string, path: string): string {
-  const rel = relative(cwd, path);
-  return rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
 }
 
 function realOrResolved(path: string): string {

@@ -1,13 +1,13 @@
 /**
  * The batch worker thread (cli/batch/pool.ts protocol): builds one grid file per task with `buildFile`
- * (cli/run.ts) and answers with its summary row and warnings. A bad file is an answer (a row with its error
+ * (cli/build-file.ts) and answers with its summary row and warnings. A bad file is an answer (a row with its error
  * code), never a crash; an unexpected exception is answered as E_INTERNAL with its stack.
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { RhoformError } from '../../src/errors.js';
-import { loadBooleanEngine } from '../../src/geom/clipper.js';
-import { needsBooleanEngine, type Settings } from '../../src/settings.js';
-import { buildFile } from '../run.js';
+import { prepareBuild } from '../../src/pipeline.js';
+import type { Settings } from '../../src/settings.js';
+import { buildFile } from '../build-file.js';
 import { errorRow, rowFromReport, type SummaryRow } from './summary.js';
 
 export interface WorkerSetup {
@@ -61,8 +61,8 @@ export function processTask(setup: WorkerSetup, task: WorkerTask): WorkerAnswer 
 
 const setupData = workerData as WorkerSetup | null | undefined;
 if (parentPort && setupData?.kind === 'rhoform-batch') {
-  // the boolean engine loads on demand (src/geom/clipper.ts); messages wait in the port until the listener below
-  if (needsBooleanEngine(setupData.settings)) await loadBooleanEngine();
+  // what the builds need (the boolean engine, when the settings use it); messages wait in the port meanwhile
+  await prepareBuild(setupData.settings);
   const port = parentPort;
   const setup = setupData;
   port.on('message', (m: { id: number; task: WorkerTask }) => {

@@ -14,9 +14,10 @@
  * clockwise, each hole under its outer ring, material inside a hole as a separate polygon (DESIGN §3), no
  * repeated closing vertex.
  *
- * The WASM module is loaded on demand, once: `await loadBooleanEngine()` before the first call (it costs about
- * 35 ms of start-up, which runs that need no booleans — no passive regions, --mirror or --repair — do not pay).
- * A call before it is loaded throws a RhoformError that says so.
+ * The WASM module is loaded on demand, once, by `loadBooleanEngine()`; callers await src/pipeline.ts
+ * `prepareBuild(settings)`, which loads it exactly when the settings need booleans (passive regions, --mirror,
+ * --repair) — about 35 ms of start-up the other runs do not pay. A call before it is loaded throws a RhoformError
+ * that says so.
  */
 import * as clipperLib from 'js-angusj-clipper';
 import { RhoformError } from '../errors.js';
@@ -33,16 +34,11 @@ export function loadBooleanEngine(): Promise<void> {
   return loading;
 }
 
-/** Whether loadBooleanEngine has finished. */
-export function booleanEngineLoaded(): boolean {
-  return loaded !== null;
-}
-
 function engine(): clipperLib.ClipperLibWrapper {
   if (loaded === null) {
     throw new RhoformError(
       'E_INTERNAL',
-      'the boolean engine is not loaded: await loadBooleanEngine() before build() with passive regions, --mirror or --repair',
+      'the boolean engine is not loaded: await prepareBuild(settings) before build() with passive regions, --mirror or --repair',
     );
   }
   return loaded;

@@ -1,0 +1,79 @@
+/**
+ * One grid file built into its output files: read the input (and the passive-region file), build, render the
+ * formats asked for and write them atomically. Shared by `rhoform build`/`check`/`demo` (run.ts) and the batch
+ * worker (batch/worker.ts). Prints nothing: callers decide what goes to stdout and stderr.
+ */
+import { basename, extname, join, resolve } from 'node:path';
+import { RhoformError } from '../src/errors.js';
+import { parsePassive } from '../src/passive/parse.js';
+import type { PassiveRegions } from '../src/passive/types.js';
+import { build } from '../src/pipeline.js';
+import { formatHtml } from '../src/report/html.js';
+import { formatJson } from '../src/report/json.js';
+import type { OutputFormat, Settings } from '../src/settings.js';
+import type { Report } from '../src/types.js';
+import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { displayPath, reportExitCode } from './io.js';
+
+const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
+
+function stem(file: string): string {
+  const b = basename(file);
+  const ext = extname(b);
+  return ext ? b.slice(0, -ext.length) : b;
+}
+
+/** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
+function readPassive(path: string, name: string): PassiveRegions {
+  const bytes = readInput(path, name);
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
+  }
+  return parsePassive(text, name);
+}
+
+export interface BuildFileOptions {
+  readonly cwd: string;
+  readonly file: string;
+  /** The name shown in messages and the report; default `file`. */
+  readonly name?: string;
+  readonly writeGeometry: boolean;
+  readonly force: boolean;
+  readonly outDir: string;
+  /** Where the passive-region file is, when not `settings.passive` relative to `cwd` (the demo's own). */
+  readonly passivePath?: string;
+}
+
+/**
+ * Build one grid file into `outDir` (the outputs of `formats`, geometry only when `writeGeometry`), atomically,
+ * and return its report. Throws RhoformError on bad input or an unwritable output (then nothing is written).
+ * The boolean engine must be loaded when the settings need it (src/pipeline.ts prepareBuild).
+ */
+export function buildFile(settings: Settings, opts: BuildFileOptions): { report: Report; warnings: readonly string[]; exitCode: number } {
+  const inputPath = resolve(opts.cwd, opts.file);
+  const name = opts.name ?? opts.file;
+  const bytes = readInput(inputPath, name);
+  const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
+  const passive = passivePath === null || settings.passive === null ? null : readPassive(passivePath, settings.passive);
+  const result = build({ name, bytes }, settings, { passive });
+  const report = result.report;
+  const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
+  const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
+  const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
+  report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format }));
+  const planned: PlannedOutput[] = [];
+  let svg: string | undefined;
+  for (const p of paths) {
+    let content: string;
+    if (p.format === 'dxf') content = result.dxf();
+    else if (p.format === 'svg') content = svg ??= result.svg();
+    else if (p.format === 'json') content = formatJson(report);
+    else content = formatHtml(report, result.pictures());
+    planned.push({ path: p.path, content });
+  }
+  writeOutputsAtomically(planned, passivePath === null ? [inputPath] : [inputPath, passivePath], opts.force);
+  return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
+}
