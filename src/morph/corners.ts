@@ -31,7 +31,7 @@ import type { CornerPlace, CornerSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
 import { sampledTransform } from './edt.js';
 import type { NearestField } from './nearest.js';
-import { type Frame, toMm } from './raster.js';
+import { type Frame, toMm } from './frame.js';
 import { type SegmentSet, segDist2 as segD2 } from './segments.js';
 
 /** Smallest turn (radians) towards the void for a polygon vertex to be tried as a corner point. */

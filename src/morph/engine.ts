@@ -12,7 +12,8 @@ import type { CornerSurvey, MedialPoints, Morphology, MorphologyOptions, Phase, 
 import { cornerSurvey, padFor } from './corners.js';
 import { type MedialSamples, medialSamples } from './medial.js';
 import { type NearestField, nearestField } from './nearest.js';
-import { type Frame, makeFrame, phaseMask } from './raster.js';
+import { type Frame, makeFrame } from './frame.js';
+import { phaseMask } from './raster.js';
 import { type SegmentSet, segmentsOf } from './segments.js';
 import { thicknessMap } from './thickness.js';
 import { medialPoints, widthSurvey } from './width.js';

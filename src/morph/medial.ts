@@ -22,7 +22,7 @@
  * Samples with θ ≥ 90° whose c lies in the domain are kept; the width checks count those with θ ≥ 120°.
  */
 import type { NearestField } from './nearest.js';
-import type { Frame } from './raster.js';
+import type { Frame } from './frame.js';
 import { type SegmentSet, segDist2, sideOf } from './segments.js';
 import { snapToVertex } from './vertex.js';
 

@@ -15,7 +15,7 @@
  *    (E, NE, N, NW, then W left-to-right): the 8-neighbour four-scan scheme; the pair of passes runs twice.
  * 3. Polish: each pixel walks along the ring of its segment (previous / next) while that is closer.
  */
-import type { Frame } from './raster.js';
+import type { Frame } from './frame.js';
 import { type SegmentSet, segDist2 } from './segments.js';
 
 export interface NearestField {

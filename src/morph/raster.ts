@@ -1,52 +1,6 @@
-/**
- * The raster frame and the phase mask.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid. The raster covers the domain rectangle
- * plus `pad` pixels of open space (void) on every side, with square pixels of size `pixel` (mm). Internally
- * everything is in pixel units: pixel (i, j) is centred at (i, j), i.e. at mm
- * (x0 + (i + ½)·pixel, y0 + (j + ½)·pixel) with x0 = minX − pad·pixel, y0 = minY − pad·pixel.
- */
+/** The phase mask of an outline on the raster frame (frame.ts). mm, y up. */
+import type { Frame } from './frame.js';
 import type { SegmentSet } from './segments.js';
-
-export interface Frame {
-  /** Pixel size, mm. */
-  readonly pixel: number;
-  /** Pixels of open space added on each side of the domain. */
-  readonly pad: number;
-  /** Pixels across / up, padding included. */
-  readonly nx: number;
-  readonly ny: number;
-  /** mm coordinates of the lower-left corner of pixel (0, 0). */
-  readonly x0: number;
-  readonly y0: number;
-  /** Domain rectangle in mm [minX, minY, maxX, maxY]. */
-  readonly domain: readonly [number, number, number, number];
-  /** Domain rectangle in pixel units [minU, minV, maxU, maxV]. */
-  readonly box: readonly [number, number, number, number];
-}
-
-/** Builds the frame over `domain` (mm) with square pixels of `pixel` mm and `pad` void pixels on every side. */
-export function makeFrame(domain: readonly [number, number, number, number], pixel: number, pad: number): Frame {
-  const w = domain[2] - domain[0];
-  const h = domain[3] - domain[1];
-  const cx = Math.max(1, Math.ceil(w / pixel - 1e-9));
-  const cy = Math.max(1, Math.ceil(h / pixel - 1e-9));
-  return {
-    pixel,
-    pad,
-    nx: cx + 2 * pad,
-    ny: cy + 2 * pad,
-    x0: domain[0] - pad * pixel,
-    y0: domain[1] - pad * pixel,
-    domain,
-    box: [pad - 0.5, pad - 0.5, pad - 0.5 + w / pixel, pad - 0.5 + h / pixel],
-  };
-}
-
-/** mm coordinates of a pixel-unit point. */
-export function toMm(frame: Frame, u: number, v: number): { x: number; y: number } {
-  return { x: frame.x0 + (u + 0.5) * frame.pixel, y: frame.y0 + (v + 0.5) * frame.pixel };
-}
 
 /**
  * Phase mask: 1 where the pixel centre is solid, 0 where it is void, by an even-odd scanline fill of all rings

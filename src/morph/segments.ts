@@ -7,7 +7,7 @@
  * orientation the solid is on the LEFT of every segment, which gives each segment an inward (solid-side) normal.
  */
 import type { PolygonSet, Ring } from '../types.js';
-import type { Frame } from './raster.js';
+import type { Frame } from './frame.js';
 
 /** Directed boundary segments; the solid lies on their left. */
 export interface SegmentSet {

@@ -21,7 +21,7 @@
 import type { ThicknessMap } from './types.js';
 import type { MedialSamples } from './medial.js';
 import type { NearestField } from './nearest.js';
-import type { Frame } from './raster.js';
+import type { Frame } from './frame.js';
 
 /** Coarse local-thickness raster of the solid, at most `maxSide` pixels along the longer side. */
 export function thicknessMap(

@@ -11,7 +11,7 @@
 import type { MedialPoints, Phase, WidthPlace, WidthSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
 import { COUNT_COS, type MedialSamples } from './medial.js';
-import { type Frame, toMm } from './raster.js';
+import { type Frame, toMm } from './frame.js';
 
 /** Empty pixels tolerated inside one place. */
 const PLACE_GAP = 2;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildMorphology, choosePixel } from '../../src/morph/index.js';
-import { makeFrame } from '../../src/morph/raster.js';
+import { makeFrame } from '../../src/morph/frame.js';
 import { nearestField } from '../../src/morph/nearest.js';
 import { segmentsOf } from '../../src/morph/segments.js';
 import type { Point, PolygonSet } from '../../src/types.js';
