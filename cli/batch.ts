@@ -50,7 +50,7 @@ function summaryPaths(outDir: string, shard: ParsedArgs['cli']['shard'], force: 
  * be written is reported on stderr and makes the exit code 2; the table is still printed (the files' own
  * outputs were written).
  */
-function finish(args: ParsedArgs, io: Io, summary: BatchSummary, paths: { csv: string; json: string }, inputs: readonly string[]): number {
+function writeSummary(args: ParsedArgs, io: Io, summary: BatchSummary, paths: { csv: string; json: string }, inputs: readonly string[]): number {
   let code = summary.exitCode;
   let written: string[] = [];
   try {
@@ -137,7 +137,7 @@ export async function runBatch(args: ParsedArgs, io: Io): Promise<number> {
   progress.finish();
 
   const summary = makeSummary(TOOL, settings as unknown as Record<string, unknown>, args.cli.shard, rows);
-  return finish(args, io, summary, paths, inputs.map((f) => f.path));
+  return writeSummary(args, io, summary, paths, inputs.map((f) => f.path));
 }
 
 export async function runMerge(args: ParsedArgs, io: Io): Promise<number> {
@@ -156,5 +156,5 @@ export async function runMerge(args: ParsedArgs, io: Io): Promise<number> {
   const { summary, notes } = mergeSummaries(loaded, TOOL);
   if (!args.cli.quiet) for (const n of notes) io.stderr(`rhoform: note: ${n}\n`);
   const paths = summaryPaths(outDir, null, args.cli.force);
-  return finish(args, io, summary, paths, args.files.map((f) => resolve(io.cwd, f)));
+  return writeSummary(args, io, summary, paths, args.files.map((f) => resolve(io.cwd, f)));
 }

@@ -80,7 +80,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   timings.contour = threshold.contourMs;
   timings.smooth = threshold.smoothMs;
   const passive = passiveStage(threshold.smoothed, field);
-  lap('finish');
+  lap('passive');
 
   const plan = withFileName(input.name, () => planStage(field, threshold.summary.mode, s));
   const checkInput = { ...field, raw: threshold.raw, smoothed: threshold.smoothed, threshold: threshold.summary, greyLevel: field.input.greyLevel };
