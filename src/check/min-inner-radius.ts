@@ -6,13 +6,22 @@
 import { formatValue } from './format.js';
 import type { CheckDefinition } from './types.js';
 
+/**
+ * How deep (mm) an uncut corner must be to count: max(tolerance, 0.05 R) for a tool of radius R and the outline
+ * budget `tolerance` (DESIGN §5): shallower than the outline's own accuracy, or than a twentieth of the tool, is
+ * not a corner the tool leaves. The check and the open-corners repair use the same depth.
+ */
+export function cornerDepth(tolerance: number, toolRadius: number): number {
+  return Math.max(tolerance, 0.05 * toolRadius);
+}
+
 export const minInnerRadius: CheckDefinition = {
   id: 'min-inner-radius',
   unit: 'mm',
   comparison: '>=',
   measure(ctx, limit) {
     const m = ctx.morphology();
-    const depth = Math.max(ctx.tolerance, 0.05 * limit);
+    const depth = cornerDepth(ctx.tolerance, limit);
     const survey = m.corners(limit, depth);
     return {
       measured: survey.min,

@@ -12,6 +12,7 @@ import { RhoformError } from '../errors.js';
 import type { SamplePosition } from '../read/types.js';
 import type { DensityGrid } from '../types.js';
 import type { FieldStats } from './stats.js';
+import { mndPercent, mndTerm } from './mnd.js';
 
 /** Overshoot outside [0, 1] that is clipped with a warning rather than refused. */
 export const RANGE_OVERSHOOT = 0.05;
@@ -100,7 +101,7 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
     if (v >= 0 && v <= 1) {
       out[k] = v;
       sum += v;
-      mnd += v * (1 - v);
+      mnd += mndTerm(v);
       if (v < min) min = v;
       if (v > max) max = v;
     } else {
@@ -128,7 +129,7 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
     min: finite > 0 ? rawMin : NaN,
     max: finite > 0 ? rawMax : NaN,
     mean: finite > 0 ? mappedSum / finite : NaN,
-    greyLevel: finite > 0 ? (400 * mnd) / finite : NaN,
+    greyLevel: mndPercent(mnd, finite),
     greyShare: finite > 0 ? grey / finite : NaN,
   };
   const warnings: string[] = [];

@@ -3,6 +3,7 @@
  * Non-finite samples (NaN, ±Infinity) are counted and otherwise ignored, so inspecting never fails on them.
  */
 import type { DensityGrid } from '../types.js';
+import { mndPercent, mndTerm } from './mnd.js';
 
 export interface FieldStats {
   /** Number of samples. */
@@ -46,7 +47,7 @@ export function fieldStats(grid: DensityGrid): FieldStats {
     if (x > max) max = x;
     sum += x;
     const c = x < 0 ? 0 : x > 1 ? 1 : x;
-    mnd += 4 * c * (1 - c);
+    mnd += mndTerm(c);
     if (x > 0.1 && x < 0.9) grey++;
   }
   return {
@@ -55,7 +56,7 @@ export function fieldStats(grid: DensityGrid): FieldStats {
     min: n > 0 ? min : NaN,
     max: n > 0 ? max : NaN,
     mean: n > 0 ? sum / n : NaN,
-    greyLevel: n > 0 ? (100 * mnd) / n : NaN,
+    greyLevel: mndPercent(mnd, n),
     greyShare: n > 0 ? grey / n : NaN,
   };
 }

@@ -24,6 +24,23 @@ export function ringArea(ring: Ring): number {
   return 0.5 * s;
 }
 
+/**
+ * Signed area (mm², shoelace) of one flat ring — vertices `from` … `to − 1` of interleaved x, y in `xy` (the
+ * smoothing stage's form): positive when counter-clockwise. Summed about the origin, unlike ringArea, so the
+ * smoothing stage's areas stay what they were measured as.
+ */
+export function flatRingArea(xy: Float64Array, from = 0, to = xy.length >> 1): number {
+  let a = 0;
+  if (to - from < 3) return 0;
+  let px = xy[2 * (to - 1)], py = xy[2 * (to - 1) + 1];
+  for (let i = from; i < to; i++) {
+    const x = xy[2 * i], y = xy[2 * i + 1];
+    a += px * y - x * py;
+    px = x; py = y;
+  }
+  return a / 2;
+}
+
 /** Length in mm of an implicitly closed ring, closing edge included. */
 export function ringPerimeter(ring: Ring): number {
   const n = ring.length;

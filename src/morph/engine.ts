@@ -20,7 +20,11 @@ import { medialPoints, widthSurvey } from './width.js';
 
 /** Open-space margin (pixels) of the first raster; corners() rebuilds with a wider one when the tool needs it. */
 const BASE_PAD = 6;
-/** Refuse rasters larger than this (pixels, margin included). */
+/**
+ * Refuse rasters larger than this (pixels, margin included): the nearest-segment transform and the masks hold
+ * about 25 bytes per pixel (nearest.ts, raster.ts), so 24 M pixels is about 0.6 GB — a guard against runaway
+ * memory, not a working size (choosePixel aims at 4 M; only a wide tool margin comes near it).
+ */
 const MAX_RASTER = 24_000_000;
 
 interface Stage {

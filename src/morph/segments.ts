@@ -81,13 +81,6 @@ export function segDist2(geo: Float64Array, s: number, px: number, py: number): 
   return ex * ex + ey * ey;
 }
 
-/** Parameter t ∈ [0, 1] of the point of segment s closest to (px, py). */
-export function footT(geo: Float64Array, s: number, px: number, py: number): number {
-  const o = 5 * s;
-  const t = ((px - geo[o]) * geo[o + 2] + (py - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
-  return t < 0 ? 0 : t > 1 ? 1 : t;
-}
-
 /**
  * Which side of the boundary (px, py) is on, judged by segment s assumed nearest: > 0 solid, < 0 void.
  * A foot inside the segment uses its normal; a foot at an end vertex uses the vertex pseudo-normal (the sum of

@@ -88,6 +88,3 @@ export interface Morphology {
   /** Local thickness raster of the solid, at most `maxSide` pixels along the longer side. */
   thicknessMap(maxSide: number): ThicknessMap;
 }
-
-/** Builds the engine for one outline (implemented in src/morph/index.ts). */
-export type BuildMorphology = (polygons: PolygonSet, options: MorphologyOptions) => Morphology;

@@ -15,7 +15,7 @@ import type { PassiveRegions, PassiveShape } from './types.js';
 const SOLID = 1;
 const VOID = 2;
 
-interface Frame {
+interface SampleLattice {
   readonly nx: number;
   readonly ny: number;
   readonly ox: number;
@@ -34,7 +34,7 @@ function span(a: number, b: number, o: number, h: number, s: number, n: number):
 }
 
 /** Calls mark(k) for every sample index k inside `shape` (closed), looping over its bounding box only. */
-function forEachInside(shape: PassiveShape, f: Frame, mark: (k: number) => void): void {
+function forEachInside(shape: PassiveShape, f: SampleLattice, mark: (k: number) => void): void {
   const { nx, ny, ox, oy, hx, hy, s } = f;
   const X = (i: number): number => ox + (i + s) * hx;
   const Y = (j: number): number => oy + (j + s) * hy;
@@ -153,7 +153,7 @@ export function applyPassiveToGrid(
   const values = new Float64Array(grid.values);
   if (regions.regions.length === 0) return { grid: { ...grid, values }, solidSamples: 0, voidSamples: 0 };
   const [hx, hy] = grid.cellSize;
-  const f: Frame = { nx: grid.nx, ny: grid.ny, ox: grid.origin[0], oy: grid.origin[1], hx, hy, s: grid.placement === 'nodes' ? 0 : 0.5 };
+  const f: SampleLattice = { nx: grid.nx, ny: grid.ny, ox: grid.origin[0], oy: grid.origin[1], hx, hy, s: grid.placement === 'nodes' ? 0 : 0.5 };
   const role = new Uint8Array(values.length);
   for (const r of regions.regions) if (r.role === 'solid') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = SOLID));
   // Void wins: a sample anywhere in a void primitive is never set solid, deep or not (with an inset, the

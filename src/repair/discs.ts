@@ -14,6 +14,7 @@
  * neck is bridged there.
  */
 import type { Point, Ring } from '../types.js';
+import { cellKey } from './cell-key.js';
 
 /**
  * The regions to add for the samples (x[k], y[k]) with disc radii r[k] (mm; the caller adds its margin): one
@@ -32,7 +33,7 @@ export function discHulls(
   oy: number,
   arcTol: number,
 ): Ring[] {
-  const key = (i: number, j: number): number => i * 4_194_304 + j; // exact in a double for |i|, |j| < 2^22
+  const key = cellKey;
   const at = new Map<number, number>();
   const ii = new Int32Array(n), jj = new Int32Array(n);
   for (let k = 0; k < n; k++) {

@@ -19,6 +19,7 @@
  * there, not at every slightly concave vertex of the whole outline, so the vertex count stays near the
  * input's. An uncut region longer than its window (a long slot) is finished by the next round's survey.
  */
+import { cornerDepth } from '../check/min-inner-radius.js';
 import type { Morphology } from '../morph/types.js';
 import type { PolygonSet, Ring } from '../types.js';
 import { booleanOp, ringsOf } from '../geom/clipper.js';
@@ -34,7 +35,7 @@ type Box = [number, number, number, number];
 export function openCorners(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
   const R = input.limits.toolRadius;
   if (R === null) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: 'no tool radius (--tool-radius or --process)' };
-  const survey = morph.corners(R, Math.max(input.tolerance, 0.05 * R));
+  const survey = morph.corners(R, cornerDepth(input.tolerance, R));
   if (survey.places.length === 0) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: null };
   const rho = R + marginOf(input, R, true);
   const quantum = quantumOf(input.domain, rho);

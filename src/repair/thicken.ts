@@ -23,6 +23,7 @@ import type { Point, PolygonSet } from '../types.js';
 import { boxesOf, clearOfVoids } from './away.js';
 import { addMaterial, arcToleranceOf, marginOf, quantumOf } from './common.js';
 import type { RepairInput, StepResult } from './types.js';
+import { cellKey } from './cell-key.js';
 
 /** Thickens the thin members of `set`; `morph` is the morphology of `set` (buildMorphology with input.pixel). */
 export function thicken(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
@@ -67,7 +68,7 @@ export function thicken(set: PolygonSet, input: RepairInput, morph: Morphology):
  */
 function chain(centres: readonly Point[], cell: number, ox: number, oy: number): Point[][] {
   const at = new Map<number, number>();
-  const key = (i: number, j: number): number => i * 4_194_304 + j;
+  const key = cellKey;
   const ij = centres.map((c) => [Math.floor((c[0] - ox) / cell), Math.floor((c[1] - oy) / cell)] as const);
   ij.forEach(([i, j], k) => at.set(key(i, j), k));
   const runs: Point[][] = [];
@@ -94,7 +95,7 @@ export function thinOut(x: Float64Array, y: Float64Array, n: number, cell: numbe
   const keep: number[] = [];
   for (let k = 0; k < n; k++) {
     const i = Math.floor((x[k] - ox) / cell), j = Math.floor((y[k] - oy) / cell);
-    const key = i * 4_194_304 + j; // exact in a double for |i|, |j| < 2^22
+    const key = cellKey(i, j);
     if (seen.has(key)) continue;
     seen.add(key);
     keep.push(k);

@@ -6,6 +6,7 @@
  * Frame: millimetres, y up, origin at the lower-left corner of the grid.
  */
 import { joinedPieces } from '../check/islands.js';
+import { cornerDepth } from '../check/min-inner-radius.js';
 import { polygonArea, ringArea } from '../geom/area.js';
 import { ringContains } from '../geom/contains.js';
 import type { Morphology } from '../morph/types.js';
@@ -70,7 +71,7 @@ export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput
     return parts.length ? parts.join('; ') : null;
   }
   if (id === 'open-corners' && L.toolRadius !== null) {
-    const s = morph.corners(L.toolRadius, Math.max(input.tolerance, 0.05 * L.toolRadius));
+    const s = morph.corners(L.toolRadius, cornerDepth(input.tolerance, L.toolRadius));
     if (s.places.length === 0) return null;
     const p = s.places[0];
     return `${s.places.length} corner${s.places.length === 1 ? '' : 's'} still tighter than ${fmt(L.toolRadius)} mm (tightest ${fmt(p.radius)} mm at x ${fmt(p.x)}, y ${fmt(p.y)}): ${why(p.x, p.y, 2 * L.toolRadius, input, rounds, settled)}`;

@@ -7,23 +7,12 @@
 
 import { type FlatRings, SegmentGrid, sqSegDist } from '../geom/segments.js';
 
-/** Signed area (mm², shoelace) of one flat ring: positive when counter-clockwise. */
-export function ringArea(xy: Float64Array, from = 0, to = xy.length >> 1): number {
-  let a = 0;
-  if (to - from < 3) return 0;
-  let px = xy[2 * (to - 1)], py = xy[2 * (to - 1) + 1];
-  for (let i = from; i < to; i++) {
-    const x = xy[2 * i], y = xy[2 * i + 1];
-    a += px * y - x * py;
-    px = x; py = y;
-  }
-  return a / 2;
-}
+import { flatRingArea } from '../geom/area.js';
 
 /** Sum of the signed areas (mm²) of all rings: material area when outers are CCW and holes CW. */
 export function totalArea(rings: FlatRings): number {
   let a = 0;
-  for (let r = 0; r + 1 < rings.start.length; r++) a += ringArea(rings.xy, rings.start[r], rings.start[r + 1]);
+  for (let r = 0; r + 1 < rings.start.length; r++) a += flatRingArea(rings.xy, rings.start[r], rings.start[r + 1]);
   return a;
 }
 

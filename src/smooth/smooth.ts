@@ -12,7 +12,8 @@
 import { RhoformError } from '../errors.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { FlatRings } from '../geom/segments.js';
-import { ringArea, spanDeviation, totalArea } from './deviation.js';
+import { flatRingArea } from '../geom/area.js';
+import { spanDeviation, totalArea } from './deviation.js';
 import { simplifyRing } from './simplify.js';
 import { taubinRingInPlace } from './taubin.js';
 import { type RingRoles, validateRings } from './validate.js';
@@ -57,7 +58,7 @@ export interface SmoothResult {
 /** Share of the tolerance smoothing may use; simplification gets the rest (plus whatever smoothing left). */
 export const SMOOTH_SHARE = 0.5;
 /** Rounds of local repair before offending rings fall back to their raw form. */
-const MAX_ROUNDS = 8;
+const LOCAL_FIX_ROUNDS = 8;
 
 /**
  * Smooths and simplifies a polygon set within a deviation budget and returns it with its measurements.
@@ -104,10 +105,10 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
   // 3. validate; repair locally until valid (or every offending ring is raw)
   const useRaw = new Uint8Array(n);
   let final = assemble(rawFlat, S, keep, useRaw);
-  for (let round = 0; round <= MAX_ROUNDS; round++) {
+  for (let round = 0; round <= LOCAL_FIX_ROUNDS; round++) {
     const v = validateRings(final.rings, roles);
     if (v.problems === 0) break;
-    const changed = repairRound(rawFlat, roles, keep, useRaw, final, v, round, round === MAX_ROUNDS);
+    const changed = repairRound(rawFlat, roles, keep, useRaw, final, v, round, round === LOCAL_FIX_ROUNDS);
     if (!changed) break; // what is left is already raw: the input itself is invalid there (docs/smoothing.md §5)
     final = assemble(rawFlat, S, keep, useRaw);
   }
@@ -177,7 +178,7 @@ function flatten(raw: PolygonSet): { rawFlat: FlatRings; roles: RingRoles; verti
     while (o - used >= 2 && xy[2 * o - 2] === xy[2 * used] && xy[2 * o - 1] === xy[2 * used + 1]) o--;
     let finite = true;
     for (let i = 2 * used; i < 2 * o; i++) if (!Number.isFinite(xy[i])) finite = false;
-    return o - used >= 3 && finite && ringArea(xy, used, o) !== 0 ? o : used;
+    return o - used >= 3 && finite && flatRingArea(xy, used, o) !== 0 ? o : used;
   };
   for (const poly of raw.polygons) {
     const end = push(poly.outer);

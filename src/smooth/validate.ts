@@ -9,7 +9,8 @@
  */
 
 import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
-import { ringArea, ringSegments } from './deviation.js';
+import { flatRingArea } from '../geom/area.js';
+import { ringSegments } from './deviation.js';
 
 /** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
 export interface RingRoles {
@@ -47,7 +48,7 @@ export function validateRings(rings: FlatRings, roles: RingRoles): Validation {
   let problems = 0;
   for (let r = 0; r < nRings; r++) {
     const a = start[r], b = start[r + 1];
-    const area = ringArea(xy, a, b);
+    const area = flatRingArea(xy, a, b);
     if (b - a < 3 || !(roles.hole[r] ? area < 0 : area > 0)) {
       ringHit[r] = 1;
       problems++;

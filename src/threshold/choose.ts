@@ -8,7 +8,7 @@
 import { levelBandModel } from '../contour/index.js';
 import type { SaddleRuleName } from '../settings.js';
 import type { DensityGrid, PolygonSet, Report } from '../types.js';
-import { volumeLevel } from './volume.js';
+import { FIXED_POINT_BUILDS, volumeLevel } from './volume.js';
 
 /** One build at a level: the raw contour and what smoothing made of it (areas in mm²). */
 export interface Candidate<S extends { readonly areaBefore: number; readonly areaAfter: number }> {
@@ -38,8 +38,10 @@ export interface ThresholdChoice<S extends { readonly areaBefore: number; readon
   readonly warnings: string[];
 }
 
-/** Grids up to this many samples may spend up to 12 more builds bisecting on the smoothed area (volume.ts). */
+/** Grids up to this many samples may spend up to REFINE_BUILDS more builds bisecting on the smoothed area (volume.ts). */
 const REFINE_CELLS = 250_000;
+/** Bisection builds on small grids: halving the bracket 12 times narrows it 4096-fold (docs/threshold.md). */
+const REFINE_BUILDS = 12;
 
 /**
  * Choose the level for a prepared grid. `buildAt(level)` contours and smooths at a level; `buildAt(null)`
@@ -68,7 +70,7 @@ export function chooseThreshold<S extends { readonly areaBefore: number; readonl
   const targetArea = o.target * o.domainArea;
   // Bisection on the smoothed area is worth its builds where they are cheap (small grids are the coarse ones
   // whose simplification makes the area jump); large grids converge in the fixed point.
-  const refine = grid.values.length <= REFINE_CELLS ? 12 : 0;
+  const refine = grid.values.length <= REFINE_CELLS ? REFINE_BUILDS : 0;
   const found = volumeLevel(
     levelBandModel(grid, o.saddle, [o.min, o.max]),
     targetArea,
@@ -77,7 +79,7 @@ export function chooseThreshold<S extends { readonly areaBefore: number; readonl
       const c = buildAt(L);
       return { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c };
     },
-    6,
+    FIXED_POINT_BUILDS,
     refine,
   );
   if (found.relativeError > o.volumeTolerance) {

@@ -32,6 +32,12 @@ export interface VolumeLevelResult<T> {
 }
 
 /**
+ * Builds (contour + smooth) the fixed point on the smoothed area may use; it normally needs one or two
+ * (docs/threshold.md), the rest is a margin before the closest build is kept.
+ */
+export const FIXED_POINT_BUILDS = 6;
+
+/**
  * Choose the level so that the smoothed area equals `targetArea` within `relTol` (relative).
  * `build(level)` contours and smooths at a level. At most `maxBuilds` fixed-point builds; the best one is
  * returned.
@@ -47,7 +53,7 @@ export function volumeLevel<T>(
   targetArea: number,
   relTol: number,
   build: (level: number) => BuildAtLevel<T>,
-  maxBuilds = 6,
+  maxBuilds = FIXED_POINT_BUILDS,
   refineBuilds = 0,
 ): VolumeLevelResult<T> {
   const solver = new LevelSolver(model);

@@ -1,7 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { segmentsIntersect } from '../../src/geom/segments.js';
 import { validateRings } from '../../src/smooth/validate.js';
-import { directedHausdorff, ringArea } from '../../src/smooth/deviation.js';
+import { flatRingArea as ringArea } from '../../src/geom/area.js';
+import { directedHausdorff } from '../../src/smooth/deviation.js';
 import { rng } from './gen.js';
 
 const flat = (...rings: number[][]) => {
