@@ -9,7 +9,7 @@ import { checkStage, planStage, type CheckRecord } from './check/stage.js';
 import { levelCurve } from './field/curve.js';
 import { prepareStage, withFileName } from './field/stage.js';
 import { loadBooleanEngine } from './geom/clipper.js';
-import { describeInput, loadGrid, type InputFile } from './input.js';
+import { loadGrid, type InputFile } from './input.js';
 import { buildMorphology } from './morph/index.js';
 import { passiveStage } from './passive/stage.js';
 import type { PassiveRegions } from './passive/types.js';
@@ -23,7 +23,6 @@ import type { DensityGrid, PolygonSet, Report } from './types.js';
 import { writeStage } from './write/stage.js';
 
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
-export { describeInput };
 
 export interface BuildResult {
   /** The report; `outputs` is empty — the CLI fills it once files are written. */
