@@ -16,7 +16,7 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 export const LAYERS: readonly (readonly string[])[] = [
   ['src/types.ts', 'src/errors.ts', 'src/version.ts', 'src/settings.ts'],
   ['src/geom'],
-  ['src/read', 'src/field', 'src/contour', 'src/smooth', 'src/threshold', 'src/passive', 'src/morph', 'src/check', 'src/repair', 'src/write', 'src/fe', 'src/loads', 'src/input.ts'],
+  ['src/read', 'src/field', 'src/contour', 'src/smooth', 'src/threshold', 'src/passive', 'src/morph', 'src/check', 'src/repair', 'src/write', 'src/fe', 'src/loads', 'src/json', 'src/input.ts'],
   ['src/report'],
   ['src/pipeline.ts', 'src/index.ts', 'src/preview'],
   ['cli'],
