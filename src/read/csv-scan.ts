@@ -214,10 +214,17 @@ export class RowScanner {
       if (k === ncols) throw this.ragged(start, end, line, p);
       let v = fastNumber(text, p, end, this.mark, st);
       let q = st.end;
+      // The fast number must be the whole field: after it only blanks, then the end of the line or (with a
+      // character separator) the separator. Anything else ("0.5 -1", "0.5 1.25", "1x") makes the field one
+      // token for the slow path, which refuses it whole at its column.
       let ok = v === v;
       if (ok) {
         c = q < end ? text.charCodeAt(q) : -1;
-        ok = c === -1 || c === 32 || c === 9 || c === sep;
+        if (sep === SEP_WS) ok = c === -1 || c === 32 || c === 9;
+        else {
+          while (c === 32 || (c === 9 && sep !== 9)) c = ++q < end ? text.charCodeAt(q) : -1;
+          ok = c === -1 || c === sep;
+        }
       }
       if (!ok) {
         q = this.fieldEnd(p, end);
@@ -229,7 +236,7 @@ export class RowScanner {
         v = parsed;
       }
       out[offset + k++] = v;
-      // q is just past the token: skip blanks, then a separator, then blanks.
+      // q is at the end of the field: skip blanks, then a separator, then blanks.
       c = q < end ? text.charCodeAt(q) : -1;
       if (sep === SEP_WS) {
         while (c === 32 || c === 9) c = ++q < end ? text.charCodeAt(q) : -1;
@@ -237,7 +244,7 @@ export class RowScanner {
       } else {
         while (c === 32 || (c === 9 && sep !== 9)) c = ++q < end ? text.charCodeAt(q) : -1;
         if (c === -1) break;
-        // c is the separator here (fieldEnd stops only at one, the fast path checked it).
+        // c is the separator: the fast path accepted only that, and fieldEnd stops only at one.
         c = ++q < end ? text.charCodeAt(q) : -1;
         while (c === 32 || (c === 9 && sep !== 9)) c = ++q < end ? text.charCodeAt(q) : -1;
       }
