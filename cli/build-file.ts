@@ -5,7 +5,7 @@
  */
 import { basename, extname, join, resolve } from 'node:path';
 import { RhoformError } from '../src/errors.js';
-import { parsePassive } from '../src/passive/parse.js';
+import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
 import { build } from '../src/pipeline.js';
 import { formatHtml } from '../src/report/html.js';
@@ -25,14 +25,7 @@ function stem(file: string): string {
 
 /** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
 function readPassive(path: string, name: string): PassiveRegions {
-  const bytes = readInput(path, name);
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
-  }
-  return parsePassive(text, name);
+  return parsePassiveBytes(readInput(path, name), name);
 }
 
 export interface BuildFileOptions {

@@ -60,6 +60,9 @@ export class RhoformError extends Error {
   readonly detail: string;
 
   constructor(code: ErrorCode, detail: string, where?: Where) {
+    // One line, always: whatever a message quotes from an input, control characters arrive escaped.
+    detail = escapeControls(detail);
+    if (where?.file !== undefined) where = { ...where, file: escapeControls(where.file) };
     const prefix = formatWhere(where);
     super(prefix ? `${prefix}: ${detail}` : detail);
     this.name = 'RhoformError';
@@ -82,11 +85,45 @@ export class UsageError extends RhoformError {
   }
 }
 
-/** Shows a value in a message: strings quoted and cut to 40 characters, numbers as they are. */
-export function show(value: unknown): string {
-  if (typeof value === 'string') {
-    const cut = value.length > 40 ? `${value.slice(0, 40)}…` : value;
-    return JSON.stringify(cut);
+/**
+ * Characters a message must never carry raw: C0 controls (line breaks and ESC included), DEL, C1 controls
+ * (0x9b is a one-byte CSI on some terminals), the Unicode line and paragraph separators, and lone surrogates.
+ */
+const CONTROL = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g;
+
+/**
+ * The one escaping helper for text quoted from an input: every control character becomes a visible escape
+ * (`\n`, `\r`, `\t`, else `\xHH` or `\uHHHH`), so a message stays one line and cannot drive a terminal.
+ * Backslashes are left as they are (messages quote them already).
+ */
+export function escapeControls(text: string): string {
+  return text.replace(CONTROL, (c) => {
+    if (c === '\n') return '\\n';
+    if (c === '\r') return '\\r';
+    if (c === '\t') return '\\t';
+    const u = c.charCodeAt(0);
+    return u < 0x100 ? `\\x${u.toString(16).padStart(2, '0')}` : `\\u${u.toString(16).padStart(4, '0')}`;
+  });
+}
+
+/**
+ * Quotes text from an input for a message: double-quoted, cut to `max` characters (never inside a surrogate
+ * pair), with quotes, backslashes and control characters escaped (escapeControls).
+ */
+export function quote(text: string, max = 40): string {
+  let cut = text;
+  if (text.length > max) {
+    let n = max;
+    const c = text.charCodeAt(n - 1);
+    if (c >= 0xd800 && c <= 0xdbff) n--;
+    cut = text.slice(0, n);
   }
+  const body = escapeControls(cut.replace(/\\/g, '\\\\').replace(/"/g, '\\"'));
+  return `"${body}"${cut.length < text.length ? '…' : ''}`;
+}
+
+/** Shows a value in a message: strings quoted and cut to 40 characters (quote), numbers as they are. */
+export function show(value: unknown): string {
+  if (typeof value === 'string') return quote(value);
   return String(value);
 }

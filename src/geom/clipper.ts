@@ -90,7 +90,7 @@ export function quantumFor(extent: number, margin = 0): number {
   return 2 ** Math.ceil(Math.log2(m / 2 ** 29));
 }
 
-function toInt(rings: readonly (readonly Point[])[], q: number): IntPath[] {
+function toInt(rings: readonly (readonly Point[])[], q: number, dropFlat = false): IntPath[] {
   const out: IntPath[] = [];
   for (const r of rings) {
     if (r.length < 2) continue;
@@ -103,7 +103,11 @@ function toInt(rings: readonly (readonly Point[])[], q: number): IntPath[] {
       }
       path[k] = { x, y };
     }
-    out.push(path);
+    // dropFlat (booleans): a ring thinner than the quantum rounds to no area; Clipper refuses such a path
+    // ("invalid paths"), and at this resolution it holds no material anyway.
+    let twiceArea = 0;
+    for (let k = 0, m = path.length - 1; k < path.length; m = k++) twiceArea += path[m].x * path[k].y - path[k].x * path[m].y;
+    if (twiceArea !== 0 || !dropFlat) out.push(path);
   }
   return out;
 }
@@ -158,8 +162,8 @@ export function ringsOf(set: PolygonSet | readonly Polygon[]): Ring[] {
  */
 export function booleanOp(op: BooleanOp, subject: readonly Ring[], clip: readonly Ring[], opts: { quantum?: number } = {}): PolygonSet {
   const q = opts.quantum ?? quantumFor(extentOf([subject, clip]));
-  let s = toInt(subject, q);
-  let c = toInt(clip, q);
+  let s = toInt(subject, q, true);
+  let c = toInt(clip, q, true);
   let clipType = op;
   if (s.length === 0) {
     // Nothing minus or times anything is nothing; nothing plus (or xor) the clip is the clip alone.

@@ -13,12 +13,37 @@ export interface JsonSpot {
   readonly key?: number;
 }
 
+/**
+ * A failed scan: `offset` of the first syntax error, or (`tooDeep`) of the first array or object opened
+ * deeper than MAX_JSON_DEPTH.
+ */
 export type JsonScan =
   | { readonly ok: true; readonly spots: ReadonlyMap<string, JsonSpot>; readonly duplicate: { path: string; key: number } | null }
-  | { readonly ok: false; readonly offset: number };
+  | { readonly ok: false; readonly offset: number; readonly tooDeep: boolean };
+
+/**
+ * Deepest nesting of arrays and objects the scanner follows. The passive-region format needs 5 levels
+ * (top, regions, a region, its shape, a point); the bound keeps the recursion and the key paths small
+ * whatever a file holds.
+ */
+export const MAX_JSON_DEPTH = 64;
 
 class ScanError {
-  constructor(readonly offset: number) {}
+  constructor(
+    readonly offset: number,
+    readonly tooDeep = false,
+  ) {}
+}
+
+/** The text of a JSON.parse error message without the echo of the input Node 20 appends (or is made of). */
+export function jsonParseMessage(e: unknown): string {
+  const m = e instanceof Error ? e.message : String(e);
+  const cleaned = m
+    .replace(/(,\s*)?"[\s\S]*" is not valid JSON$/, '')
+    .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
+    .replace(/\s*\(line \d+ column \d+\)/, '')
+    .trim();
+  return cleaned === '' ? 'not valid JSON' : cleaned;
 }
 
 /** Path of member `key` under `parent`. */
@@ -89,12 +114,13 @@ export function scanJson(text: string): JsonScan {
       digits();
     }
   };
-  const value = (path: string, key?: number): void => {
+  const value = (path: string, depth: number, key?: number): void => {
     if (i >= n) fail(n);
     if (spots.has(path)) {
       if (duplicate === null) duplicate = { path, key: key ?? i };
     } else spots.set(path, key === undefined ? { value: i } : { value: i, key });
     const c = s[i];
+    if ((c === '{' || c === '[') && depth >= MAX_JSON_DEPTH) throw new ScanError(i, true);
     if (c === '{') {
       i++;
       ws();
@@ -111,7 +137,7 @@ export function scanJson(text: string): JsonScan {
         if (s[i] !== ':') fail(i);
         i++;
         ws();
-        value(memberPath(path, name), k0);
+        value(memberPath(path, name), depth + 1, k0);
         ws();
         if (s[i] === ',') {
           i++;
@@ -133,7 +159,7 @@ export function scanJson(text: string): JsonScan {
         return;
       }
       for (let k = 0; ; k++) {
-        value(elementPath(path, k));
+        value(elementPath(path, k), depth + 1);
         ws();
         if (s[i] === ',') {
           i++;
@@ -166,11 +192,11 @@ export function scanJson(text: string): JsonScan {
 
   try {
     ws();
-    value('');
+    value('', 0);
     ws();
     if (i < n) fail(i);
   } catch (e) {
-    if (e instanceof ScanError) return { ok: false, offset: e.offset };
+    if (e instanceof ScanError) return { ok: false, offset: e.offset, tooDeep: e.tooDeep };
     throw e;
   }
   return { ok: true, spots, duplicate };

@@ -12,8 +12,9 @@
  */
 import { RhoformError, show, type Where } from '../errors.js';
 import type { Point } from '../types.js';
-import { describe, jsonMessage, jsonOffset } from '../json/strict.js';
-import { elementPath, lineCol, memberPath, scanJson, type JsonSpot } from './json-scan.js';
+import { describe, jsonOffset } from '../json/strict.js';
+import { firstInvalidUtf8 } from '../read/utf8.js';
+import { MAX_JSON_DEPTH, elementPath, jsonParseMessage, lineCol, memberPath, scanJson, type JsonScan, type JsonSpot } from './json-scan.js';
 import { absArea, allCollinear, dropRepeats, firstSelfIntersection } from './polygon-check.js';
 import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
 
@@ -21,6 +22,11 @@ import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from '.
 export const MAX_POLYGON_POINTS = 10_000;
 /** Largest |coordinate| and radius accepted, mm (1 km: anything beyond is a unit mistake). */
 export const MAX_COORDINATE = 1e6;
+/**
+ * Smallest width, height and radius accepted, mm (1 µm: far below any cutting or printing process — common
+ * practice, no source). Smaller regions would vanish in the boolean engine's integer grid.
+ */
+export const MIN_SIZE = 1e-3;
 
 const TOP_KEYS = ['rhoformPassive', 'units', 'regions'] as const;
 const REGION_KEYS = ['role', 'circle', 'rect', 'polygon', 'name'] as const;
@@ -95,6 +101,7 @@ class Checker {
     const rp = memberPath(path, 'radius');
     const r = this.number(o.radius, rp, 'a radius in mm');
     if (!(r > 0)) this.fail(rp, 'a radius > 0 mm', describe(r));
+    if (!(r >= MIN_SIZE)) this.fail(rp, `a radius of at least ${MIN_SIZE} mm`, describe(r));
     return { kind: 'circle', cx, cy, r };
   }
 
@@ -105,6 +112,8 @@ class Checker {
     const [x1, y1] = this.point(o.max, maxPath);
     if (!(x1 > x0)) this.fail(elementPath(maxPath, 0), `a value greater than min x = ${x0}`, describe(x1));
     if (!(y1 > y0)) this.fail(elementPath(maxPath, 1), `a value greater than min y = ${y0}`, describe(y1));
+    if (!(x1 - x0 >= MIN_SIZE)) this.fail(elementPath(maxPath, 0), `a width of at least ${MIN_SIZE} mm (max x − min x)`, describe(x1));
+    if (!(y1 - y0 >= MIN_SIZE)) this.fail(elementPath(maxPath, 1), `a height of at least ${MIN_SIZE} mm (max y − min y)`, describe(y1));
     return { kind: 'rect', x0, y0, x1, y1 };
   }
 
@@ -159,6 +168,33 @@ class Checker {
 }
 
 /**
+ * Parse a passive-region file from its bytes: UTF-8 (a BOM is allowed), else E_PASSIVE_JSON at the byte
+ * offset of the first byte that is not UTF-8. Then as parsePassive.
+ */
+export function parsePassiveBytes(bytes: Uint8Array, file: string): PassiveRegions {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    const at = Math.max(0, firstInvalidUtf8(bytes));
+    throw new RhoformError('E_PASSIVE_JSON', `expected UTF-8 text (JSON), found the byte 0x${bytes[at].toString(16).padStart(2, '0')} that is not UTF-8`, {
+      file,
+      byteOffset: at,
+    });
+  }
+  return parsePassive(text, file);
+}
+
+/** The refusal of arrays or objects nested deeper than the scanner follows. */
+function tooDeep(src: string, file: string, scan: JsonScan & { ok: false }): RhoformError {
+  return new RhoformError(
+    'E_PASSIVE_FORMAT',
+    `expected at most ${MAX_JSON_DEPTH} levels of nested arrays and objects (the format needs 5), found deeper nesting`,
+    { file, ...lineCol(src, scan.offset) },
+  );
+}
+
+/**
  * Parse a passive-region file. `file` names it in messages. Pure: the caller reads the file.
  * Returns regions in mm, y up, origin at the lower-left corner of the input grid, in file order.
  * Throws RhoformError E_PASSIVE_JSON (not JSON) or E_PASSIVE_FORMAT (not the format), with line and column.
@@ -172,12 +208,16 @@ export function parsePassive(text: string, file: string): PassiveRegions {
     let at = jsonOffset(src, e);
     if (at === null) {
       const scan = scanJson(src);
-      if (!scan.ok) at = scan.offset;
+      if (!scan.ok) {
+        if (scan.tooDeep) throw tooDeep(src, file, scan);
+        at = scan.offset;
+      }
     }
     const where: Where = at === null ? { file } : typeof at === 'number' ? { file, ...lineCol(src, at) } : { file, ...at };
-    throw new RhoformError('E_PASSIVE_JSON', `expected JSON, found a syntax error (${jsonMessage(e)})`, where);
+    throw new RhoformError('E_PASSIVE_JSON', `expected JSON, found a syntax error (${jsonParseMessage(e)})`, where);
   }
   const scan = scanJson(src);
+  if (!scan.ok && scan.tooDeep) throw tooDeep(src, file, scan);
   const spots = scan.ok ? scan.spots : new Map<string, JsonSpot>();
   const checker = new Checker(src, file, spots);
   if (scan.ok && scan.duplicate !== null) {

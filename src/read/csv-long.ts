@@ -10,6 +10,8 @@ import { checkCellSize, lineEndOf } from './csv-grid.js';
 const LATTICE_TOL = 1e-6;
 /** Coordinates closer than this fraction of their magnitude are the same coordinate (print noise). */
 const SAME_TOL = 1e-9;
+/** Largest |coordinate| accepted, mm (1 km, as for passive regions: anything beyond is a unit mistake). */
+const MAX_COORDINATE = 1e6;
 
 /** Column indices (0-based) of x, y and the value. */
 export type LongColumns = readonly [x: number, y: number, value: number];
@@ -126,6 +128,14 @@ export function readLongLayout(
   for (let k = 0; k < n; k++) {
     const x = xs[k];
     const y = ys[k];
+    if (!(Math.abs(x) <= MAX_COORDINATE && Math.abs(y) <= MAX_COORDINATE) && x - x === 0 && y - y === 0) {
+      const bad = Math.abs(x) <= MAX_COORDINATE ? 'y' : 'x';
+      throw new RhoformError(
+        'E_CSV_LONG',
+        `expected a ${bad} coordinate within ±${MAX_COORDINATE} mm, found ${bad === 'x' ? x : y}`,
+        { line: recLine[k], col: colOf(k, bad === 'x' ? cx : cy) },
+      );
+    }
     if (!(x - x === 0 && y - y === 0)) {
       // x − x is NaN exactly for NaN and ±Infinity
       const bad = x - x === 0 ? 'y' : 'x';
@@ -144,6 +154,7 @@ export function readLongLayout(
       'E_GRID_SIZE',
       `expected at most ${maxCells} cells (maxCells), found coordinates spanning ${nx} × ${ny} cells ` +
         `(spacing ${fmt(ax.h)} × ${fmt(ay.h)} mm) for ${n} values`,
+      { line: recLine[0], col: 1 },
     );
   }
   const values = new Float64Array(nx * ny);
@@ -179,10 +190,16 @@ export function readLongLayout(
     const idx = owner.indexOf(0);
     const i = idx % nx;
     const j = (idx - i) / nx;
+    // The missing cell has no line of its own: point at the line of its nearest neighbour in lattice order.
+    let near = idx - 1;
+    while (near >= 0 && owner[near] === 0) near--;
+    if (near < 0) for (near = idx + 1; owner[near] === 0; near++);
+    const line = recLine[owner[near] - 1];
     throw new RhoformError(
       'E_CSV_LONG',
       `expected a value for each of the ${nx} × ${ny} cells of the lattice, found ${nx * ny - n} missing; ` +
-        `first missing at x = ${fmt(ax.min + i * ax.h)}, y = ${fmt(ay.min + j * ay.h)}`,
+        `first missing at x = ${fmt(ax.min + i * ax.h)}, y = ${fmt(ay.min + j * ay.h)} (next to the cell on line ${line})`,
+      { line, col: 1 },
     );
   }
   const warnings: string[] = [];
@@ -192,6 +209,7 @@ export function readLongLayout(
     throw new RhoformError(
       'E_GRID_EMPTY',
       `expected at least 2 × 2 values for nodal values (cell corners), found ${nx} × ${ny}`,
+      { line: recLine[0], col: 1 },
     );
   }
   const half = options.values === 'nodes' ? 0 : 0.5;

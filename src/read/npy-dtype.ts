@@ -67,7 +67,7 @@ export function parseNpyDtype(descr: PyLiteral, where: Where): NpyDtype {
     };
   }
   const [name, hint] = refusedName(kindChar, sizeText, size);
-  throw new RhoformError('E_NPY_DTYPE', `expected ${ACCEPTED}, found ${name} ('${text}')${hint ? `; ${hint}` : ''}`, where);
+  throw new RhoformError('E_NPY_DTYPE', `expected ${ACCEPTED}, found ${name} (${showPyLiteral(descr)})${hint ? `; ${hint}` : ''}`, where);
 }
 
 const KIND_NAMES: Record<string, string> = { f: 'float', i: 'int', u: 'uint', c: 'complex', b: 'bool' };

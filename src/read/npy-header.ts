@@ -8,7 +8,7 @@
  * Writers pad the header so the data starts on a 64-byte boundary (16 in older files); the reader
  * takes the data offset from HEADER_LEN and assumes no alignment.
  */
-import { RhoformError } from '../errors.js';
+import { RhoformError, escapeControls } from '../errors.js';
 import { parsePyLiteral, PyLiteralError, showPyLiteral, type PyLiteral } from './npy-literal.js';
 
 export interface NpyHeader {
@@ -162,5 +162,5 @@ function utf8Offsets(text: string, headerStart: number): (i: number) => number {
 }
 
 function cut(s: string): string {
-  return s.length > 60 ? `${s.slice(0, 60)}…` : s;
+  return s.length > 60 ? `${escapeControls(s.slice(0, 60))}…` : escapeControls(s);
 }

@@ -8,6 +8,8 @@
  * Positions (`at`) are indices into the parsed string; the caller turns them into byte offsets.
  */
 
+import { escapeControls, quote } from '../errors.js';
+
 interface At {
   /** Index of the first character of this literal in the parsed text. */
   readonly at: number;
@@ -60,7 +62,7 @@ export function parsePyLiteral(text: string): PyLiteral {
 export function showPyLiteral(lit: PyLiteral): string {
   switch (lit.kind) {
     case 'str':
-      return `'${lit.value.replace(/\\/g, '\\\\').replace(/'/g, "\\'")}'`;
+      return `'${escapeControls(lit.value.replace(/\\/g, '\\\\').replace(/'/g, "\\'"))}'`;
     case 'int':
       return String(lit.value);
     case 'float':
@@ -91,7 +93,7 @@ class Parser {
   /** Throws "expected <what>, found <the text here>". */
   fail(what: string, at = this.pos): never {
     const rest = this.text.slice(at, at + 12);
-    const found = rest.length === 0 ? 'the end of the header' : JSON.stringify(rest) + (at + 12 < this.text.length ? '…' : '');
+    const found = rest.length === 0 ? 'the end of the header' : quote(rest, 12) + (at + 12 < this.text.length && rest.length === 12 ? '…' : '');
     throw new PyLiteralError(`expected ${what}, found ${found}`, at);
   }
 
@@ -178,7 +180,10 @@ class Parser {
         const n = esc === 'x' ? 2 : esc === 'u' ? 4 : 8;
         const hex = this.text.slice(this.pos, this.pos + n);
         if (!/^[0-9a-fA-F]+$/.test(hex) || hex.length !== n) this.fail(`${n} hex digits after \\${esc}`);
-        out += String.fromCodePoint(parseInt(hex, 16));
+        const code = parseInt(hex, 16);
+        // Python refuses \U escapes past the last code point too ("illegal Unicode character").
+        if (code > 0x10ffff) this.fail('a code point of at most \\U0010ffff', this.pos - 2);
+        out += String.fromCodePoint(code);
         this.pos += n;
       } else if (esc === '\n') {
         // a backslash-newline continues the string

@@ -56,6 +56,13 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
       { byteOffset: header.shapeOffset },
     );
   }
+  if (options.values === 'nodes' && (rows < 2 || cols < 2)) {
+    throw new RhoformError(
+      'E_GRID_EMPTY',
+      `expected at least 2 × 2 values for nodal values (cell corners), found shape ${shapeText}`,
+      { byteOffset: header.shapeOffset },
+    );
+  }
   const need = count * dtype.size;
   const have = bytes.length - header.dataOffset;
   if (have < need) {

@@ -106,7 +106,10 @@ describe('readCsv long layout', () => {
     const e = fail(['x,y,value', ...lines].join('\n'));
     expect(e.code).toBe('E_CSV_LONG');
     // written out: 12 cells, 2 left out; the first by (y, x) is (0.75, 0.25)
-    expect(e.detail).toBe('expected a value for each of the 4 × 3 cells of the lattice, found 2 missing; first missing at x = 0.75, y = 0.25');
+    // the place: the line of its neighbour in lattice order, the cell (0.25, 0.25)
+    const line = ['x,y,value', ...lines].findIndex((l) => l.startsWith('0.25,0.25,')) + 1;
+    expect(e.detail).toBe(`expected a value for each of the 4 × 3 cells of the lattice, found 2 missing; first missing at x = 0.75, y = 0.25 (next to the cell on line ${line})`);
+    expect(e.where).toEqual({ line, col: 1 });
   });
 
   it('E_CSV_LONG for a coordinate off the lattice, at its line and column', () => {
