@@ -23,7 +23,7 @@ import { BatchProgress, progressMode } from './batch/progress.js';
 import { selectShard } from './batch/shard.js';
 import { errorRow, makeSummary, summaryCsv, summaryJson, summaryNames, type BatchSummary, type SummaryRow } from './batch/summary.js';
 import type { WorkerAnswer, WorkerSetup, WorkerTask } from './batch/worker.js';
-import { writeOutputsAtomically } from './files.js';
+import { installTempSweep, readInput, writeOutputsAtomically } from './files.js';
 import { displayPath, reportError, useColor, type Io } from './io.js';
 
 const TOOL = { name: 'rhoform' as const, version: VERSION };
@@ -115,6 +115,8 @@ export async function runBatch(args: ParsedArgs, io: Io): Promise<number> {
     }
   });
 
+  // SIGINT/SIGTERM: remove this run's temp files in every folder it writes to, then end as the signal says.
+  const uninstallSweep = installTempSweep([outDir, ...tasks.map((t) => t.outDir)]);
   if (tasks.length > 0) {
     const setup: WorkerSetup = { kind: 'rhoform-batch', settings, cwd: io.cwd, force: args.cli.force };
     await runPool<WorkerTask, WorkerAnswer>(tasks, {
@@ -137,20 +139,18 @@ export async function runBatch(args: ParsedArgs, io: Io): Promise<number> {
   progress.finish();
 
   const summary = makeSummary(TOOL, settings as unknown as Record<string, unknown>, args.cli.shard, rows);
-  return writeSummary(args, io, summary, paths, inputs.map((f) => f.path));
+  try {
+    return writeSummary(args, io, summary, paths, inputs.map((f) => f.path));
+  } finally {
+    uninstallSweep();
+  }
 }
 
 export async function runMerge(args: ParsedArgs, io: Io): Promise<number> {
   const outDir = resolve(io.cwd, args.cli.outDir ?? '.');
   const loaded: LoadedSummary[] = args.files.map((f) => {
     const path = resolve(io.cwd, f);
-    let text: string;
-    try {
-      text = readFileSync(path, 'utf8');
-    } catch (e) {
-      const code = (e as NodeJS.ErrnoException).code ?? 'error';
-      throw new RhoformError('E_INPUT_READ', `cannot read the summary (${code === 'ENOENT' ? 'no such file' : code})`, { file: f });
-    }
+    const text = new TextDecoder().decode(readInput(path, f, { what: 'summary' }));
     return { name: f, summary: parseSummary(f, text) };
   });
   const { summary, notes } = mergeSummaries(loaded, TOOL);

@@ -4,7 +4,6 @@
  * worker (batch/worker.ts). Prints nothing: callers decide what goes to stdout and stderr.
  */
 import { basename, extname, join, resolve } from 'node:path';
-import { RhoformError } from '../src/errors.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
 import { build } from '../src/pipeline.js';
@@ -12,7 +11,7 @@ import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
 import type { OutputFormat, Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
-import { readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { readGridInput, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { displayPath, reportExitCode } from './io.js';
 
 const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
@@ -25,7 +24,7 @@ function stem(file: string): string {
 
 /** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
 function readPassive(path: string, name: string): PassiveRegions {
-  return parsePassiveBytes(readInput(path, name), name);
+  return parsePassiveBytes(readInput(path, name, { what: 'passive-region file' }), name);
 }
 
 export interface BuildFileOptions {
@@ -48,7 +47,7 @@ export interface BuildFileOptions {
 export function buildFile(settings: Settings, opts: BuildFileOptions): { report: Report; warnings: readonly string[]; exitCode: number } {
   const inputPath = resolve(opts.cwd, opts.file);
   const name = opts.name ?? opts.file;
-  const bytes = readInput(inputPath, name);
+  const bytes = readGridInput(inputPath, name, settings.maxCells);
   const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
   const passive = passivePath === null || settings.passive === null ? null : readPassive(passivePath, settings.passive);
   const result = build({ name, bytes }, settings, { passive });

@@ -14,7 +14,7 @@ import { REPAIR_IDS, resolveSettings, type Settings } from '../src/settings.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
 import { buildFile } from './build-file.js';
-import { readInput } from './files.js';
+import { readGridInput } from './files.js';
 import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
@@ -70,7 +70,7 @@ function runBuild(
 function runInspect(args: ParsedArgs, io: Io): number {
   const settings = resolveSettings(args.settings);
   const file = args.files[0];
-  const bytes = readInput(resolve(io.cwd, file), file);
+  const bytes = readGridInput(resolve(io.cwd, file), file, settings.maxCells);
   const r = inspect({ name: file, bytes }, settings);
   for (const w of r.warnings) io.stderr(`rhoform: warning: ${w}\n`);
   if (args.cli.json) {
