@@ -8,8 +8,8 @@
  * Approximation (a picture, not a measurement): each coarse pixel whose centre is solid starts at 2·d, twice
  * its own distance to the boundary (a disc centred on it — a lower bound of τ); then the discs of the solid
  * medial samples with separation angle ≥ 90° (at most one per coarse pixel, the largest) are painted with max;
- * then the discs centred on the coarse ridge pixels of d (d not below both neighbours along a row, a column or
- * a diagonal). The ridges cover the medial branches into convex corners of 90°–180° (separation angle below
+ * then the discs centred on the coarse ridge pixels of d (d above one neighbour and not below the other along
+ * a row, a column or a diagonal). The ridges cover the medial branches into convex corners of 90°–180° (separation angle below
  * 90°, which the medial samples leave out): without them, a point near such a corner (where the part meets
  * the domain edge at a blunt angle, say) would show its own small distance instead of the disc that holds it.
  * Every disc painted lies inside the solid, so each step only raises a lower bound towards τ.
@@ -94,12 +94,32 @@ export function thicknessMap(
     const r = samples.r[k] * px;
     paint(x, y, r);
   }
-  // discs on the ridges of the coarse distance d = values/2 (mm), read before any disc is painted
+  // discs on the ridges of the distance d (mm) at the coarse centres. The fine pixel's distance is constant
+  // over the pixel, so a coarse raster finer than it would see a staircase whose every step looks like a ridge;
+  // d is therefore carried to the coarse centre c to first order along the direction to the nearest boundary
+  // point (dFine − (c − p)·v/|v|, exact beside a straight edge), which makes d level only where it truly is.
+  // The disc painted at a ridge uses the certain lower bound dFine − |c − p| (d is 1-Lipschitz), so it stays
+  // inside the solid.
   const d0 = new Float32Array(values.length);
+  const rIn = new Float32Array(values.length);
   for (let j = 0; j < cny; j++) {
     for (let i = 0; i < cnx; i++) {
-      const p = fineOf(minX + (i + 0.5) * s, minY + (j + 0.5) * s);
-      d0[j * cnx + i] = phase[p] === 1 ? Math.min(field.dist[p], 1e30) * px : NaN;
+      const x = minX + (i + 0.5) * s, y = minY + (j + 0.5) * s;
+      const p = fineOf(x, y);
+      const q = j * cnx + i;
+      if (phase[p] !== 1) {
+        d0[q] = NaN;
+        continue;
+      }
+      const dist = field.dist[p];
+      if (!(dist > 0 && dist < 1e30)) {
+        d0[q] = rIn[q] = Math.min(dist, 1e30) * px;
+        continue;
+      }
+      const pu = p % frame.nx, pv = (p - pu) / frame.nx;
+      const du = (x - frame.x0) / px - 0.5 - pu, dv = (y - frame.y0) / px - 0.5 - pv;
+      d0[q] = Math.max(0, dist - (du * field.vx[p] + dv * field.vy[p]) / dist) * px;
+      rIn[q] = Math.max(0, dist - Math.hypot(du, dv)) * px;
     }
   }
   const at = (i: number, j: number): number => (i < 0 || j < 0 || i >= cnx || j >= cny ? 0 : Number.isNaN(d0[j * cnx + i]) ? 0 : d0[j * cnx + i]);
@@ -109,8 +129,14 @@ export function thicknessMap(
     for (let i = 0; i < cnx; i++) {
       const r = d0[j * cnx + i];
       if (!(r > s)) continue; // NaN (void) or a disc no wider than a coarse pixel: nothing to add
+      // A ridge rises above a neighbour on one side and is not below the other. Not below both is not enough:
+      // where d runs level along a row or column (beside a straight edge, and everywhere in a part without
+      // curvature) every pixel would count, and each would paint a disc — quadratic in the picture size.
       let ridge = false;
-      for (const [di, dj] of DIRS) if (r >= at(i - di, j - dj) && r >= at(i + di, j + dj)) ridge = true;
+      for (const [di, dj] of DIRS) {
+        const a = at(i - di, j - dj), b = at(i + di, j + dj);
+        if (r >= a && r >= b && (r > a || r > b)) ridge = true;
+      }
       if (!ridge) continue;
       // a ridge on the counted medial axis was painted by its medial sample already
       let nearSample = false;
@@ -129,9 +155,9 @@ export function thicknessMap(
   // largest first, and a disc inside the one that already painted its centre adds nothing (to a pixel's slack):
   // this skips the many ridges of the discrete distance near smooth convex boundaries, which lie inside the
   // medial discs there, and keeps the corner branches, whose centres only their own small discs reach
-  ridges.sort((a, b) => d0[b] - d0[a]);
+  ridges.sort((a, b) => rIn[b] - rIn[a]);
   for (const c of ridges) {
-    const r = d0[c];
+    const r = rIn[c];
     const i = c % cnx;
     const j = (c - i) / cnx;
     const x = minX + (i + 0.5) * s;
