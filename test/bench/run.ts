@@ -12,6 +12,7 @@ import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { npyFloat64 } from './npy-write.js';
 import { plateCsv, platePattern } from './plate.js';
+import { edgeCaseRows } from './edge-cases.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = resolve(here, '../../..'); // dist/test/bench → package root
@@ -111,6 +112,7 @@ try {
     console.error(`done checks: ${label}`);
   }
   rows.push('', ...checkRows);
+  rows.push('', ...edgeCaseRows(dir, out, timeCli, 3));
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }
