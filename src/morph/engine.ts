@@ -74,10 +74,21 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
     corners(toolRadius: number, depth: number): CornerSurvey {
       if (!(toolRadius > 0) || !Number.isFinite(toolRadius)) throw new RangeError(`corners: expected a tool radius > 0 mm, found ${toolRadius}`);
       if (!(depth >= 0)) throw new RangeError(`corners: expected a depth ≥ 0 mm, found ${depth}`);
-      const need = padFor(toolRadius, pixel);
       let st = base;
-      if (need > base.frame.pad) {
-        if (!wide || wide.frame.pad < need) wide = stage(polygons, domain, pixel, need);
+      if (padFor(toolRadius, pixel) > base.frame.pad) {
+        // The tool may come from open space as far as its radius past the domain. When that margin at this
+        // pixel would more than double the raster (or pass its limit), the survey runs on a coarser raster (its
+        // resolution, half a pixel, says so) rather than refusing: a tool large against the part needs no fine
+        // pixel, and the cost stays in proportion to the first raster.
+        const budget = Math.min(MAX_RASTER, 2 * base.frame.nx * base.frame.ny);
+        let p = pixel;
+        for (;;) {
+          const f = makeFrame(domain, p, padFor(toolRadius, p));
+          if (f.nx * f.ny <= budget) break;
+          p *= 1.1;
+        }
+        const need = padFor(toolRadius, p);
+        if (!wide || wide.frame.pixel !== p || wide.frame.pad < need) wide = stage(polygons, domain, p, need);
         st = wide;
       }
       return cornerSurvey(st.frame, st.set, st.field, st.phase, toolRadius, depth);
