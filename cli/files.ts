@@ -121,7 +121,7 @@ export function readGridInput(path: string, name: string, maxCells: number): Uin
     if (fd !== null) closeSync(fd);
   }
   const max = maxGridBytes(head, name, maxCells);
-  return readInput(path, name, { maxBytes: max, why: `${maxCells} samples at most (--max-cells)` });
+  return readInput(path, name, { maxBytes: max, why: `for --max-cells ${maxCells}` });
 }
 
 function canonical(path: string): string {

@@ -5,7 +5,7 @@
  * Oracle: each file's own single build (`rhoform build <file> --json`, in-process from the TypeScript
  * sources) — the summary row must repeat its report's numbers, and the broken file's row its error code.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -214,6 +214,36 @@ describe('rhoform batch: overwrite guard, out-dir layout, exit codes', () => {
   it('exit 1 when a check fails (or warns under --fail-on warn) and nothing is broken (exit 0 with a warning: the first run of the guard test)', () => {
     expect(rhoform(['batch', GOOD[2], '--out-dir', join(work, 'e1'), '--quiet', ...CHECKS]).code).toBe(1);
     expect(rhoform(['batch', GOOD[1], '--out-dir', join(work, 'e3'), '--quiet', '--fail-on', 'warn']).code).toBe(1);
+  });
+
+  it('a named pipe (FIFO) called x.npy is an error row, and the summary is written (it used to block forever)', () => {
+    const dir = join(work, 'fifo');
+    mkdirSync(dir, { recursive: true });
+    execFileSync('mkfifo', [join(dir, 'x.npy')]);
+    const r = spawnSync(process.execPath, [mainJs, 'batch', dir, GOOD[0], '--out-dir', join(work, 'fifo-out'), '--quiet'], {
+      cwd: root,
+      encoding: 'utf8',
+      timeout: 60_000,
+    });
+    expect(r.signal).toBeNull(); // not killed by the timeout
+    expect(r.status).toBe(2);
+    const summary = JSON.parse(readFileSync(join(work, 'fifo-out/batch-summary.json'), 'utf8')) as { files: Row[] };
+    const fifo = summary.files.find((row) => row.file.endsWith('x.npy'));
+    expect(fifo?.errorCode).toBe('E_INPUT_READ');
+    expect(fifo?.error).toMatch(/expected the input to be a regular file, found a named pipe \(FIFO\)$/);
+  });
+
+  it('SIGTERM during a batch removes its temp files and ends by that signal', async () => {
+    const out = join(work, 'term-out');
+    const child = spawn(process.execPath, [mainJs, 'batch', ...GOOD, '--out-dir', out, '--quiet', '--jobs', '1', '--force'], { cwd: root, stdio: 'ignore' });
+    // let the pool start, then stop the batch while it works
+    await new Promise((r) => setTimeout(r, 1500));
+    child.kill('SIGTERM');
+    const signal = await new Promise<NodeJS.Signals | null>((r) => child.on('exit', (_code, sig) => r(sig)));
+    const leftovers = existsSync(out) ? readdirSync(out, { recursive: true }).filter((f) => String(f).endsWith('.tmp')) : [];
+    expect(leftovers).toEqual([]);
+    // it finished before the signal, or the signal ended it
+    expect(signal === 'SIGTERM' || signal === null).toBe(true);
   });
 
   it.skipIf(!existsSync('/usr/bin/script'))('on a terminal the progress is one line redrawn with \\r', () => {
