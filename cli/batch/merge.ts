@@ -4,6 +4,7 @@
  * are recomputed, and a file that appears in two summaries is refused, naming both.
  */
 import { RhoformError } from '../../src/errors.js';
+import { jsonParseMessage, lineCol, scanJson } from '../../src/passive/json-scan.js';
 import { comparePaths } from './shard.js';
 import { makeSummary, ROW_STATUSES, type BatchSummary, type SummaryRow } from './summary.js';
 
@@ -17,36 +18,40 @@ function bad(name: string, what: string): RhoformError {
   return new RhoformError('E_SUMMARY_FORMAT', what, { file: name });
 }
 
-/** `file:line:col` of a JSON.parse failure, when its message gives a position. */
-function jsonWhere(text: string, err: Error): { line?: number; col?: number } {
-  const m = /position (\d+)/.exec(err.message);
-  if (!m) return {};
-  const pos = Number(m[1]);
-  const before = text.slice(0, pos);
-  const line = before.split('\n').length;
-  return { line, col: pos - before.lastIndexOf('\n') };
+/** `line:col` of a JSON.parse failure: from its message when it gives a position, else from our own scanner. */
+function jsonWhere(text: string, err: unknown): { line?: number; col?: number } {
+  const m = /position (\d+)/.exec(err instanceof Error ? err.message : '');
+  if (m) return lineCol(text, Number(m[1]));
+  const scan = scanJson(text);
+  return scan.ok ? {} : lineCol(text, scan.offset);
+}
+
+/** A value from the file as a message shows it: JSON, cut to 60 characters. */
+function brief(v: unknown): string {
+  const t = v === undefined ? 'nothing' : JSON.stringify(v);
+  return t.length > 60 ? `${t.slice(0, 60)}…` : t;
 }
 
 const NUMERIC: readonly (keyof SummaryRow)[] = ['level', 'achievedFraction', 'finalFraction', 'thinnestMember', 'smallestHole', 'findings'];
 
 function checkRow(name: string, k: number, r: unknown): SummaryRow {
   const at = `files[${k}]`;
-  if (r === null || typeof r !== 'object' || Array.isArray(r)) throw bad(name, `${at}: expected an object (a summary row), found ${JSON.stringify(r)}`);
+  if (r === null || typeof r !== 'object' || Array.isArray(r)) throw bad(name, `${at}: expected an object (a summary row), found ${brief(r)}`);
   const o = r as Record<string, unknown>;
-  if (typeof o.file !== 'string' || o.file === '') throw bad(name, `${at}.file: expected the input's path, found ${JSON.stringify(o.file)}`);
+  if (typeof o.file !== 'string' || o.file === '') throw bad(name, `${at}.file: expected the input's path, found ${brief(o.file)}`);
   if (!ROW_STATUSES.includes(o.status as SummaryRow['status'])) {
-    throw bad(name, `${at}.status: expected one of ${ROW_STATUSES.join(', ')}, found ${JSON.stringify(o.status)}`);
+    throw bad(name, `${at}.status: expected one of ${ROW_STATUSES.join(', ')}, found ${brief(o.status)}`);
   }
-  if (!(o.exitCode === 0 || o.exitCode === 1 || o.exitCode === 2)) throw bad(name, `${at}.exitCode: expected 0, 1 or 2, found ${JSON.stringify(o.exitCode)}`);
+  if (!(o.exitCode === 0 || o.exitCode === 1 || o.exitCode === 2)) throw bad(name, `${at}.exitCode: expected 0, 1 or 2, found ${brief(o.exitCode)}`);
   if (o.status === 'error' && o.exitCode !== 2) throw bad(name, `${at}.exitCode: expected 2 for a file with status error, found ${o.exitCode}`);
-  if (!(typeof o.timeMs === 'number' && o.timeMs >= 0)) throw bad(name, `${at}.timeMs: expected a time in ms ≥ 0, found ${JSON.stringify(o.timeMs)}`);
+  if (!(typeof o.timeMs === 'number' && o.timeMs >= 0)) throw bad(name, `${at}.timeMs: expected a time in ms ≥ 0, found ${brief(o.timeMs)}`);
   for (const c of NUMERIC) {
     const v = o[c];
-    if (!(v === null || v === undefined || (typeof v === 'number' && Number.isFinite(v)))) throw bad(name, `${at}.${c}: expected a number or null, found ${JSON.stringify(v)}`);
+    if (!(v === null || v === undefined || (typeof v === 'number' && Number.isFinite(v)))) throw bad(name, `${at}.${c}: expected a number or null, found ${brief(v)}`);
   }
   for (const c of ['errorCode', 'error'] as const) {
     const v = o[c];
-    if (!(v === null || v === undefined || typeof v === 'string')) throw bad(name, `${at}.${c}: expected text or null, found ${JSON.stringify(v)}`);
+    if (!(v === null || v === undefined || typeof v === 'string')) throw bad(name, `${at}.${c}: expected text or null, found ${brief(v)}`);
   }
   const num = (v: unknown) => (typeof v === 'number' ? v : null);
   const str = (v: unknown) => (typeof v === 'string' ? v : null);
@@ -72,20 +77,20 @@ export function parseSummary(name: string, text: string): BatchSummary {
   try {
     data = JSON.parse(text);
   } catch (e) {
-    throw new RhoformError('E_SUMMARY_FORMAT', `expected a batch summary (JSON), found text that is not JSON (${(e as Error).message})`, {
+    throw new RhoformError('E_SUMMARY_FORMAT', `expected a batch summary (JSON), found text that is not JSON (${jsonParseMessage(e)})`, {
       file: name,
-      ...jsonWhere(text, e as Error),
+      ...jsonWhere(text, e),
     });
   }
-  if (data === null || typeof data !== 'object' || Array.isArray(data)) throw bad(name, `expected a batch summary (a JSON object), found ${Array.isArray(data) ? 'an array' : JSON.stringify(data)}`);
+  if (data === null || typeof data !== 'object' || Array.isArray(data)) throw bad(name, `expected a batch summary (a JSON object), found ${Array.isArray(data) ? 'an array' : brief(data)}`);
   const o = data as Record<string, unknown>;
-  if (o.schemaVersion !== 1) throw bad(name, `schemaVersion: expected 1, found ${JSON.stringify(o.schemaVersion)}`);
-  if (!Array.isArray(o.files)) throw bad(name, `files: expected an array of rows, found ${o.files === undefined ? 'nothing' : JSON.stringify(o.files).slice(0, 40)}`);
+  if (o.schemaVersion !== 1) throw bad(name, `schemaVersion: expected 1, found ${brief(o.schemaVersion)}`);
+  if (!Array.isArray(o.files)) throw bad(name, `files: expected an array of rows, found ${brief(o.files)}`);
   const settings = o.settings;
-  if (settings === null || typeof settings !== 'object' || Array.isArray(settings)) throw bad(name, `settings: expected an object, found ${JSON.stringify(settings)}`);
+  if (settings === null || typeof settings !== 'object' || Array.isArray(settings)) throw bad(name, `settings: expected an object, found ${brief(settings)}`);
   const shard = o.shard as { k?: unknown; n?: unknown } | null | undefined;
   const shardOk = shard === null || shard === undefined || (Number.isInteger(shard.k) && Number.isInteger(shard.n));
-  if (!shardOk) throw bad(name, `shard: expected {k, n} or null, found ${JSON.stringify(shard)}`);
+  if (!shardOk) throw bad(name, `shard: expected {k, n} or null, found ${brief(shard)}`);
   const tool = o.tool as BatchSummary['tool'];
   const files = o.files.map((r, k) => checkRow(name, k, r));
   return makeSummary(

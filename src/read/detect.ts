@@ -7,6 +7,7 @@ import type { InputFormat } from '../types.js';
 import { readCsv } from './csv.js';
 import { readNpy } from './npy.js';
 import type { ReadOptions, ReadResult } from './types.js';
+import { firstInvalidUtf8 } from './utf8.js';
 
 const NPY_MAGIC = [0x93, 0x4e, 0x55, 0x4d, 0x50, 0x59];
 
@@ -37,14 +38,4 @@ export function readGrid(bytes: Uint8Array, name: string, options: ReadOptions):
 }
 
 /** Byte offset of the first byte that is not part of a well-formed UTF-8 sequence (-1 when all are). */
-export function firstInvalidUtf8(bytes: Uint8Array): number {
-  let k = 0;
-  while (k < bytes.length) {
-    const b = bytes[k];
-    const len = b < 0x80 ? 1 : b >= 0xc2 && b <= 0xdf ? 2 : b >= 0xe0 && b <= 0xef ? 3 : b >= 0xf0 && b <= 0xf4 ? 4 : 0;
-    if (len === 0 || k + len > bytes.length) return k;
-    for (let t = 1; t < len; t++) if ((bytes[k + t] & 0xc0) !== 0x80) return k;
-    k += len;
-  }
-  return -1;
-}
+export { firstInvalidUtf8 } from './utf8.js';

@@ -297,7 +297,7 @@ describe('merge', () => {
     const dir = tmp();
     const cases: [string, string, RegExp][] = [
       ['notjson.json', '{"schemaVersion": 1,\n  "files": [1 2]}', /notjson\.json:2:15: expected a batch summary \(JSON\), found text that is not JSON/],
-      ['notjson2.json', 'file,status\r\n', /notjson2\.json: expected a batch summary \(JSON\), found text that is not JSON/],
+      ['notjson2.json', 'file,status\r\n', /notjson2\.json:1:1: expected a batch summary \(JSON\), found text that is not JSON/],
       ['v2.json', '{"schemaVersion": 2, "files": []}', /v2\.json: schemaVersion: expected 1, found 2/],
       ['nofiles.json', '{"schemaVersion": 1, "settings": {}}', /nofiles\.json: files: expected an array of rows, found nothing/],
       ['badrow.json', shardText(1, 1, [row('a.npy', 'pass', 0)]).replace('"pass"', '"great"'), /badrow\.json: files\[0\]\.status: expected one of pass, warn, fail, error, found "great"/],
