@@ -24,6 +24,7 @@
  * Never fills a passive-void region, and does not count its area (addMaterial subtracts them).
  */
 import { ringArea } from '../geom/area.js';
+import { ringBounds } from '../geom/contains.js';
 import { booleanOp, ringsOf } from '../geom/clipper.js';
 import { interiorPoint } from '../geom/interior.js';
 import type { Morphology } from '../morph/types.js';
@@ -32,6 +33,56 @@ import { addMaterial, arcToleranceOf, closing, holdsPoint, marginOf, nearPiece, 
 import { discHulls } from './discs.js';
 import { thinOut } from './thicken.js';
 import type { RepairInput, StepResult } from './types.js';
+
+/**
+ * `(x, y) → whether some piece lies within d mm` (nearPiece), through a bucket grid of the pieces' bounding
+ * boxes grown by d, so that n samples against k pieces cost about n + k box tests rather than n·k ring walks
+ * (a plate with thousands of filled holes).
+ */
+function nearIndex(pieces: readonly Polygon[], d: number): (x: number, y: number) => boolean {
+  if (pieces.length === 0) return () => false;
+  const boxes = pieces.map((p) => {
+    const b = ringBounds(p.outer);
+    return [b[0] - d, b[1] - d, b[2] + d, b[3] + d] as const;
+  });
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity, sum = 0;
+  for (const b of boxes) {
+    minX = Math.min(minX, b[0]); minY = Math.min(minY, b[1]); maxX = Math.max(maxX, b[2]); maxY = Math.max(maxY, b[3]);
+    sum += Math.max(b[2] - b[0], b[3] - b[1]);
+  }
+  // cells about the size of an average box: each box lands in a few cells, each cell holds a few boxes
+  const cell = Math.max(sum / boxes.length, ((maxX - minX) + (maxY - minY)) / 4096, 1e-9);
+  const cols = Math.max(1, Math.ceil((maxX - minX) / cell));
+  const rows = Math.max(1, Math.ceil((maxY - minY) / cell));
+  const buckets = new Map<number, number[]>();
+  const ci = (x: number): number => Math.min(cols - 1, Math.max(0, Math.floor((x - minX) / cell)));
+  const cj = (y: number): number => Math.min(rows - 1, Math.max(0, Math.floor((y - minY) / cell)));
+  const big: number[] = []; // boxes over many cells are tested always (few: cells fit the average box)
+  boxes.forEach((b, k) => {
+    if ((cj(b[3]) - cj(b[1]) + 1) * (ci(b[2]) - ci(b[0]) + 1) > 64) {
+      big.push(k);
+      return;
+    }
+    for (let j = cj(b[1]); j <= cj(b[3]); j++) {
+      for (let i = ci(b[0]); i <= ci(b[2]); i++) {
+        const key = j * cols + i;
+        const list = buckets.get(key);
+        if (list) list.push(k);
+        else buckets.set(key, [k]);
+      }
+    }
+  });
+  const test = (k: number, x: number, y: number): boolean => {
+    const b = boxes[k];
+    return x >= b[0] && x <= b[2] && y >= b[1] && y <= b[3] && nearPiece(pieces[k], x, y, d);
+  };
+  return (x, y) => {
+    if (x < minX || x > maxX || y < minY || y > maxY) return false;
+    for (const k of buckets.get(cj(y) * cols + ci(x)) ?? []) if (test(k, x, y)) return true;
+    for (const k of big) if (test(k, x, y)) return true;
+    return false;
+  };
+}
 
 /** Fills the narrow and the small holes of `set`; `morph` is the morphology of `set`. */
 export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
@@ -67,7 +118,8 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
       // ρ of a filled part is not taken: the fill changed the walls there (the samples of a wedge between its
       // new fillet and the disc that made it are no longer thin), and the next round measures it afresh.
       const reach = rho + input.pixel;
-      const left = order.filter((k) => !chosen.some((p) => nearPiece(p, pts.x[k], pts.y[k], reach)));
+      const near = nearIndex(chosen, reach);
+      const left = order.filter((k) => !near(pts.x[k], pts.y[k]));
       if (left.length > 0) {
         const delta = marginOf(input, L / 2);
         const rings = discHulls(
