@@ -4,7 +4,7 @@
  * the wording shared by their messages (`file:line:col: key.path: expected …, found …`).
  */
 import { RhoformError, show, type ErrorCode, type Where } from '../errors.js';
-import { lineCol, scanJson, type JsonSpot } from '../passive/json-scan.js';
+import { MAX_JSON_DEPTH, jsonParseMessage, lineCol, scanJson, type JsonSpot } from '../passive/json-scan.js';
 
 /** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
 export function describe(v: unknown): string {
@@ -17,11 +17,7 @@ export function describe(v: unknown): string {
 
 /** The text of the message of a JSON.parse error, without its position and without the echo of the input. */
 export function jsonMessage(e: unknown): string {
-  const m = e instanceof Error ? e.message : String(e);
-  return m
-    .replace(/,\s*"[\s\S]*" is not valid JSON$/, '')
-    .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
-    .replace(/\s*\(line \d+ column \d+\)/, '');
+  return jsonParseMessage(e);
 }
 
 /** The offset of a JSON.parse error, if its message gives one (Node 20: "at position N"; later: "line L column C"). */
@@ -33,6 +29,14 @@ export function jsonOffset(text: string, e: unknown): number | { line: number; c
   if (lc) return { line: Number(lc[1]), col: Number(lc[2]) };
   if (/end of (JSON )?input/i.test(m)) return text.length;
   return null;
+}
+
+/** The refusal of arrays or objects nested deeper than the position scanner follows (MAX_JSON_DEPTH). */
+function tooDeep(src: string, file: string, offset: number, code: ErrorCode): RhoformError {
+  return new RhoformError(code, `expected at most ${MAX_JSON_DEPTH} levels of nested arrays and objects, found deeper nesting`, {
+    file,
+    ...lineCol(src, offset),
+  });
 }
 
 export interface StrictJson {
@@ -55,12 +59,16 @@ export function parseStrictJson(text: string, file: string, jsonCode: ErrorCode,
     let at = jsonOffset(src, e);
     if (at === null) {
       const scan = scanJson(src);
-      if (!scan.ok) at = scan.offset;
+      if (!scan.ok) {
+        if (scan.tooDeep) throw tooDeep(src, file, scan.offset, formatCode);
+        at = scan.offset;
+      }
     }
     const where: Where = at === null ? { file } : typeof at === 'number' ? { file, ...lineCol(src, at) } : { file, ...at };
     throw new RhoformError(jsonCode, `expected JSON, found a syntax error (${jsonMessage(e)})`, where);
   }
   const scan = scanJson(src);
+  if (!scan.ok && scan.tooDeep) throw tooDeep(src, file, scan.offset, formatCode);
   const spots = scan.ok ? scan.spots : new Map<string, JsonSpot>();
   if (scan.ok && scan.duplicate !== null) {
     const { path, key } = scan.duplicate;

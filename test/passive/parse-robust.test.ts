@@ -69,3 +69,16 @@ describe('passive file: deep nesting, messages, tiny shapes, bytes', () => {
     expect(e2.where).toEqual({ file: 'p.json', byteOffset: 1 });
   });
 });
+
+describe('the loads file shares the strict JSON reader, and its fixes', () => {
+  it('deep nesting is E_LOADS_FORMAT at the first level too deep; Node 20 echoes stay out', async () => {
+    const { parseLoads } = await import('../../src/loads/parse.js');
+    const deep = errorOf(() => parseLoads('['.repeat(5000) + ']'.repeat(5000), 'l.json'));
+    expect(deep.code).toBe('E_LOADS_FORMAT');
+    expect(deep.where).toEqual({ file: 'l.json', line: 1, col: 65 });
+    const syntax = errorOf(() => parseLoads('{\n"rhoformLoads": tru\n}', 'l.json'));
+    expect(syntax.code).toBe('E_LOADS_JSON');
+    expect(syntax.message).not.toMatch(CONTROL);
+    expect(syntax.message).not.toContain('is not valid JSON');
+  });
+});
