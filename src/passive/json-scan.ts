@@ -39,7 +39,7 @@ class ScanError {
 export function jsonParseMessage(e: unknown): string {
   const m = e instanceof Error ? e.message : String(e);
   const cleaned = m
-    .replace(/(,\s*)?"[\s\S]*" is not valid JSON$/, '')
+    .replace(/(,\s*)?(\.\.\.)?"[\s\S]*"(\.\.\.)? is not valid JSON$/, '')
     .replace(/\s*in JSON at position \d+(\s*\(line \d+ column \d+\))?/, '')
     .replace(/\s*\(line \d+ column \d+\)/, '')
     .trim();
