@@ -104,6 +104,16 @@ const OPTIONS: Record<string, OptionSpec> = {
   'non-finite': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.nonFinite = oneOf('--non-finite', v, ['error', 'void'] as const)) },
   clip: { value: false, commands: [...GRID_CMDS], apply: (_v, o) => (o.settings.clip = true) },
   'max-cells': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.maxCells = num('--max-cells', v, (x) => Number.isInteger(x) && x >= 1, 'a whole number ≥ 1')) },
+  field: {
+    value: true,
+    commands: [...GRID_CMDS],
+    apply: (v, o) => {
+      if (v === '') throw new UsageError('--field: expected the name of a variable or array in the file, found ""');
+      o.settings.field = v;
+    },
+  },
+  'image-solid': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.imageSolid = oneOf('--image-solid', v, ['dark', 'light'] as const)) },
+  'image-channel': { value: true, commands: [...GRID_CMDS], apply: (v, o) => (o.settings.imageChannel = oneOf('--image-channel', v, ['luminance', 'r', 'g', 'b'] as const)) },
   // geometry
   'volume-fraction': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.volumeFraction = num('--volume-fraction', v, (x) => x >= 0 && x <= 1, 'a fraction from 0 to 1')) },
   'volume-tolerance': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.volumeTolerance = num('--volume-tolerance', v, (x) => x > 0 && x < 1, 'a relative tolerance > 0 and < 1')) },
@@ -256,7 +266,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     }
   } else if (out.files.length !== 1) {
     throw new UsageError(
-      out.files.length === 0 ? `${out.command}: expected a grid file (CSV or NPY), found none` : `${out.command}: expected one grid file, found ${out.files.length}`,
+      out.files.length === 0 ? `${out.command}: expected a grid file (CSV, NPY, MAT, VTK, VTI or PNG), found none` : `${out.command}: expected one grid file, found ${out.files.length}`,
     );
   }
   return out;

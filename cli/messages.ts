@@ -13,7 +13,7 @@ Usage:
   rhoform --help | --version
 
 Input:
-  --cell-size <mm>|<hx>,<hy>   cell size in mm (default 1, and the report says so)
+  --cell-size <mm>|<hx>,<hy>   cell size in mm (default 1, or a VTK file's spacing; the report says which)
   --row-order top-down|bottom-up   file row 1 is the top of the part (default top-down)
   --values cells|nodes         samples at cell centres (default) or on cell corners
   --layout grid|long|auto      CSV: a grid of values, or columns x, y, value (default auto)
@@ -22,6 +22,11 @@ Input:
   --non-finite error|void      NaN/Inf cells: refuse (default) or treat as void
   --clip                       clip values beyond the range (an overshoot ≤ 0.05 is always clipped)
   --max-cells <n>              refuse larger grids before reading them (default 50000000)
+  --field <name>               MAT/VTK/VTI: the variable or array to read (needed when there are several)
+  --image-solid dark|light     PNG: which end of the grey scale is solid (default dark)
+  --image-channel luminance|r|g|b   PNG: the channel of a colour image (luminance = Rec. 709 luma)
+  Grids are CSV, NPY, MAT (level 5, -v7), VTK (legacy STRUCTURED_POINTS), VTI (XML ImageData) or PNG,
+  recognised by content (docs/formats.md). A VTK file's spacing is its cell size unless --cell-size is given.
 Geometry:
   --volume-fraction <0..1>     target solid fraction (default: the mean density)
   --volume-tolerance <rel>     relative tolerance on the smoothed area (default 0.001)

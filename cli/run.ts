@@ -83,7 +83,7 @@ function runInspect(args: ParsedArgs, io: Io): number {
   const maxCount = Math.max(1, ...r.histogram.counts);
   const lines = [
     `file        ${i.file} (${i.format.toUpperCase()})`,
-    `size        ${i.nx} × ${i.ny} = ${i.nx * i.ny} values, cell ${hx === hy ? fmt(hx) : `${fmt(hx)} × ${fmt(hy)}`} mm${settings.cellSizeDefaulted && r.layout !== 'long' ? ' (default)' : r.layout === 'long' ? ' (from the x, y columns)' : ''}`,
+    `size        ${i.nx} × ${i.ny} = ${i.nx * i.ny} values, cell ${hx === hy ? fmt(hx) : `${fmt(hx)} × ${fmt(hy)}`} mm${r.cellSizeSource === 'file' ? ' (from the file)' : settings.cellSizeDefaulted && r.layout !== 'long' ? ' (default)' : r.layout === 'long' ? ' (from the x, y columns)' : ''}`,
     `range       ${fmt(i.min, 6)} … ${fmt(i.max, 6)}`,
     `mean        ${fmt(i.mean, 6)} (the default volume fraction)`,
     `grey level  M_nd ${fmt(i.greyLevel, 4)} % (Sigmund 2007); grey cells (0.1 < ρ < 0.9) ${(100 * r.greyShare).toFixed(1)} %`,

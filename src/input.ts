@@ -26,6 +26,10 @@ function readOptions(s: Settings): ReadOptions {
     layout: s.layout,
     decimalComma: s.decimalComma,
     maxCells: s.maxCells,
+    field: s.field,
+    cellSizeGiven: !s.cellSizeDefaulted,
+    imageSolid: s.imageSolid,
+    imageChannel: s.imageChannel,
   };
 }
 
@@ -50,6 +54,8 @@ export interface InspectResult {
   readonly greyShare: number;
   /** Layout read ('long' infers the cell size from the coordinates). */
   readonly layout: 'grid' | 'long';
+  /** Where the cell size came from: the options (or the default), or the file (VTK spacing). */
+  readonly cellSizeSource: 'options' | 'file';
   readonly warnings: string[];
 }
 
@@ -112,6 +118,7 @@ export function inspect(input: InputFile, s: Settings): InspectResult {
     histogram: histogram(mapped, 10, 0, 1),
     greyShare: d.greyShare,
     layout: read.layout,
+    cellSizeSource: read.cellSizeSource ?? 'options',
     warnings: [...read.warnings],
   };
 }

@@ -32,6 +32,12 @@ export interface Settings {
   nonFinite: 'error' | 'void';
   clip: boolean;
   maxCells: number;
+  /** MAT/VTK/VTI: the variable or array to read (`--field`); null = the only candidate in the file. */
+  field: string | null;
+  /** PNG: which end of the grey scale is solid (`--image-solid`). */
+  imageSolid: 'dark' | 'light';
+  /** PNG: the channel of a colour image to read (`--image-channel`); null = refuse colour images. */
+  imageChannel: 'luminance' | 'r' | 'g' | 'b' | null;
   // geometry
   /** Target solid fraction (0..1); null = the mean of the prepared densities. */
   volumeFraction: number | null;
@@ -91,6 +97,9 @@ export const DEFAULT_SETTINGS: Settings = {
   nonFinite: 'error',
   clip: false,
   maxCells: 50_000_000,
+  field: null,
+  imageSolid: 'dark',
+  imageChannel: null,
   volumeFraction: null,
   volumeTolerance: 0.001,
   level: null,

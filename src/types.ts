@@ -44,7 +44,7 @@ import type { Settings } from './settings.js';
 export type Domain = readonly [minX: number, minY: number, maxX: number, maxY: number];
 
 /** Where a grid came from, as far as the report is concerned. */
-export type InputFormat = 'csv' | 'npy';
+export type InputFormat = 'csv' | 'npy' | 'mat' | 'vtk' | 'vti' | 'png';
 
 /** One repair of `--repair` (docs/repair.md): what it changed and where. */
 export interface RepairRecord {
@@ -100,6 +100,8 @@ export interface ReportSettings extends Omit<Settings, 'tolerance' | 'layout'> {
   tolerance: number;
   /** The layout read ('auto' resolved). */
   layout: 'grid' | 'long';
+  /** Where the cell size came from (additive): `--cell-size`, the 1 mm default, the file (VTK spacing), long-form coordinates. */
+  cellSizeSource?: 'option' | 'default' | 'file' | 'coordinates';
 }
 
 /** The threshold stage's choice (report `threshold`; docs/threshold.md). Fractions of the domain area. */

@@ -28,6 +28,8 @@ export interface PreparedField {
   readonly input: Report['input'];
   /** Layout read ('long' infers the cell size from the coordinates). */
   readonly layout: 'grid' | 'long';
+  /** Where the cell size came from: the options, or the file itself (a VTK file's spacing). */
+  readonly cellSizeSource: 'options' | 'file';
   /** The grid the threshold sees: prepared, unfolded (`--mirror`), passive samples set. Values 0..1. */
   readonly grid: DensityGrid;
   /** Maps a sample of `grid` to its place in the input file (through the unfolding). */
@@ -98,6 +100,7 @@ export function prepareStage(file: InputFile, read: ReadResult, s: Settings, reg
   return {
     input: desc.input,
     layout: read.layout,
+    cellSizeSource: read.cellSizeSource ?? 'options',
     grid,
     locate,
     planes,

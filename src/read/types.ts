@@ -19,6 +19,14 @@ export interface ReadOptions {
   readonly decimalComma: boolean;
   /** Refuse a declared or counted size above this many samples, before allocating. */
   readonly maxCells: number;
+  /** MAT, VTK, VTI: the variable or array to read (`--field`); absent or null = the only candidate. */
+  readonly field?: string | null;
+  /** False when the cell size is the default (no `--cell-size`): then a VTK file's own spacing is used. */
+  readonly cellSizeGiven?: boolean;
+  /** PNG: which end of the grey scale is solid (`--image-solid`, default 'dark': black = 1). */
+  readonly imageSolid?: 'dark' | 'light';
+  /** PNG: the channel of a colour image to read (`--image-channel`); colour images are refused without it. */
+  readonly imageChannel?: 'luminance' | 'r' | 'g' | 'b' | null;
 }
 
 export const DEFAULT_READ_OPTIONS: ReadOptions = {
@@ -48,4 +56,6 @@ export interface ReadResult {
   readonly locate: (i: number, j: number) => SamplePosition;
   /** Non-fatal remarks (e.g. a 3-D array with a unit axis was squeezed). */
   readonly warnings: readonly string[];
+  /** Where the grid's cell size came from: the options (default), or the file itself (VTK spacing). */
+  readonly cellSizeSource?: 'options' | 'file';
 }

@@ -39,7 +39,9 @@ export function reportSettings(s: Settings, field: PreparedField, plan: CheckPla
   return {
     ...s,
     cellSize: [hx, hy],
-    cellSizeDefaulted: s.cellSizeDefaulted && field.layout !== 'long',
+    // A VTK file's spacing is its cell size unless --cell-size was given.
+    cellSizeDefaulted: s.cellSizeDefaulted && field.layout !== 'long' && field.cellSizeSource !== 'file',
+    cellSizeSource: field.layout === 'long' ? 'coordinates' : field.cellSizeSource === 'file' ? 'file' : s.cellSizeDefaulted ? 'default' : 'option',
     layout: field.layout,
     tolerance: field.tolerance,
     minMember: plan.limits.minMember,

@@ -1,0 +1,88 @@
+/**
+ * Numbers stored in a binary file → float64, for the MAT, VTK and VTI readers: fixed-size integers and IEEE
+ * floats of either byte order. 64-bit integers are rounded to the nearest double (exact below 2^53), as
+ * numpy's `astype(float64)` rounds them.
+ */
+
+/** A stored number type: i/u = signed/unsigned integer, f = IEEE float; the digit is the size in bytes. */
+export type NumKind = 'i1' | 'u1' | 'i2' | 'u2' | 'i4' | 'u4' | 'i8' | 'u8' | 'f4' | 'f8';
+
+export const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
+/** Size in bytes of one number of kind `kind`. */
+export function kindSize(kind: NumKind): number {
+  return Number(kind.slice(1));
+}
+
+type View = ArrayLike<number> | BigInt64Array | BigUint64Array;
+
+function viewOf(buf: ArrayBuffer, offset: number, count: number, kind: NumKind): View {
+  switch (kind) {
+    case 'i1': return new Int8Array(buf, offset, count);
+    case 'u1': return new Uint8Array(buf, offset, count);
+    case 'i2': return new Int16Array(buf, offset, count);
+    case 'u2': return new Uint16Array(buf, offset, count);
+    case 'i4': return new Int32Array(buf, offset, count);
+    case 'u4': return new Uint32Array(buf, offset, count);
+    case 'i8': return new BigInt64Array(buf, offset, count);
+    case 'u8': return new BigUint64Array(buf, offset, count);
+    case 'f4': return new Float32Array(buf, offset, count);
+    case 'f8': return new Float64Array(buf, offset, count);
+  }
+}
+
+/**
+ * `count` numbers of `kind` starting at `bytes[start]`, as an indexable array of JavaScript numbers. The caller
+ * has checked that `start + count · size ≤ bytes.length`. Aligned host-order data is viewed in place; other data
+ * is copied (and byte-swapped) once.
+ */
+export function numbersAt(bytes: Uint8Array, start: number, count: number, kind: NumKind, littleEndian: boolean): ArrayLike<number> {
+  const size = kindSize(kind);
+  const abs = bytes.byteOffset + start;
+  let view: View;
+  if (littleEndian === HOST_LITTLE_ENDIAN && abs % size === 0) {
+    view = viewOf(bytes.buffer as ArrayBuffer, abs, count, kind);
+  } else {
+    const copy = bytes.slice(start, start + count * size);
+    if (littleEndian !== HOST_LITTLE_ENDIAN && size > 1) swapBytes(copy, size);
+    view = viewOf(copy.buffer, 0, count, kind);
+  }
+  if (kind === 'i8' || kind === 'u8') {
+    const big = view as BigInt64Array | BigUint64Array;
+    const out = new Float64Array(count);
+    for (let k = 0; k < count; k++) out[k] = Number(big[k]);
+    return out;
+  }
+  return view as ArrayLike<number>;
+}
+
+/** Reverses the bytes of every `size`-byte word of `b` in place. */
+export function swapBytes(b: Uint8Array, size: number): void {
+  for (let k = 0; k + size <= b.length; k += size) {
+    for (let a = k, z = k + size - 1; a < z; a++, z--) {
+      const t = b[a];
+      b[a] = b[z];
+      b[z] = t;
+    }
+  }
+}
+
+/**
+ * Grid values (values[j·nx + i], j counting up from the bottom row) from numbers stored row by row
+ * (`rowMajor`: element (r, c) at r·cols + c) or column by column (element (r, c) at c·rows + r).
+ * `flip`: stored row 0 is the top grid row (j = rows − 1 − r); otherwise it is the bottom row (j = r).
+ */
+export function toGrid(src: ArrayLike<number>, rows: number, cols: number, rowMajor: boolean, flip: boolean): Float64Array {
+  const out = new Float64Array(rows * cols);
+  for (let r = 0; r < rows; r++) {
+    const j = flip ? rows - 1 - r : r;
+    const base = j * cols;
+    if (rowMajor) {
+      const s = r * cols;
+      for (let c = 0; c < cols; c++) out[base + c] = src[s + c];
+    } else {
+      for (let c = 0, s = r; c < cols; c++, s += rows) out[base + c] = src[s];
+    }
+  }
+  return out;
+}
