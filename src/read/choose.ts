@@ -30,7 +30,7 @@ function list(cands: readonly Candidate[]): string {
 }
 
 /**
- * The candidate to read. `what` names the kind of array in messages ("a 2-D real numeric matrix").
+ * The candidate to read. `what` names the kind of array in messages, without an article ("real numeric 2-D matrix").
  * @throws RhoformError with codes.field or codes.refused.
  */
 export function chooseCandidate(
@@ -42,12 +42,12 @@ export function chooseCandidate(
 ): Candidate {
   if (field !== null && field !== undefined) {
     const hit = cands.find((c) => c.name === field);
-    if (!hit) throw new RhoformError(codes.field, `expected ${what} named ${JSON.stringify(field)} (--field), found ${list(cands)}`, where);
-    if (hit.refused) throw new RhoformError(codes.refused, `expected ${what}, found ${JSON.stringify(hit.name)}: ${hit.label}, which is refused: ${hit.refused}`, hit.where);
+    if (!hit) throw new RhoformError(codes.field, `expected a ${what} named ${JSON.stringify(field)} (--field), found ${list(cands)}`, where);
+    if (hit.refused) throw new RhoformError(codes.refused, `expected a ${what}, found ${JSON.stringify(hit.name)}: ${hit.label}, which is refused: ${hit.refused}`, hit.where);
     return hit;
   }
   const fit = cands.filter((c) => c.refused === null && c.automatic);
   if (fit.length === 1) return fit[0];
-  if (fit.length === 0) throw new RhoformError(codes.field, `expected ${what}, found ${list(cands)}; name one with --field if it can be read`, where);
+  if (fit.length === 0) throw new RhoformError(codes.field, `expected a ${what}, found ${list(cands)}; name one with --field if it can be read`, where);
   throw new RhoformError(codes.field, `expected one ${what}, found ${fit.length}: ${list(fit)}; choose one with --field <name>`, where);
 }

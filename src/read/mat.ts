@@ -56,7 +56,7 @@ export function readMat(bytes: Uint8Array, options: ReadOptions): ReadResult {
   const warnings = layoutWarning(options, 'MAT-file matrix');
   const vars = listVariables(bytes, le, warnings);
   const cands = vars.map(candidateOf);
-  const chosen = chooseCandidate(cands, options.field, 'a real numeric 2-D matrix', { field: 'E_MAT_FIELD', refused: 'E_MAT_CLASS' }, { byteOffset: 128 });
+  const chosen = chooseCandidate(cands, options.field, 'real numeric 2-D matrix', { field: 'E_MAT_FIELD', refused: 'E_MAT_CLASS' }, { byteOffset: 128 });
   const v = vars[cands.indexOf(chosen)];
   const { rows, cols } = matrixShape(v, warnings);
   const count = rows * cols;

@@ -102,7 +102,7 @@ export function readVti(bytes: Uint8Array, options: ReadOptions): ReadResult {
     }
   }
   const list = [...groups.values()];
-  const chosen = chooseCandidate(list.map((g) => g.cand), options.field, 'a one-component DataArray', { field: 'E_VTI_FIELD', refused: 'E_VTI_TYPE' }, where(image.start));
+  const chosen = chooseCandidate(list.map((g) => g.cand), options.field, 'one-component DataArray', { field: 'E_VTI_FIELD', refused: 'E_VTI_TYPE' }, where(image.start));
   const group = list.find((g) => g.cand === chosen) as (typeof list)[number];
   const samples = sampleDims(pointDims, group.placement);
   const geo = imageGeometry(samples, spacing, origin, options, 'E_VTI_SHAPE', chosen.where, warnings);

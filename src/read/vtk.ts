@@ -208,7 +208,7 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
   }
 
   const cands = [...arrays.map((a) => a.cand), ...others];
-  const chosen = chooseCandidate(cands, options.field, 'a one-component scalar array', { field: 'E_VTK_FIELD', refused: 'E_VTK_TYPE' }, where(0));
+  const chosen = chooseCandidate(cands, options.field, 'one-component scalar array', { field: 'E_VTK_FIELD', refused: 'E_VTK_TYPE' }, where(0));
   const arr = arrays.find((a) => a.cand === chosen) as VtkArray;
   const geo = imageGeometry(sampleDims(dims, arr.placement), spacing, origin, options, 'E_VTK_SHAPE', chosen.where, warnings);
   if (arr.count === 0) throw new RhoformError('E_GRID_EMPTY', `expected at least one sample, found the empty array ${JSON.stringify(chosen.name)}`, chosen.where);
