@@ -43,7 +43,9 @@ export function numbersAt(bytes: Uint8Array, start: number, count: number, kind:
   if (littleEndian === HOST_LITTLE_ENDIAN && abs % size === 0) {
     view = viewOf(bytes.buffer as ArrayBuffer, abs, count, kind);
   } else {
-    const copy = bytes.slice(start, start + count * size);
+    // a fresh copy (Buffer.prototype.slice would share memory with a pooled buffer)
+    const copy = new Uint8Array(count * size);
+    copy.set(bytes.subarray(start, start + count * size));
     if (littleEndian !== HOST_LITTLE_ENDIAN && size > 1) swapBytes(copy, size);
     view = viewOf(copy.buffer, 0, count, kind);
   }
