@@ -145,6 +145,9 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
         n = count(ln, 1, 'the number of values');
         const expect = sampleDims(dims, section).reduce((a, b) => a * b, 1);
         if (n !== expect) throw new RhoformError('E_VTK_SHAPE', `expected ${kw} ${expect} for DIMENSIONS ${dims.join(' ')}, found ${kw} ${n}`, where(ln.start));
+        if (!(n <= options.maxCells)) {
+          throw new RhoformError('E_GRID_SIZE', `expected at most ${options.maxCells} samples (maxCells, --max-cells), found ${kw} ${n} (${sampleDims(dims, section).join('×')})`, where(ln.start));
+        }
         break;
       }
       case 'SCALARS': {
