@@ -33,48 +33,48 @@ function viewOf(buf: ArrayBuffer, offset: number, count: number, kind: NumKind):
 
 /**
  * `count` numbers of `kind` starting at `bytes[start]`, as an indexable array of JavaScript numbers. The caller
- * has checked that `start + count · size ≤ bytes.length`. Aligned host-order data is viewed in place; other data
- * is copied (and byte-swapped) once.
+ * has checked that `start + count · size ≤ bytes.length`. Aligned host-order data are viewed in place (the result
+ * shares memory with `bytes`); other data are copied once to fresh aligned memory (and byte-swapped); 64-bit
+ * integers are converted into a new Float64Array.
  */
 export function numbersAt(bytes: Uint8Array, start: number, count: number, kind: NumKind, littleEndian: boolean): ArrayLike<number> {
   const size = kindSize(kind);
   const abs = bytes.byteOffset + start;
-  let view: View;
-  if (littleEndian === HOST_LITTLE_ENDIAN && abs % size === 0) {
-    view = viewOf(bytes.buffer as ArrayBuffer, abs, count, kind);
-  } else {
-    // a fresh copy (Buffer.prototype.slice would share memory with a pooled buffer)
-    const copy = new Uint8Array(count * size);
+  if (littleEndian === HOST_LITTLE_ENDIAN && abs % size === 0 && kind !== 'i8' && kind !== 'u8') {
+    return viewOf(bytes.buffer as ArrayBuffer, abs, count, kind) as ArrayLike<number>;
+  }
+  if (kind !== 'i8' && kind !== 'u8') {
+    // an aligned copy (native memcpy), byte-swapped natively when the file's order is not the host's
+    const copy = Buffer.allocUnsafeSlow(count * size); // its own memory (never the pool), every byte written next
     copy.set(bytes.subarray(start, start + count * size));
-    if (littleEndian !== HOST_LITTLE_ENDIAN && size > 1) swapBytes(copy, size);
-    view = viewOf(copy.buffer, 0, count, kind);
-  }
-  if (kind === 'i8' || kind === 'u8') {
-    const big = view as BigInt64Array | BigUint64Array;
-    const out = new Float64Array(count);
-    for (let k = 0; k < count; k++) out[k] = Number(big[k]);
-    return out;
-  }
-  return view as ArrayLike<number>;
-}
-
-/** Reverses the bytes of every `size`-byte word of `b` in place. */
-export function swapBytes(b: Uint8Array, size: number): void {
-  for (let k = 0; k + size <= b.length; k += size) {
-    for (let a = k, z = k + size - 1; a < z; a++, z--) {
-      const t = b[a];
-      b[a] = b[z];
-      b[z] = t;
+    if (littleEndian !== HOST_LITTLE_ENDIAN) {
+      if (size === 2) copy.swap16();
+      else if (size === 4) copy.swap32();
+      else if (size === 8) copy.swap64();
     }
+    return viewOf(copy.buffer as ArrayBuffer, copy.byteOffset, count, kind) as ArrayLike<number>;
   }
+  const dv = new DataView(bytes.buffer, abs, count * size);
+  const out = new Float64Array(count);
+  if (kind === 'i8') for (let k = 0; k < count; k++) out[k] = Number(dv.getBigInt64(8 * k, littleEndian));
+  else for (let k = 0; k < count; k++) out[k] = Number(dv.getBigUint64(8 * k, littleEndian));
+  return out;
 }
 
 /**
  * Grid values (values[j·nx + i], j counting up from the bottom row) from numbers stored row by row
  * (`rowMajor`: element (r, c) at r·cols + c) or column by column (element (r, c) at c·rows + r).
  * `flip`: stored row 0 is the top grid row (j = rows − 1 − r); otherwise it is the bottom row (j = r).
+ * `input`: the file's bytes; a Float64Array `src` that is not a view of them may be returned as the grid's values.
  */
-export function toGrid(src: ArrayLike<number>, rows: number, cols: number, rowMajor: boolean, flip: boolean): Float64Array {
+export function toGrid(src: ArrayLike<number>, rows: number, cols: number, rowMajor: boolean, flip: boolean, input: Uint8Array | null): Float64Array {
+  if (rowMajor && src instanceof Float64Array && src.length === rows * cols) {
+    // typed fast paths: whole rows at once; a fresh array (not a view of the input) is taken as it is
+    if (!flip) return input !== null && src.buffer === input.buffer ? src.slice() : src;
+    const out = new Float64Array(rows * cols);
+    for (let r = 0; r < rows; r++) out.set(src.subarray(r * cols, (r + 1) * cols), (rows - 1 - r) * cols);
+    return out;
+  }
   const out = new Float64Array(rows * cols);
   for (let r = 0; r < rows; r++) {
     const j = flip ? rows - 1 - r : r;

@@ -95,7 +95,7 @@ export function readMat(bytes: Uint8Array, options: ReadOptions): ReadResult {
     throw new RhoformError('E_MAT_TRUNCATED', `expected ${real.nbytes} bytes of data, found ${Math.max(0, buf.length - real.data)}`, { byteOffset: fileBase + real.data });
   }
   const src = numbersAt(buf, real.data, count, kind, le);
-  const values = toGrid(src, rows, cols, false, topDown);
+  const values = toGrid(src, rows, cols, false, topDown, bytes);
   if (header.logical) for (let k = 0; k < values.length; k++) values[k] = values[k] !== 0 ? 1 : 0;
   const grid: DensityGrid = { nx: cols, ny: rows, cellSize: [hx, hy], origin: [0, 0], values, placement: options.values };
 
@@ -176,7 +176,8 @@ function peekHeader(stream: Uint8Array, le: boolean, offset: number): { header: 
 
 function inflate(stream: Uint8Array, maxLength: number, offset: number): Uint8Array {
   try {
-    return inflateSync(stream, { maxOutputLength: maxLength });
+    // one output chunk of the declared size: no growing and joining of 16 KB pieces
+    return inflateSync(stream, { maxOutputLength: maxLength, chunkSize: Math.max(1024, Math.min(maxLength, 1 << 28)) });
   } catch (e) {
     throw new RhoformError('E_MAT_INFLATE', `expected a zlib stream of at most ${maxLength} bytes (miCOMPRESSED), found: ${(e as Error).message}`, { byteOffset: offset + 8 });
   }

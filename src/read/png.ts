@@ -94,18 +94,8 @@ export function readPng(bytes: Uint8Array, options: ReadOptions): ReadResult {
   if (png.width !== width || png.height !== height) {
     throw new RhoformError('E_PNG_DECODE', `expected ${width}×${height} pixels as IHDR declares, found ${png.width}×${png.height}`, { byteOffset: 16 });
   }
-  const level = pixelLevels(png, h, channel, warnings);
   const dark = (options.imageSolid ?? 'dark') === 'dark';
-  const values = new Float64Array(count);
-  for (let r = 0; r < height; r++) {
-    const j = topDown ? height - 1 - r : r;
-    const src = r * width;
-    const dst = j * width;
-    for (let c = 0; c < width; c++) {
-      const v = level[src + c];
-      values[dst + c] = dark ? 1 - v : v;
-    }
-  }
+  const values = densities(png, h, channel, dark, topDown, warnings);
   const grid: DensityGrid = { nx: width, ny: height, cellSize: [hx, hy], origin: [0, 0], values, placement: options.values };
   const locate = (i: number, j: number): SamplePosition => {
     if (!(Number.isInteger(i) && i >= 0 && i < width && Number.isInteger(j) && j >= 0 && j < height)) {
@@ -117,35 +107,62 @@ export function readPng(bytes: Uint8Array, options: ReadOptions): ReadResult {
   return { grid, format: 'png', layout: 'grid', locate, warnings };
 }
 
-/** Each pixel's level in 0..1, image row 0 first. */
-function pixelLevels(png: ReturnType<typeof decode>, h: PngHeader, channel: ReadOptions['imageChannel'], warnings: string[]): Float64Array {
+/**
+ * Each pixel's density in grid order (values[j·width + i], j up from the bottom). A level v / max (max = 2^d − 1,
+ * or 255 for palette colours) becomes 1 − v / max when dark is solid; grey levels go through a table of every
+ * possible value, computed with the same operations.
+ */
+function densities(png: ReturnType<typeof decode>, h: PngHeader, channel: ReadOptions['imageChannel'], dark: boolean, topDown: boolean, warnings: string[]): Float64Array {
   const { width, height } = h;
   const n = width * height;
   const out = new Float64Array(n);
   const data = png.depth < 8 ? unpack(png.data as Uint8Array, width, height, png.depth) : png.data;
   const ch = png.depth < 8 ? 1 : png.channels;
+  const density = (level: number): number => (dark ? 1 - level : level);
+  const rowOf = (r: number): number => (topDown ? height - 1 - r : r) * width;
   if (h.colourType === 3) {
-    const pal = png.palette ?? [];
     const pick = channelOf(channel);
-    for (let p = 0; p < n; p++) {
-      const rgb = pal[data[p]];
-      if (!rgb) throw new RhoformError('E_PNG_DECODE', `expected palette indices below ${pal.length}, found ${data[p]} at pixel row ${Math.floor(p / width) + 1}, column ${(p % width) + 1}`, { byteOffset: 33 });
-      out[p] = pick(rgb[0], rgb[1], rgb[2]) / 255;
+    const table = (png.palette ?? []).map((rgb) => density(pick(rgb[0], rgb[1], rgb[2]) / 255));
+    for (let r = 0, p = 0; r < height; r++) {
+      const dst = rowOf(r);
+      for (let c = 0; c < width; c++, p++) {
+        const v = table[data[p]];
+        if (v === undefined) throw new RhoformError('E_PNG_DECODE', `expected palette indices below ${table.length}, found ${data[p]} at pixel row ${r + 1}, column ${c + 1}`, { byteOffset: 33 });
+        out[dst + c] = v;
+      }
     }
     return out;
   }
   const max = 2 ** png.depth - 1;
-  const hasAlpha = h.colourType === 4 || h.colourType === 6;
-  let translucent = 0;
   if (h.colourType === 0 || h.colourType === 4) {
-    for (let p = 0; p < n; p++) out[p] = data[p * ch] / max;
+    const table = new Float64Array(max + 1);
+    for (let v = 0; v <= max; v++) table[v] = density(v / max);
+    placeByTable(data, ch, table, width, height, topDown, out);
   } else {
     const pick = channelOf(channel);
-    for (let p = 0, k = 0; p < n; p++, k += ch) out[p] = pick(data[k], data[k + 1], data[k + 2]) / max;
+    for (let r = 0, k = 0; r < height; r++) {
+      const dst = rowOf(r);
+      for (let c = 0; c < width; c++, k += ch) out[dst + c] = density(pick(data[k], data[k + 1], data[k + 2]) / max);
+    }
   }
-  if (hasAlpha) for (let p = 0, k = ch - 1; p < n; p++, k += ch) if (data[k] !== max) translucent++;
-  if (translucent > 0) warnings.push(`${translucent} pixels are not opaque; the alpha channel was ignored`);
+  if (h.colourType === 4 || h.colourType === 6) {
+    let translucent = 0;
+    for (let p = 0, k = ch - 1; p < n; p++, k += ch) if (data[k] !== max) translucent++;
+    if (translucent > 0) warnings.push(`${translucent} pixels are not opaque; the alpha channel was ignored`);
+  }
   return out;
+}
+
+/** out[j·width + i] = table[first channel of pixel (r, i)], with image row r → grid row j. A tight loop of its own. */
+function placeByTable(data: ArrayLike<number>, ch: number, table: Float64Array, width: number, height: number, topDown: boolean, out: Float64Array): void {
+  let k = 0;
+  for (let r = 0; r < height; r++) {
+    const dst = (topDown ? height - 1 - r : r) * width;
+    for (let c = 0; c < width; c++) {
+      out[dst + c] = table[data[k]];
+      k += ch;
+    }
+  }
 }
 
 function channelOf(channel: ReadOptions['imageChannel']): (r: number, g: number, b: number) => number {

@@ -18,14 +18,22 @@ export function lineCol(bytes: Uint8Array, offset: number): { line: number; col:
   return { line, col: offset - start + 1 };
 }
 
-/** Maps many byte offsets to line:column with one pass over the file, built on first use. */
+/**
+ * Maps byte offsets to line:column. Line starts are found with a native search and only as far as the largest
+ * offset asked for, so a header position in a file of megabytes of binary data costs only the header.
+ */
 export function lineIndex(bytes: Uint8Array): (offset: number) => Where {
-  let starts: Uint32Array | null = null;
+  const starts: number[] = [0];
+  let scanned = 0; // every '\n' before this offset is in `starts`
   return (offset) => {
-    if (!starts) {
-      const list: number[] = [0];
-      for (let k = 0; k < bytes.length; k++) if (bytes[k] === 0x0a) list.push(k + 1);
-      starts = Uint32Array.from(list);
+    while (scanned < offset) {
+      const nl = bytes.indexOf(0x0a, scanned);
+      if (nl < 0 || nl >= offset) {
+        scanned = offset;
+        break;
+      }
+      starts.push(nl + 1);
+      scanned = nl + 1;
     }
     let lo = 0;
     let hi = starts.length - 1;

@@ -76,7 +76,7 @@ export function payloadBytes(b: Uint8Array, need: number, ctx: PayloadContext): 
     if (pos + cs > b.length) throw new RhoformError('E_VTI_DATA', `expected compressed block ${k + 1} of ${cs} bytes, found ${Math.max(0, b.length - pos)}`, ctx.where);
     let raw: Uint8Array;
     try {
-      raw = inflateSync(b.subarray(pos, pos + cs), { maxOutputLength: Math.max(size, 1) });
+      raw = inflateSync(b.subarray(pos, pos + cs), { maxOutputLength: Math.max(size, 1), chunkSize: Math.max(size, 1024) });
     } catch (e) {
       throw new RhoformError('E_VTI_INFLATE', `expected block ${k + 1} of ${nb} to inflate to ${size} bytes (zlib), found: ${(e as Error).message}`, ctx.where);
     }

@@ -176,7 +176,7 @@ export function readVti(bytes: Uint8Array, options: ReadOptions): ReadResult {
       place(merged, samples, part.range, src, at);
     }
   }
-  const values = toGrid(full as ArrayLike<number>, geo.rows, geo.cols, true, false);
+  const values = toGrid(full as ArrayLike<number>, geo.rows, geo.cols, true, false, bytes);
   const grid: DensityGrid = { nx: geo.cols, ny: geo.rows, cellSize: [geo.cellSize[0], geo.cellSize[1]], origin: [0, 0], values, placement: group.placement };
   const locate = (i: number, j: number): SamplePosition => {
     if (!(Number.isInteger(i) && i >= 0 && i < geo.cols && Number.isInteger(j) && j >= 0 && j < geo.rows)) {

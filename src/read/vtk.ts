@@ -225,7 +225,7 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
     offsets = new Uint32Array(arr.count);
     src = scanNumbers(text, arr.start, arr.count, { token: 'E_VTK_TOKEN', truncated: 'E_VTK_TRUNCATED' }, where, offsets).values;
   }
-  const values = toGrid(src, geo.rows, geo.cols, true, false);
+  const values = toGrid(src, geo.rows, geo.cols, true, false, bytes);
   const grid: DensityGrid = { nx: geo.cols, ny: geo.rows, cellSize: [geo.cellSize[0], geo.cellSize[1]], origin: [0, 0], values, placement: arr.placement };
   const size = kindSize(arr.kind);
   const locate = (i: number, j: number): SamplePosition => {

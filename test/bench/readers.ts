@@ -1,0 +1,68 @@
+/**
+ * Reader bench (docs/performance.md): the same 2000×1000 field in each input format, read in-process by
+ * `readGrid` (detection included); median of several runs, and the ratio to the NPY reader's time. Targets
+ * (issue 13): within 1.5× of NPY for plain binary formats, 3× for PNG and compressed data. ASCII formats are
+ * shown for information; they parse text, like CSV, and have no target.
+ */
+import { readGrid } from '../../src/read/detect.js';
+import { DEFAULT_READ_OPTIONS } from '../../src/read/types.js';
+import { matDouble, pngGrey, vti, vtkLegacy } from './format-writers.js';
+import { npyFloat64 } from './npy-write.js';
+import { platePattern } from './plate.js';
+
+const COLS = 2000;
+const ROWS = 1000;
+const REPEAT = Number(process.env.BENCH_REPEAT ?? 9);
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+const options = { ...DEFAULT_READ_OPTIONS, maxCells: 1e8 };
+const gc = (globalThis as { gc?: () => void }).gc;
+
+function timeOnce(bytes: Uint8Array, name: string): number {
+  gc?.();
+  const t0 = performance.now();
+  const r = readGrid(bytes, name, options);
+  const ms = performance.now() - t0;
+  if (r.grid.values.length !== COLS * ROWS) throw new Error(`${name}: wrong size`);
+  return ms;
+}
+
+const values = platePattern(COLS, ROWS);
+// the NPY writer takes rows top first; the field is symmetric enough that this does not matter for timing
+const cases: { name: string; file: string; bytes: Uint8Array; limit: number | null }[] = [
+  { name: 'NPY f8 (reference)', file: 'a.npy', bytes: npyFloat64(values, ROWS, COLS), limit: null },
+  { name: 'MAT double', file: 'a.mat', bytes: matDouble(values, ROWS, COLS, false), limit: 1.5 },
+  { name: 'MAT double, compressed', file: 'a.mat', bytes: matDouble(values, ROWS, COLS, true), limit: 3 },
+  { name: 'VTK legacy BINARY double', file: 'a.vtk', bytes: vtkLegacy(values, ROWS, COLS, true), limit: 1.5 },
+  { name: 'VTI appended raw Float64', file: 'a.vti', bytes: vti(values, ROWS, COLS, 'appended-raw'), limit: 1.5 },
+  { name: 'VTI appended raw, zlib', file: 'a.vti', bytes: vti(values, ROWS, COLS, 'appended-raw-zlib'), limit: 3 },
+  { name: 'VTI base64 Float64', file: 'a.vti', bytes: vti(values, ROWS, COLS, 'base64'), limit: 3 },
+  { name: 'VTI base64, zlib', file: 'a.vti', bytes: vti(values, ROWS, COLS, 'base64-zlib'), limit: 3 },
+  { name: 'PNG grey 8-bit', file: 'a.png', bytes: pngGrey(values, ROWS, COLS, 8), limit: 3 },
+  { name: 'PNG grey 16-bit', file: 'a.png', bytes: pngGrey(values, ROWS, COLS, 16), limit: 3 },
+  { name: 'VTK legacy ASCII (no target)', file: 'a.vtk', bytes: vtkLegacy(values, ROWS, COLS, false), limit: null },
+];
+
+// Round robin: each repeat times every format once, so that load from other processes spreads over all of them.
+const times: number[][] = cases.map(() => []);
+for (const c of cases) timeOnce(c.bytes, c.file); // warm up
+for (let k = 0; k < REPEAT; k++) cases.forEach((c, i) => times[i].push(timeOnce(c.bytes, c.file)));
+// Ratios use the best time of each format: on a shared machine the minimum is the estimate least disturbed by
+// other processes; the median is shown beside it.
+const best = (xs: number[]): number => Math.min(...xs);
+const base = best(times[0]);
+const rows: string[] = ['| format (2000×1000) | file MB | read ms (best) | ms (median) | × NPY (best) | target | ok |', '| --- | ---: | ---: | ---: | ---: | ---: | --- |'];
+let failed = 0;
+cases.forEach((c, i) => {
+  const ms = best(times[i]);
+  const ratio = ms / base;
+  const ok = c.limit === null ? '' : ratio <= c.limit ? 'yes' : 'NO';
+  if (ok === 'NO') failed++;
+  rows.push(`| ${c.name} | ${(c.bytes.length / 1e6).toFixed(1)} | ${ms.toFixed(1)} | ${median(times[i]).toFixed(1)} | ${ratio.toFixed(2)} | ${c.limit === null ? '' : `≤ ${c.limit}`} | ${ok} |`);
+});
+console.log(rows.join('\n'));
+console.log(failed === 0 ? '\nreaders: every target met' : `\nreaders: ${failed} target(s) missed`);
