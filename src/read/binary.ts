@@ -76,15 +76,26 @@ export function toGrid(src: ArrayLike<number>, rows: number, cols: number, rowMa
     return out;
   }
   const out = new Float64Array(rows * cols);
+  if (!rowMajor) {
+    // column by column to rows, in 64 × 64 tiles so that reads and writes both stay in cache
+    const B = 64;
+    for (let r0 = 0; r0 < rows; r0 += B) {
+      const r1 = Math.min(rows, r0 + B);
+      for (let c0 = 0; c0 < cols; c0 += B) {
+        const c1 = Math.min(cols, c0 + B);
+        for (let r = r0; r < r1; r++) {
+          const base = (flip ? rows - 1 - r : r) * cols;
+          for (let c = c0, k = c0 * rows + r; c < c1; c++, k += rows) out[base + c] = src[k];
+        }
+      }
+    }
+    return out;
+  }
   for (let r = 0; r < rows; r++) {
     const j = flip ? rows - 1 - r : r;
     const base = j * cols;
-    if (rowMajor) {
-      const s = r * cols;
-      for (let c = 0; c < cols; c++) out[base + c] = src[s + c];
-    } else {
-      for (let c = 0, s = r; c < cols; c++, s += rows) out[base + c] = src[s];
-    }
+    const s = r * cols;
+    for (let c = 0; c < cols; c++) out[base + c] = src[s + c];
   }
   return out;
 }

@@ -32,9 +32,23 @@ function timeOnce(bytes: Uint8Array, name: string): number {
 }
 
 const values = platePattern(COLS, ROWS);
+
+/** The same field as an NPY file in Fortran order (column by column), the memory order of a MAT-file. */
+function npyFortran(v: Float64Array, rows: number, cols: number): Uint8Array {
+  const c = npyFloat64(v, rows, cols);
+  const text = new TextDecoder('latin1').decode(c.subarray(0, 128));
+  const start = text.indexOf('{');
+  const header = text.slice(start, text.indexOf('\n') + 1).replace("'fortran_order': False", "'fortran_order': True ");
+  const out = c.slice();
+  out.set(new TextEncoder().encode(header), start);
+  const data = new Float64Array(out.buffer, c.length - v.byteLength, v.length);
+  for (let r = 0; r < rows; r++) for (let k = 0; k < cols; k++) data[k * rows + r] = v[r * cols + k];
+  return out;
+}
 // the NPY writer takes rows top first; the field is symmetric enough that this does not matter for timing
 const cases: { name: string; file: string; bytes: Uint8Array; limit: number | null }[] = [
   { name: 'NPY f8 (reference)', file: 'a.npy', bytes: npyFloat64(values, ROWS, COLS), limit: null },
+  { name: 'NPY f8, Fortran order (as MAT stores it)', file: 'f.npy', bytes: npyFortran(values, ROWS, COLS), limit: null },
   { name: 'MAT double', file: 'a.mat', bytes: matDouble(values, ROWS, COLS, false), limit: 1.5 },
   { name: 'MAT double, compressed', file: 'a.mat', bytes: matDouble(values, ROWS, COLS, true), limit: 3 },
   { name: 'VTK legacy BINARY double', file: 'a.vtk', bytes: vtkLegacy(values, ROWS, COLS, true), limit: 1.5 },
@@ -47,6 +61,9 @@ const cases: { name: string; file: string; bytes: Uint8Array; limit: number | nu
   { name: 'VTK legacy ASCII (no target)', file: 'a.vtk', bytes: vtkLegacy(values, ROWS, COLS, false), limit: null },
 ];
 
+// BENCH_ONLY=<text>: only the formats whose name contains it (and NPY), to look at one reader.
+const only = process.env.BENCH_ONLY;
+if (only) cases.splice(1, cases.length, ...cases.slice(1).filter((c) => c.name.includes(only)));
 // Round robin: each repeat times every format once, so that load from other processes spreads over all of them.
 const times: number[][] = cases.map(() => []);
 for (const c of cases) timeOnce(c.bytes, c.file); // warm up
