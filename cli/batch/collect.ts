@@ -1,6 +1,6 @@
 /**
  * The input list of a batch (docs/scale.md): files as given, folders expanded recursively to their grid files
- * (*.csv, *.tsv, *.txt, *.npy, any letter case), sorted by path and without duplicates. A path that cannot be
+ * (*.csv, *.tsv, *.txt, *.npy, *.mat, *.vtk, *.vti, *.png, any letter case), sorted by path and without duplicates. A path that cannot be
  * read is an entry with its error, not a crash: it is reported in the summary like a bad grid.
  *
  * Folder expansion skips hidden entries (names starting with '.') and the batch's own summary tables
@@ -12,7 +12,7 @@ import { extname, join, resolve } from 'node:path';
 import { displayPath } from '../io.js';
 import { comparePaths } from './shard.js';
 
-export const GRID_EXTENSIONS: readonly string[] = ['.csv', '.tsv', '.txt', '.npy'];
+export const GRID_EXTENSIONS: readonly string[] = ['.csv', '.tsv', '.txt', '.npy', '.mat', '.vtk', '.vti', '.png'];
 
 const SUMMARY_NAME = /^batch-summary(\.shard-\d+-of-\d+)?\.csv$/i;
 

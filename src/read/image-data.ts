@@ -63,3 +63,13 @@ export function imageGeometry(
     axes: [AXES[a], AXES[b]],
   };
 }
+
+/** Warnings for options that a VTK file's own frame and placement override (given values that differ). */
+export function overriddenOptions(options: { rowOrder: string; values: string }, placement: 'cells' | 'nodes'): string[] {
+  const out: string[] = [];
+  if (options.rowOrder === 'bottom-up') out.push("--row-order does not apply to VTK image data: the file's own frame (y up) was used");
+  if (options.values !== placement) {
+    out.push(`--values ${options.values} does not apply to VTK image data: the file holds ${placement === 'cells' ? 'cell data (cell values)' : 'point data (nodal values)'}`);
+  }
+  return out;
+}

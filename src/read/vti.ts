@@ -10,7 +10,7 @@ import { RhoformError, type Where } from '../errors.js';
 import type { DensityGrid } from '../types.js';
 import { kindSize, numbersAt, toGrid, type NumKind } from './binary.js';
 import { chooseCandidate, type Candidate } from './choose.js';
-import { imageGeometry, sampleDims } from './image-data.js';
+import { imageGeometry, overriddenOptions, sampleDims } from './image-data.js';
 import { checkReadOptions, layoutWarning } from './options.js';
 import { lineIndex, scanNumbers } from './text-scan.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
@@ -105,6 +105,7 @@ export function readVti(bytes: Uint8Array, options: ReadOptions): ReadResult {
   const chosen = chooseCandidate(list.map((g) => g.cand), options.field, 'one-component DataArray', { field: 'E_VTI_FIELD', refused: 'E_VTI_TYPE' }, where(image.start));
   const group = list.find((g) => g.cand === chosen) as (typeof list)[number];
   const samples = sampleDims(pointDims, group.placement);
+  warnings.push(...overriddenOptions(options, group.placement));
   const geo = imageGeometry(samples, spacing, origin, options, 'E_VTI_SHAPE', chosen.where, warnings);
   const count = samples[0] * samples[1] * samples[2];
   if (!(count <= options.maxCells)) {

@@ -11,7 +11,7 @@ import { RhoformError, type Where } from '../errors.js';
 import type { DensityGrid } from '../types.js';
 import { kindSize, numbersAt, toGrid, type NumKind } from './binary.js';
 import { chooseCandidate, type Candidate } from './choose.js';
-import { imageGeometry, sampleDims } from './image-data.js';
+import { imageGeometry, overriddenOptions, sampleDims } from './image-data.js';
 import { checkReadOptions, layoutWarning } from './options.js';
 import { lineIndex, scanNumbers, skipTokens } from './text-scan.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
@@ -213,6 +213,7 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
   const cands = [...arrays.map((a) => a.cand), ...others];
   const chosen = chooseCandidate(cands, options.field, 'one-component scalar array', { field: 'E_VTK_FIELD', refused: 'E_VTK_TYPE' }, where(0));
   const arr = arrays.find((a) => a.cand === chosen) as VtkArray;
+  warnings.push(...overriddenOptions(options, arr.placement));
   const geo = imageGeometry(sampleDims(dims, arr.placement), spacing, origin, options, 'E_VTK_SHAPE', chosen.where, warnings);
   if (arr.count === 0) throw new RhoformError('E_GRID_EMPTY', `expected at least one sample, found the empty array ${JSON.stringify(chosen.name)}`, chosen.where);
   if (!(arr.count <= options.maxCells)) {

@@ -71,3 +71,13 @@ describe('VTK image data read as numpy wrote the same field', () => {
 function resolve(bytes: Uint8Array) {
   return read(bytes, 'x');
 }
+
+describe('options the file overrides', () => {
+  it('--values and --row-order that disagree with the file are reported, and the file wins', () => {
+    const r = read(loadFixture(DIR, 'cells-binary.vtk'), 'a.vtk', { values: 'nodes', rowOrder: 'bottom-up' });
+    expect(r.grid.placement).toBe('cells');
+    expect(r.warnings.join('\n')).toMatch(/--values nodes does not apply to VTK image data: the file holds cell data/);
+    expect(r.warnings.join('\n')).toMatch(/--row-order does not apply/);
+    expectSameGrid(r, read(loadFixture(DIR, 'cells-f4.npy'), 'a.npy', { cellSize: spacing }));
+  });
+});
