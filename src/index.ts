@@ -17,6 +17,10 @@ export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './
 export { readGrid, detectFormat } from './read/detect.js';
 export { readCsv } from './read/csv.js';
 export { readNpy } from './read/npy.js';
+export { readMat } from './read/mat.js';
+export { readVtk } from './read/vtk.js';
+export { readVti } from './read/vti.js';
+export { readPng } from './read/png.js';
 export type { ReadOptions, ReadResult, SamplePosition } from './read/types.js';
 export { fieldStats, histogram, type FieldStats, type Histogram } from './field/stats.js';
 export { prepareGrid, type PrepareOptions, type PrepareResult } from './field/prepare.js';

@@ -25,6 +25,10 @@ const legacy = (dataset: string, dims: string, body: string, mode = 'ASCII'): st
   `# vtk DataFile Version 3.0\ntitle\n${mode}\nDATASET ${dataset}\nDIMENSIONS ${dims}\nSPACING 1 1 1\n${body}`;
 
 describe('legacy VTK', () => {
+  it('a file called .vtk without the version line is E_VTK_HEADER on line 1', () => {
+    const e = fail(enc('0.1 0.2\n0.3 0.4\n'));
+    expect([e.code, e.where?.line, e.message]).toEqual(['E_VTK_HEADER', 1, expect.stringMatching(/expected "# vtk DataFile Version x.y" on line 1, found "0.1 0.2"/)]);
+  });
   it('other datasets are E_VTK_DATASET on line 4', () => {
     const e = fail(enc('# vtk DataFile Version 3.0\nt\nASCII\nDATASET POLYDATA\nPOINTS 0 float\n'));
     expect([e.code, e.where?.line, e.message]).toEqual(['E_VTK_DATASET', 4, expect.stringMatching(/expected DATASET STRUCTURED_POINTS \(image data\), found DATASET POLYDATA/)]);
@@ -71,6 +75,10 @@ describe('legacy VTK', () => {
 describe('VTK XML ImageData', () => {
   const vti = (inner: string, root = 'type="ImageData" byte_order="LittleEndian"'): Uint8Array =>
     enc(`<?xml version="1.0"?>\n<VTKFile ${root}>\n<ImageData WholeExtent="0 2 0 2 0 0" Spacing="1 1 1">\n<Piece Extent="0 2 0 2 0 0">\n<CellData>\n${inner}\n</CellData>\n</Piece>\n</ImageData>\n</VTKFile>\n`);
+  it('a file called .vti whose root is not VTKFile is E_VTI_FORMAT; no root at all is E_VTI_XML', () => {
+    expect(fail(enc('<?xml version="1.0"?>\n<svg width="1"/>\n'), 'a.vti').message).toMatch(/expected the root element <VTKFile>, found <svg>/);
+    expect(fail(enc('0.1,0.2\n'), 'a.vti').code).toBe('E_VTI_XML');
+  });
   it('another dataset type is E_VTI_FORMAT', () => {
     const e = fail(vti('', 'type="UnstructuredGrid"'), 'a.vti');
     expect([e.code, e.where?.line, e.message]).toEqual(['E_VTI_FORMAT', 2, expect.stringMatching(/expected <VTKFile type="ImageData">, found type="UnstructuredGrid"/)]);
