@@ -64,12 +64,13 @@ export function imageGeometry(
   };
 }
 
-/** Warnings for options that a VTK file's own frame and placement override (given values that differ). */
+/** Warnings for options that a VTK file's own frame and placement override (values that differ from the defaults). */
 export function overriddenOptions(options: { rowOrder: string; values: string }, placement: 'cells' | 'nodes'): string[] {
   const out: string[] = [];
   if (options.rowOrder === 'bottom-up') out.push("--row-order does not apply to VTK image data: the file's own frame (y up) was used");
-  if (options.values !== placement) {
-    out.push(`--values ${options.values} does not apply to VTK image data: the file holds ${placement === 'cells' ? 'cell data (cell values)' : 'point data (nodal values)'}`);
+  // 'cells' is also the default, so only an explicit --values nodes can be told apart
+  if (options.values === 'nodes' && placement === 'cells') {
+    out.push('--values nodes does not apply to VTK image data: the file holds cell data (cell values)');
   }
   return out;
 }

@@ -102,7 +102,7 @@ export function readVti(bytes: Uint8Array, options: ReadOptions): ReadResult {
     }
   }
   const list = [...groups.values()];
-  const chosen = chooseCandidate(list.map((g) => g.cand), options.field, 'one-component DataArray', { field: 'E_VTI_FIELD', refused: 'E_VTI_TYPE' }, where(image.start));
+  const chosen = chooseCandidate(list.map((g) => g.cand), options.field, 'DataArray with one component', { field: 'E_VTI_FIELD', refused: 'E_VTI_TYPE' }, where(image.start));
   const group = list.find((g) => g.cand === chosen) as (typeof list)[number];
   const samples = sampleDims(pointDims, group.placement);
   warnings.push(...overriddenOptions(options, group.placement));

@@ -211,7 +211,7 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
   }
 
   const cands = [...arrays.map((a) => a.cand), ...others];
-  const chosen = chooseCandidate(cands, options.field, 'one-component scalar array', { field: 'E_VTK_FIELD', refused: 'E_VTK_TYPE' }, where(0));
+  const chosen = chooseCandidate(cands, options.field, 'scalar array (one component)', { field: 'E_VTK_FIELD', refused: 'E_VTK_TYPE' }, where(0));
   const arr = arrays.find((a) => a.cand === chosen) as VtkArray;
   warnings.push(...overriddenOptions(options, arr.placement));
   const geo = imageGeometry(sampleDims(dims, arr.placement), spacing, origin, options, 'E_VTK_SHAPE', chosen.where, warnings);
