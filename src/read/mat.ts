@@ -54,7 +54,8 @@ export function readMat(bytes: Uint8Array, options: ReadOptions): ReadResult {
   const { hx, hy, topDown } = checkReadOptions(options);
   const le = readFileHeader(bytes);
   const warnings = layoutWarning(options, 'MAT-file matrix');
-  const vars = listVariables(bytes, le, warnings);
+  // MATLAB keeps the data of objects (strings, tables…) in a nameless uint8 array: not a variable
+  const vars = listVariables(bytes, le, warnings).filter((v) => v.header.name !== '');
   const cands = vars.map(candidateOf);
   const chosen = chooseCandidate(cands, options.field, 'real numeric 2-D matrix', { field: 'E_MAT_FIELD', refused: 'E_MAT_CLASS' }, { byteOffset: 128 });
   const v = vars[cands.indexOf(chosen)];
@@ -195,7 +196,7 @@ const REFUSED_CLASSES: Record<number, string> = {
 
 function candidateOf(v: MatVariable): Candidate {
   const h = v.header;
-  const cls = h.logical ? 'logical' : className(h.cls);
+  const cls = h.cls === 5 ? `sparse${h.logical ? ' logical' : ''}` : h.logical ? 'logical' : className(h.cls);
   const label = `${h.dims.join('×')} ${h.complex ? 'complex ' : ''}${cls}`;
   let refused: string | null = REFUSED_CLASSES[h.cls] ?? null;
   if (!refused && !(h.cls >= 6 && h.cls <= 15)) refused = `an unknown class (${h.cls})`;

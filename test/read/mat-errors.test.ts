@@ -28,7 +28,7 @@ describe('refused variables are named, with the reason', () => {
   const cases: [string, string, RegExp][] = [
     ['cell.mat', 'c', /"c": 1×2 cell, which is refused: a cell array/],
     ['struct.mat', 's', /"s": 1×1 struct, which is refused: a struct/],
-    ['sparse.mat', 'k', /"k": 37×53 logical, which is refused: a sparse matrix; save full\(x\)/],
+    ['sparse.mat', 'k', /"k": 37×53 sparse logical, which is refused: a sparse matrix; save full\(x\)/],
     ['complex.mat', 'z', /"z": 37×53 complex double, which is refused: complex/],
     ['char.mat', 't', /"t": 1×7 char, which is refused: a char array/],
   ];
