@@ -65,6 +65,9 @@ describe('VTK image data read as numpy wrote the same field', () => {
       expect(s.grid.cellSize).toEqual(spacing);
       expectSameDxf(loadFixture(DIR, f), loadFixture(DIR, ref), { cellSize: spacing });
     }
+    // point data are nodal values: the same DXF as the NPY field read with --values nodes
+    expectSameDxf(loadFixture(DIR, 'points.vti'), loadFixture(DIR, 'cells-f4.npy'), { cellSize: spacing, values: 'nodes' });
+    expectSameDxf(loadFixture(DIR, 'points-ascii.vtk'), loadFixture(DIR, 'cells-f8.npy'), { cellSize: spacing, values: 'nodes' });
   });
 });
 
