@@ -12,6 +12,11 @@ import { readCsv } from '../../src/read/csv.js';
 import { readNpy } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
 import { parsePassive, parsePassiveBytes } from '../../src/passive/parse.js';
+import { readFileSync } from 'node:fs';
+import { readMat } from '../../src/read/mat.js';
+import { readVtk } from '../../src/read/vtk.js';
+import { readVti } from '../../src/read/vti.js';
+import { readPng } from '../../src/read/png.js';
 
 // eslint-disable-next-line no-control-regex
 const CONTROL = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
@@ -112,4 +117,39 @@ describe('readers never crash and never print more than one clean line', () => {
       runs(30),
     );
   });
+
+  // The readers of issue 13, on small files: fixtures written by scipy and PIL, and VTK files of a few samples
+  // written here from the VTK format document (larger fixtures: readers-formats-fuzz.test.ts).
+  const fixture = (path: string): Uint8Array => new Uint8Array(readFileSync(new URL(`../../fixtures/${path}`, import.meta.url)));
+  const vtkAscii = enc('# vtk DataFile Version 3.0\nt\nASCII\nDATASET STRUCTURED_POINTS\nDIMENSIONS 4 3 1\nORIGIN 0 0 0\nSPACING 1 2 1\nCELL_DATA 6\nSCALARS rho float 1\nLOOKUP_TABLE default\n0 0.5 1\n1 0.25 0\nPOINT_DATA 12\nFIELD f 1\nt 1 12 double\n0 1 0 1 0 1 0 1 0 1 0 1\n');
+  const be = new Uint8Array(new Float32Array([0, 0.5, 1, 1, 0.25, 0]).buffer);
+  for (let k = 0; k < be.length; k += 4) be.subarray(k, k + 4).reverse();
+  const vtkBinary = new Uint8Array([...enc('# vtk DataFile Version 3.0\nt\nBINARY\nDATASET STRUCTURED_POINTS\nDIMENSIONS 4 3 1\nSPACING 1 1 1\nCELL_DATA 6\nSCALARS rho float\nLOOKUP_TABLE default\n'), ...be, 10]);
+  const payload = new Uint8Array([...new Uint8Array(new Uint32Array([48]).buffer), ...new Uint8Array(new Float64Array([0, 0.5, 1, 1, 0.25, 0]).buffer)]);
+  const vti = (data: string, appended: Uint8Array | null) =>
+    new Uint8Array([
+      ...enc(`<?xml version="1.0"?>\n<VTKFile type="ImageData" byte_order="LittleEndian"><ImageData WholeExtent="0 3 0 2 0 0" Spacing="1 1 1"><Piece Extent="0 3 0 2 0 0"><CellData>${data}</CellData></Piece></ImageData>`),
+      ...(appended ? [...enc('<AppendedData encoding="raw">_'), ...appended, ...enc('</AppendedData>')] : []),
+      ...enc('</VTKFile>\n'),
+    ]);
+  const formats: [string, Uint8Array[], (b: Uint8Array) => unknown][] = [
+    ['MAT', ['mat/uint8-z.mat', 'mat/int8.mat', 'mat/logical-z.mat', 'mat/uint8.mat'].map(fixture), (b) => readMat(b, { ...small, field: null })],
+    ['VTK', [vtkAscii, vtkBinary], (b) => readVtk(b, { ...small, field: 'rho' })],
+    [
+      'VTI',
+      [
+        vti('<DataArray type="Float64" Name="rho" format="ascii">0 0.5 1 1 0.25 0</DataArray>', null),
+        vti(`<DataArray type="Float64" Name="rho" format="binary">${Buffer.from(payload).toString('base64')}</DataArray>`, null),
+        vti('<DataArray type="Float64" Name="rho" format="appended" offset="0"/>', payload),
+      ],
+      (b) => readVti(b, small),
+    ],
+    ['PNG', ['png/palette4.png', 'png/grey16.png', 'png/rgba.png'].map(fixture), (b) => readPng(b, { ...small, imageChannel: 'luminance' })],
+  ];
+  for (const [name, seeds, read] of formats) {
+    it(`${name}: mutated files`, () => {
+      for (const seed of seeds) expect(() => read(seed)).not.toThrow(); // the seeds themselves are valid
+      fc.assert(fc.property(fc.oneof(...seeds.map(mutated)), (b) => clean(() => read(b))), runs(400));
+    });
+  }
 });
