@@ -5,7 +5,8 @@ export const HELP = `rhoform ${VERSION} — density grids to clean, closed, volu
 
 Usage:
   rhoform build   <grid> [options]   grid → DXF + SVG + report (the main job)
-  rhoform check   <grid> [options]   the same run, report only, no geometry files
+  rhoform check   <grid> [options]   the same run, the verdict on the terminal; writes no file, except the
+                                     JSON and HTML reports when --out-dir is given
   rhoform inspect <grid> [--json]    size, range, mean, M_nd, grey share, non-finite count, histogram
   rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/ (with repair)
   rhoform batch   <files|folders…>   build many grids on worker threads; summary CSV + JSON (docs/scale.md)
@@ -56,7 +57,8 @@ Batch (docs/scale.md):
   --jobs <n>                   worker threads (default: the number of cores)
   --shard <k>/<n>              only files i (sorted, from 0) with (i mod n) + 1 = k, for cluster array jobs
 Output:
-  --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo)
+  --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo;
+                               check writes its reports only when --out-dir is given)
   --formats dxf,svg,json,html  which files to write (default: all four)
   --units mm|in                DXF/SVG units (the report is always in mm)
   --json                       print the JSON report on stdout and nothing else

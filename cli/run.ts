@@ -113,6 +113,16 @@ function runDemo(args: ParsedArgs, io: Io): number {
   return code;
 }
 
+/**
+ * `rhoform check` asks for a verdict: it writes its report files (JSON and HTML) only when told where
+ * (`--out-dir`); otherwise nothing is written and the report's `settings.formats` and `outputs` are empty
+ * (docs/cli.md, "check writes no file unless asked").
+ */
+export function checkFiles(args: ParsedArgs): ParsedArgs {
+  if (args.cli.outDir !== null) return args;
+  return { ...args, settings: { ...args.settings, formats: [] } };
+}
+
 /** Run one command line; returns the exit code. */
 export function run(argv: readonly string[], io: Io): number {
   let args: ParsedArgs;
@@ -136,13 +146,9 @@ export function run(argv: readonly string[], io: Io): number {
         // These run on worker threads and the event loop: see runAsync.
         throw new UsageError(`${args.command} runs asynchronously; call runAsync (the rhoform binary does)`);
       case 'build':
+        return runBuild(args, io, { file: args.files[0], writeGeometry: true, force: args.cli.force, outDir: args.cli.outDir ?? '.' });
       case 'check':
-        return runBuild(args, io, {
-          file: args.files[0],
-          writeGeometry: args.command === 'build',
-          force: args.cli.force,
-          outDir: args.cli.outDir ?? '.',
-        });
+        return runBuild(checkFiles(args), io, { file: args.files[0], writeGeometry: false, force: args.cli.force, outDir: args.cli.outDir ?? '.' });
     }
   } catch (e) {
     return reportError(e, io);

@@ -133,6 +133,30 @@ describe('CLI contract (docs/cli.md)', () => {
     expect(readdirSync(join(dir, 'o')).sort()).toEqual(['disc.report.html', 'disc.report.json']);
   });
 
+  it('check without --out-dir or --formats writes no file: the verdict goes to the terminal only', () => {
+    // docs/cli.md: `check` asks for a verdict; report files only when told where (--out-dir)
+    const dir = tempDir();
+    writeFileSync(join(dir, 'disc.csv'), discCsv());
+    const r = cli(['check', 'disc.csv'], dir);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^result +(PASS|WARN) /m);
+    expect(r.stdout).not.toMatch(/^wrote/m);
+    expect(readdirSync(dir)).toEqual(['disc.csv']);
+    const j = cli(['check', 'disc.csv', '--json'], dir);
+    expect(j.code).toBe(0);
+    const report = JSON.parse(j.stdout);
+    expect(report.outputs).toEqual([]);
+    expect(report.settings.formats).toEqual([]);
+    expect(readdirSync(dir)).toEqual(['disc.csv']);
+  });
+
+  it('check --out-dir . writes the two reports in the working folder, and never geometry', () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, 'disc.csv'), discCsv());
+    expect(cli(['check', 'disc.csv', '--out-dir', '.'], dir).code).toBe(0);
+    expect(readdirSync(dir).sort()).toEqual(['disc.csv', 'disc.report.html', 'disc.report.json']);
+  });
+
   it('colour only on a TTY and never with NO_COLOR or --no-color', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'disc.csv'), discCsv());
