@@ -108,7 +108,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     exact = repair.passive;
     lap('repair');
     beforeRepair = checks;
-    checks = checkStage(final, exact?.solidRings ?? null, checkInput, plan);
+    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true }, plan);
     lap('checks');
   }
   const warnings = [...field.warnings, ...threshold.warnings];

@@ -61,7 +61,7 @@ function message(p: PlannedCheck, status: Status, measured: number | null, resol
 export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, locate: LocateInFile): CheckResult[] {
   return planned.map((p) => {
     const m = p.def.measure(ctx, p.limit);
-    const status = verdict(m.measured, p.limit, m.resolution, p.def.comparison, p.severity);
+    const status = verdict(m.measured, p.limit, m.resolution, p.def.comparison, m.atMost === 'warn' ? 'warn' : p.severity);
     const worse = p.def.comparison === '>=' ? (a: RawLocation, b: RawLocation) => a.measured - b.measured : (a: RawLocation, b: RawLocation) => b.measured - a.measured;
     const sorted = [...m.locations].sort((a, b) => worse(a, b) || a.x - b.x || a.y - b.y);
     const locations: Location[] = sorted.slice(0, MAX_LOCATIONS).map((l) => ({ x: l.x, y: l.y, measured: l.measured, ...locate(l.x, l.y) }));
@@ -74,7 +74,7 @@ export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, l
       comparison: p.def.comparison,
       resolution: m.resolution,
       method: m.method,
-      message: message(p, status, m.measured, m.resolution, sorted.length),
+      message: message(p, status, m.measured, m.resolution, sorted.length) + (m.note ? `: ${m.note}` : ''),
       locations,
       locationsTotal: sorted.length,
     };

@@ -68,6 +68,8 @@ export interface CheckInput {
   readonly threshold: ThresholdSummary;
   /** M_nd of the input, %. */
   readonly greyLevel: number;
+  /** True for the re-check after `--repair`: the outline judged is the one written (CheckContext.repaired). */
+  readonly repaired?: boolean;
 }
 
 export interface CheckRecord {
@@ -95,6 +97,7 @@ export function checkStage(polygons: PolygonSet, passiveSolid: readonly Ring[] |
     smoothingDeviation: { max: input.smoothed.maxDeviation, resolution: input.smoothed.deviationResolution },
     morphology: () => (morph ??= buildMorphology(polygons, { domain, pixel: plan.pixel })),
     ...(passiveSolid ? { passiveSolid } : {}),
+    ...(input.repaired ? { repaired: true } : {}),
   };
   return { results: runChecks(plan.planned, ctx, plan.locate), morphology: () => morph };
 }

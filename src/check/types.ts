@@ -30,6 +30,13 @@ export interface Measurement {
    * worst first and keeps 100). Each is one finding: a thin strut, a small hole, a tight corner, an island.
    */
   readonly locations: readonly RawLocation[];
+  /**
+   * The most severe status this measurement may take (additive; absent = the planned severity): 'warn' when the
+   * limit is broken by something the run reports rather than fails (the volume a repair moved).
+   */
+  readonly atMost?: 'warn';
+  /** Why, in a few words, appended to the message (additive; absent = none). */
+  readonly note?: string;
 }
 
 /** Everything a check may look at. Built once per run by the pipeline; read-only. */
@@ -65,6 +72,11 @@ export interface CheckContext {
    * that touches or overlaps one counts as joined for `islands` (and for the `drop-islands` repair).
    */
   readonly passiveSolid?: readonly Ring[];
+  /**
+   * True when `polygons` is the outline after `--repair` (the geometry written, fixed parts applied again):
+   * volume-fraction then measures its area instead of the threshold's (additive; absent before repair).
+   */
+  readonly repaired?: boolean;
   /** The morphology engine for this outline, built on first use and shared by the size checks. */
   morphology(): Morphology;
 }

@@ -61,6 +61,8 @@ function header(r: Report, findings: readonly NumberedFinding[]): string {
     ['level', t.level === null ? '–' : fmt(t.level, 5)],
     ['volume target', pct(t.targetFraction, 2)],
     ['achieved', pct(t.achievedFraction, 2)],
+    // after repair the part written holds another volume: its tile beside the threshold's (docs/output-formats.md)
+    ...(r.checksBeforeRepair ? [['final (after repair)', pct(g.finalFraction, 2)] as [string, string]] : []),
     ['pieces / holes', `${g.polygons} / ${g.holes}`],
     ['area', `${fmt(g.area, 5)} mm²`],
     ['grey level M_nd', `${fmt(r.input.greyLevel, 3)} %`],

@@ -67,7 +67,8 @@ function headerRows(r: Report): [string, string][] {
   const how = t.mode === 'volume' ? 'volume-preserving' : t.mode === 'level' ? 'fixed by --level' : 'constant field';
   rows.push([
     'threshold',
-    `level ${t.level === null ? '–' : fmt(t.level, 6)} (${how}); volume target ${pct(t.targetFraction)}, achieved ${pct(t.achievedFraction)}, cells ${pct(t.pixelFraction)}`,
+    `level ${t.level === null ? '–' : fmt(t.level, 6)} (${how}); volume target ${pct(t.targetFraction)}, achieved ${pct(t.achievedFraction)}` +
+      `${r.checksBeforeRepair ? `, final ${pct(r.geometry.finalFraction)} (after repair)` : ''}, cells ${pct(t.pixelFraction)}`,
   ]);
   const g = r.geometry;
   rows.push([

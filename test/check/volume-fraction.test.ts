@@ -1,7 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { volumeError, volumeFraction } from '../../src/check/volume-fraction.js';
 import { polygonSetArea } from '../../src/geom/area.js';
-import { makeContext, ngon } from './context.js';
+import { runChecks, type PlannedCheck } from '../../src/check/run.js';
+import { makeContext, ngon, rect } from './context.js';
 
 const measure = (targetFraction: number, achievedFraction: number, mode: 'volume' | 'level' | 'constant' = 'volume') =>
   volumeFraction.measure(makeContext({ threshold: { targetFraction, achievedFraction, mode } }), 0.001);
@@ -44,4 +45,45 @@ describe('volume-fraction', () => {
     expect(measure(0.5, 0.51, 'level').method).toMatch(/--level/);
     expect(m.method).not.toMatch(/--level/);
   });
+
+  describe('after --repair: the part written', () => {
+    // a 100 × 100 mm domain; the written part is one 60 × 70 mm block: analytic final fraction 0.42
+    const written = { polygons: [{ outer: rect(0, 0, 60, 70), holes: [] }] };
+    const repairedCtx = (targetFraction: number, achievedFraction: number) =>
+      ({ ...makeContext({ polygons: written, threshold: { targetFraction, achievedFraction } }), repaired: true });
+    const plan: PlannedCheck = { def: volumeFraction, limit: 0.001, severity: 'fail', label: 'relative volume error', place: 'place', none: 'no volume target' };
+
+    it('measures |final − target| / target with final = written area / domain area', () => {
+      const m = volumeFraction.measure(repairedCtx(0.4, 0.4), 0.001);
+      expect(m.measured).toBeCloseTo(Math.abs(0.42 - 0.4) / 0.4, 12); // analytic: 4200 / 10000 = 0.42
+      expect(m.method).toMatch(/final/);
+    });
+
+    it('warns, not fails, when the repair moved the volume beyond the tolerance, and says why', () => {
+      // the threshold met the target (achieved = target); the repair added 2 points of the domain
+      const [r] = runChecks([plan], repairedCtx(0.4, 0.4), () => ({ fileRow: 1, fileCol: 1 }));
+      expect(r.status).toBe('warn');
+      expect(r.measured).toBeCloseTo(0.05, 12);
+      expect(r.message).toMatch(/42\.00 %.*40\.00 %.*repair moved it/);
+    });
+
+    it('passes when the repair kept the volume within the tolerance', () => {
+      const [r] = runChecks([plan], repairedCtx(0.42 * (1 + 0.0005), 0.42 * (1 + 0.0005)), () => ({ fileRow: 1, fileCol: 1 }));
+      expect(r.status).toBe('pass');
+      expect(r.measured).toBeCloseTo(0.0005 / 1.0005, 9);
+    });
+
+    it('still fails when the threshold itself missed the target (the repair is not the cause)', () => {
+      const [r] = runChecks([plan], repairedCtx(0.4, 0.41), () => ({ fileRow: 1, fileCol: 1 }));
+      expect(r.status).toBe('fail');
+      expect(r.message).toMatch(/already missed/);
+    });
+
+    it('before repair it measures the threshold\'s outline, whatever the polygons hold', () => {
+      const m = volumeFraction.measure(makeContext({ polygons: written, threshold: { targetFraction: 0.4, achievedFraction: 0.4 } }), 0.001);
+      expect(m.measured).toBe(0);
+      expect(m.atMost).toBeUndefined();
+    });
+  });
 });
+
