@@ -44,7 +44,7 @@ Checks (docs/checks/; a check that is off is absent from the report):
   --min-hole <mm>              narrowest allowed hole or gap
   --tool-radius <mm>           milling tool radius: concave corners tighter than it are findings
   --min-island-area <mm²>      islands up to this area are tolerated (default 0: every extra piece warns)
-  --min-hole-area <mm²>        smallest allowed hole area
+  --min-hole-area <mm²>        smallest allowed hole area (default 4 cell areas: below the grid's resolution)
   --grey-warn <%>              warn when the input's M_nd is above this (default 25)
   --process <id>               default limits of a process: laser-cut, waterjet-cut, milling, material-extrusion,
                                vat-photopolymerization, pbf-polymer, pbf-metal (docs/processes.md)

@@ -11,6 +11,7 @@ import { ringBounds, ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
 import { segmentsIntersect, sqSegDist } from '../geom/segments.js';
 import type { Polygon, PolygonSet, Ring } from '../types.js';
+import { subResolutionNote } from './small-holes.js';
 import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './types.js';
 
 /**
@@ -103,11 +104,13 @@ export function measureIslands(ctx: CheckContext, limit: number): Measurement {
       locations.push({ x, y, measured: areas[k] });
     }
   }
+  const note = subResolutionNote(locations.map((l) => l.measured), ctx.grid.cellSize, 'specks', 'drops them (drop-islands)');
   return {
     measured: worst < 0 ? null : worst,
     resolution,
     method: 'net area of every piece not joined to the main body (the largest piece) or to a passive-solid region; resolution = perimeter × outline tolerance',
     locations,
+    ...(note ? { note } : {}),
   };
 }
 

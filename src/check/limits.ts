@@ -5,6 +5,7 @@
 import type { Settings } from '../settings.js';
 import { processLimits, processTitle, type PresetValue, type ProcessId } from './process.js';
 import type { ResolvedLimits } from './registry.js';
+import { defaultMinHoleArea } from './small-holes.js';
 
 export interface ProcessReport {
   readonly id: string;
@@ -15,8 +16,13 @@ export interface ProcessReport {
   readonly values: { readonly minMember: PresetValue | null; readonly minHole: PresetValue | null; readonly toolRadius: PresetValue | null };
 }
 
-export function resolveLimits(s: Settings): { limits: ResolvedLimits; process: ProcessReport | null } {
-  if (s.process === null) return { limits: { minMember: s.minMember, minHole: s.minHole, toolRadius: s.toolRadius }, process: null };
+/**
+ * `cellSize` (mm), when given, sets the default hole-area limit: SUB_RESOLUTION_CELLS cell areas unless
+ * `--min-hole-area` was given (docs/checks/small-holes.md); without it `minHoleArea` is the option as given.
+ */
+export function resolveLimits(s: Settings, cellSize?: readonly [number, number]): { limits: ResolvedLimits; process: ProcessReport | null } {
+  const minHoleArea = s.minHoleArea ?? (cellSize ? defaultMinHoleArea(cellSize) : null);
+  if (s.process === null) return { limits: { minMember: s.minMember, minHole: s.minHole, toolRadius: s.toolRadius, minHoleArea }, process: null };
   const id = s.process as ProcessId;
   const preset = processLimits(id, s.thickness, s.toolRadius);
   return {
@@ -24,6 +30,7 @@ export function resolveLimits(s: Settings): { limits: ResolvedLimits; process: P
       minMember: s.minMember ?? preset.minMember?.value ?? null,
       minHole: s.minHole ?? preset.minHole?.value ?? null,
       toolRadius: s.toolRadius ?? preset.toolRadius?.value ?? null,
+      minHoleArea,
     },
     process: { id, title: processTitle(id), thickness: s.thickness, values: { minMember: preset.minMember, minHole: preset.minHole, toolRadius: preset.toolRadius } },
   };

@@ -21,6 +21,11 @@ export interface ResolvedLimits {
   readonly minMember: number | null;
   readonly minHole: number | null;
   readonly toolRadius: number | null;
+  /**
+   * mm²: the hole-area limit in force — `--min-hole-area`, else the default of SUB_RESOLUTION_CELLS cell areas
+   * (src/check/small-holes.ts). Absent: `settings.minHoleArea` as given (null = off).
+   */
+  readonly minHoleArea?: number | null;
 }
 
 /** What the planner needs besides the settings: the resolved outline tolerance (mm) and the threshold mode. */
@@ -46,7 +51,7 @@ const ENTRIES: readonly Entry[] = [
   { def: minHoleSize, severity: () => 'fail', limit: (_s, p) => p.limits.minHole, label: 'narrowest hole or gap', place: 'narrow place', none: 'no hole or gap' },
   { def: minInnerRadius, severity: () => 'fail', limit: (_s, p) => p.limits.toolRadius, label: 'tightest inner corner radius', place: 'tight corner', none: 'no corner tighter than the tool' },
   { def: islands, severity: () => 'warn', limit: (s) => s.minIslandArea, label: 'largest island', place: 'island', none: 'no island' },
-  { def: smallHoles, severity: () => 'warn', limit: (s) => s.minHoleArea, label: 'smallest hole area', place: 'small hole', none: 'no hole' },
+  { def: smallHoles, severity: () => 'warn', limit: (s, p) => (p.limits.minHoleArea !== undefined ? p.limits.minHoleArea : s.minHoleArea), label: 'smallest hole area', place: 'small hole', none: 'no hole' },
   { def: outlineFidelity, severity: () => 'fail', limit: (_s, p) => p.tolerance, label: 'largest outline deviation', place: 'place', none: 'no outline' },
   { def: greyLevel, severity: () => 'warn', limit: (s) => s.greyWarn, label: 'grey level M_nd', place: 'place', none: 'no input' },
 ];

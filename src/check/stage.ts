@@ -39,7 +39,7 @@ export interface PlanInput {
 
 /** Plan the checks. Throws RhoformError on limits that cannot be used (a preset without its thickness, …). */
 export function planStage(field: PlanInput, mode: ThresholdSummary['mode'], s: Settings): CheckPlan {
-  const { limits, process } = resolveLimits(s);
+  const { limits, process } = resolveLimits(s, field.grid.cellSize);
   const { domain } = field;
   // A tool wider than the part cannot mill any pocket of it, and its open-space margin would need a raster
   // many times the grid: refuse it as a usage error rather than spend the memory.

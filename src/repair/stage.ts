@@ -29,7 +29,8 @@ function offReason(id: RepairName, planned: ReadonlySet<CheckId>): string | null
 export interface RepairStageInput {
   readonly polygons: PolygonSet;
   readonly settings: Pick<Settings, 'repair' | 'minIslandArea' | 'minHoleArea'>;
-  readonly limits: { readonly minMember: number | null; readonly minHole: number | null; readonly toolRadius: number | null };
+  /** The limits in force (ResolvedLimits); `minHoleArea` absent: `settings.minHoleArea`. */
+  readonly limits: { readonly minMember: number | null; readonly minHole: number | null; readonly toolRadius: number | null; readonly minHoleArea?: number | null };
   readonly planned: readonly PlannedCheck[];
   readonly planes: readonly MirrorPlane[];
   readonly passive: PassiveRegions | null;
@@ -71,7 +72,7 @@ export function repairStage(input: RepairStageInput): RepairStageRecord {
       minHole: has('min-hole-size') ? input.limits.minHole : null,
       toolRadius: has('min-inner-radius') ? input.limits.toolRadius : null,
       minIslandArea: input.settings.minIslandArea,
-      minHoleArea: has('small-holes') ? input.settings.minHoleArea : null,
+      minHoleArea: has('small-holes') ? (input.limits.minHoleArea !== undefined ? input.limits.minHoleArea : input.settings.minHoleArea) : null,
     },
     passiveSolid: input.passiveSolid,
     passiveVoid,

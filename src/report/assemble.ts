@@ -47,6 +47,7 @@ export function reportSettings(s: Settings, field: PreparedField, plan: CheckPla
     minMember: plan.limits.minMember,
     minHole: plan.limits.minHole,
     toolRadius: plan.limits.toolRadius,
+    minHoleArea: plan.limits.minHoleArea ?? s.minHoleArea,
   };
 }
 

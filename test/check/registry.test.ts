@@ -48,6 +48,19 @@ describe('check registry', () => {
     expect(plan({}, 'level').find((c) => c.def.id === 'volume-fraction')!.severity).toBe('warn'); // not searched
   });
 
+  it('with the grid known, small-holes is on by default at 4 cell areas; --min-hole-area wins', () => {
+    // docs/checks/README.md, "Features below the grid's resolution": 4 · hx · hy
+    const withGrid = (s: Partial<Settings>) => {
+      const settings = resolveSettings(s);
+      return planChecks(settings, { tolerance: 0.25, limits: resolveLimits(settings, [2, 0.5]).limits, mode: 'volume' });
+    };
+    const p = withGrid({});
+    expect(p.map((c) => c.def.id)).toEqual(['volume-fraction', 'islands', 'small-holes', 'outline-fidelity', 'grey-level']);
+    expect(p.find((c) => c.def.id === 'small-holes')!.limit).toBe(4);
+    expect(withGrid({ minHoleArea: 7 }).find((c) => c.def.id === 'small-holes')!.limit).toBe(7);
+    expect(withGrid({ severity: { 'small-holes': 'off' } }).some((c) => c.def.id === 'small-holes')).toBe(false);
+  });
+
   it('a preset fills the size limits, an explicit option wins, --severity overrides or removes', () => {
     const preset = plan({ process: 'milling' });
     expect(preset.find((c) => c.def.id === 'min-inner-radius')!.limit).toBe(1.5);
