@@ -67,7 +67,7 @@ export interface Settings {
   toolRadius: number | null;
   /** mm²: islands up to this area are tolerated; 0 = every extra piece is an island (`--min-island-area`). */
   minIslandArea: number;
-  /** mm²: smallest allowed hole area (`--min-hole-area`). */
+  /** mm²: smallest allowed hole area (`--min-hole-area`); null = the default, 4 cell areas (src/check/small-holes.ts). */
   minHoleArea: number | null;
   /** %: M_nd of the input above which grey-level warns (`--grey-warn`). */
   greyWarn: number;

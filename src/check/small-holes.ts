@@ -1,6 +1,6 @@
 /**
  * `small-holes`: the area of the smallest hole of the part (docs/checks/small-holes.md). Unit mm²; measured ≥
- * limit passes (`--min-hole-area`).
+ * limit passes (`--min-hole-area`, default 4 cell areas: holes below the grid's resolution).
  *
  * Frame: mm, y up. A hole is a hole ring of a polygon (clockwise, enclosed by its outer ring); void open to the
  * domain edge is not a hole. Its area is the area its ring encloses (shoelace).

@@ -1,6 +1,6 @@
 /**
  * `fill-holes` (→ `min-hole-size`, `small-holes`, docs/repair.md): holes and gaps narrower than the hole limit
- * are filled, and holes whose area is below `--min-hole-area` are filled whole.
+ * are filled, and holes whose area is below the hole-area limit (`--min-hole-area`, default 4 cell areas) are filled whole.
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid.
  *

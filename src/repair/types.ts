@@ -19,7 +19,7 @@ export interface RepairLimits {
   readonly toolRadius: number | null;
   /** `--min-island-area`, mm²: drop-islands removes islands larger than this (0 = every island). */
   readonly minIslandArea: number;
-  /** `--min-hole-area`, mm²: fill-holes fills whole holes smaller than this. */
+  /** The hole-area limit in force (`--min-hole-area`, default 4 cell areas), mm²: fill-holes fills whole holes smaller than this. */
   readonly minHoleArea: number | null;
 }
 

@@ -108,10 +108,12 @@ describe('checks on the command line', () => {
     expect(fw.code).toBe(1);
   });
 
-  it('default checks run without any limit: volume-fraction, islands, outline-fidelity, grey-level', () => {
+  it('default checks run without any limit: volume-fraction, islands, small-holes (4 cell areas), outline-fidelity, grey-level', () => {
     const { dir } = setup();
     const report = JSON.parse(cli(['check', 'struts.csv', '--json'], dir).stdout) as Report;
-    expect(report.checks.map((c) => c.id)).toEqual(['volume-fraction', 'islands', 'outline-fidelity', 'grey-level']);
+    expect(report.checks.map((c) => c.id)).toEqual(['volume-fraction', 'islands', 'small-holes', 'outline-fidelity', 'grey-level']);
+    // docs/checks/README.md: the default hole-area limit is 4 cell areas (cell 1 mm here: 4 mm²)
+    expect(report.checks.find((c) => c.id === 'small-holes')!.limit).toBe(4 * report.input.cellSize[0] * report.input.cellSize[1]);
   });
 
   it('process presets: sheet processes need --thickness (exit 2 naming it); the report prints the values used', () => {
