@@ -173,6 +173,22 @@ const OPTIONS: Record<string, OptionSpec> = {
     commands: [...RUN_CMDS],
     apply: (v, o) => (o.settings.repair = v === '' ? [...REPAIR_IDS] : repairList(v)),
   },
+  // structural re-check (docs/structure.md)
+  loads: {
+    value: true,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => {
+      if (v.trim() === '') throw new UsageError(`--loads: expected a loads file (JSON), found ""`);
+      o.settings.loads = v;
+    },
+  },
+  'max-stiffness-loss': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.maxStiffnessLoss = num('--max-stiffness-loss', v, (x) => x >= 0, 'a compliance increase in % ≥ 0')) },
+  'allowable-stress': { value: true, commands: [...RUN_CMDS], apply: (v, o) => (o.settings.allowableStress = num('--allowable-stress', v, (x) => x > 0, 'a stress in MPa > 0')) },
+  'fe-max-elements': {
+    value: true,
+    commands: [...RUN_CMDS],
+    apply: (v, o) => (o.settings.feMaxElements = num('--fe-max-elements', v, (x) => Number.isInteger(x) && x >= 1, 'a whole number of elements ≥ 1')),
+  },
   // batch
   jobs: { value: true, commands: ['batch'], apply: (v, o) => (o.cli.jobs = num('--jobs', v, (x) => Number.isInteger(x) && x >= 1 && x <= 256, 'a whole number of workers from 1 to 256')) },
   shard: {
@@ -255,6 +271,12 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
       throw new UsageError(`--${name} takes no value, found ${JSON.stringify(a.slice(eq + 1))}`);
     }
     spec.apply(value, out);
+  }
+  const s = out.settings;
+  if (s.loads === undefined || s.loads === null) {
+    for (const [key, name] of [['maxStiffnessLoss', '--max-stiffness-loss'], ['allowableStress', '--allowable-stress'], ['feMaxElements', '--fe-max-elements']] as const) {
+      if (s[key] !== undefined && out.command !== 'demo') throw new UsageError(`${name}: applies to the structural re-check, which needs --loads <file.json>`);
+    }
   }
   if (out.command === 'demo') {
     if (out.files.length > 0) throw new UsageError(`demo takes no grid file, found ${JSON.stringify(out.files[0])}`);

@@ -4,6 +4,9 @@
  * worker (batch/worker.ts). Prints nothing: callers decide what goes to stdout and stderr.
  */
 import { basename, extname, join, resolve } from 'node:path';
+import { RhoformError } from '../src/errors.js';
+import { parseLoads } from '../src/loads/parse.js';
+import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
 import { build } from '../src/pipeline.js';
@@ -27,6 +30,18 @@ function readPassive(path: string, name: string): PassiveRegions {
   return parsePassiveBytes(readInput(path, name, { what: 'passive-region file' }), name);
 }
 
+/** Read and parse a loads file (docs/structure.md); `name` as the user gave it, for messages. */
+function readLoads(path: string, name: string): LoadsSpec {
+  const bytes = readInput(path, name, { what: 'loads file' });
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new RhoformError('E_LOADS_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
+  }
+  return parseLoads(text, name);
+}
+
 export interface BuildFileOptions {
   readonly cwd: string;
   readonly file: string;
@@ -37,6 +52,8 @@ export interface BuildFileOptions {
   readonly outDir: string;
   /** Where the passive-region file is, when not `settings.passive` relative to `cwd` (the demo's own). */
   readonly passivePath?: string;
+  /** Where the loads file is, when not `settings.loads` relative to `cwd` (the demo's own). */
+  readonly loadsPath?: string;
 }
 
 /**
@@ -50,7 +67,9 @@ export function buildFile(settings: Settings, opts: BuildFileOptions): { report:
   const bytes = readGridInput(inputPath, name, settings.maxCells);
   const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
   const passive = passivePath === null || settings.passive === null ? null : readPassive(passivePath, settings.passive);
-  const result = build({ name, bytes }, settings, { passive });
+  const loadsPath = settings.loads === null ? null : (opts.loadsPath ?? resolve(opts.cwd, settings.loads));
+  const loads = loadsPath === null || settings.loads === null ? null : readLoads(loadsPath, settings.loads);
+  const result = build({ name, bytes }, settings, { passive, loads });
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
@@ -66,6 +85,7 @@ export function buildFile(settings: Settings, opts: BuildFileOptions): { report:
     else content = formatHtml(report, result.pictures());
     planned.push({ path: p.path, content });
   }
-  writeOutputsAtomically(planned, passivePath === null ? [inputPath] : [inputPath, passivePath], opts.force);
+  const inputs = [inputPath, ...(passivePath === null ? [] : [passivePath]), ...(loadsPath === null ? [] : [loadsPath])];
+  writeOutputsAtomically(planned, inputs, opts.force);
   return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
 }

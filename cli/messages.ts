@@ -8,7 +8,7 @@ Usage:
   rhoform check   <grid> [options]   the same run, the verdict on the terminal; writes no file, except the
                                      JSON and HTML reports when --out-dir is given
   rhoform inspect <grid> [--json]    size, range, mean, M_nd, grey share, non-finite count, histogram
-  rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/ (with repair)
+  rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/ (with repair and its load case)
   rhoform batch   <files|folders…>   build many grids on worker threads; summary CSV + JSON (docs/scale.md)
   rhoform merge   <summary.json…>    join the summaries of sharded batch runs into one
   rhoform --help | --version
@@ -51,6 +51,13 @@ Checks (docs/checks/; a check that is off is absent from the report):
   --thickness <mm>             sheet thickness (required by laser-cut and waterjet-cut)
   --severity <id>=off|warn|fail   change a check's severity (repeatable)
   --fail-on warn|fail          exit 1 on warnings too (default: only on failures)
+Structural re-check (docs/structure.md; plane-stress FE on the grid, not a certified analysis):
+  --loads <file.json>          material, thickness, supports and loads in mm and N: analyse the input design and
+                               the final geometry (and the geometry before repair); adds stiffness-change and load-path
+  --max-stiffness-loss <%>     stiffness-change limit: compliance increase over the input design (default 10)
+  --allowable-stress <MPa>     peak-stress check: the final geometry's peak von Mises stress against it (default off)
+  --fe-max-elements <n>        coarsen the analysis grid by an integer factor above this (default 500000)
+                               (--thickness gives the plate thickness when the loads file does not; both must agree)
 Repair (docs/repair.md; the size checks run again on the result, which sets the exit code):
   --repair[=<list>]            all repairs, or some of: thicken, fill-holes, open-corners, drop-islands
 Batch (docs/scale.md):

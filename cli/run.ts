@@ -33,7 +33,9 @@ function packageRoot(): string {
  * The bundled demo: a grid of our own scenario and the settings it is meant to be built with — 2 mm cells, and
  * the bracket is waterjet-cut from 8 mm aluminium sheet (fixtures/grids/demo-bracket.md), so the checks use
  * that process's generic limits; its bolt holes and motor pad are passive regions of its own file; and it is
- * repaired, so the report shows the findings before repair next to the repaired result.
+ * repaired, so the report shows the findings before repair next to the repaired result; and it is re-analysed
+ * under its service load case (fixtures/loads/demo-bracket.loads.json), so the report says what the
+ * post-processing cost in stiffness.
  */
 export const DEMO = {
   file: 'fixtures/grids/demo-bracket.npy',
@@ -43,13 +45,14 @@ export const DEMO = {
     thickness: 8,
     passive: 'fixtures/passive/demo-bracket.passive.json',
     repair: [...REPAIR_IDS],
+    loads: 'fixtures/loads/demo-bracket.loads.json',
   } as Partial<Settings>,
 };
 
 function runBuild(
   args: ParsedArgs,
   io: Io,
-  opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string },
+  opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string; loadsPath?: string },
 ): number {
   const settings = resolveSettings(args.settings);
   // Progress (docs/scale.md): a build runs synchronously, so a large input gets one start line on stderr.
@@ -106,7 +109,9 @@ function runDemo(args: ParsedArgs, io: Io): number {
   // The demo replaces its own earlier output (and only that): the same names in its own folder.
   // The demo's own passive-region file sits in the package; a --passive of the user's replaces it.
   const passivePath = args.settings.passive === undefined ? join(root, DEMO.settings.passive as string) : undefined;
-  const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir, passivePath });
+  // Likewise its loads file.
+  const loadsPath = args.settings.loads === undefined ? join(root, DEMO.settings.loads as string) : undefined;
+  const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir, passivePath, loadsPath });
   if (!args.cli.json && !args.cli.quiet) {
     io.stdout(`\nThe demo grid is ${DEMO.file} (a bracket of our own invention: fixtures/grids/demo-bracket.md).\nIts DXF, SVG and reports are in ${resolve(io.cwd, outDir)}/\n`);
   }

@@ -6,10 +6,13 @@
  * every file operation.
  */
 import { checkStage, planStage, type CheckRecord } from './check/stage.js';
+import { structureDesign, structureStage, structureStart, type StructureDesign, type StructureRecord, type StructureStart } from './fe/stage.js';
 import { levelCurve } from './field/curve.js';
 import { prepareStage, withFileName } from './field/stage.js';
 import { loadBooleanEngine } from './geom/clipper.js';
+import { UsageError } from './errors.js';
 import { loadGrid, type InputFile } from './input.js';
+import type { LoadsSpec } from './loads/types.js';
 import { buildMorphology } from './morph/index.js';
 import { passiveStage } from './passive/stage.js';
 import type { PassiveRegions } from './passive/types.js';
@@ -19,6 +22,7 @@ import type { HtmlPictures } from './report/html.js';
 import { needsBooleanEngine, type Settings } from './settings.js';
 import type { SmoothResult } from './smooth/smooth.js';
 import { thresholdStage } from './threshold/stage.js';
+import type { StructureCheckInput } from './check/types.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
 import { writeStage } from './write/stage.js';
 
@@ -40,6 +44,8 @@ export interface BuildResult {
   svg(): string;
   /** The picture data of the HTML report (the local-thickness map only when it is cheap or already built). */
   pictures(): HtmlPictures;
+  /** The structural re-check's record (`--loads`), or null without. */
+  readonly structure: StructureRecord | null;
 }
 
 /** Grids up to this many samples get a local-thickness picture even when no size check built the engine. */
@@ -50,6 +56,13 @@ const THICKNESS_PICTURE_SIDE = 600;
 /** Inputs of a build beside the grid: the parsed passive-region file (`--passive`; the CLI reads and parses it). */
 export interface BuildExtras {
   readonly passive?: PassiveRegions | null;
+  /** The parsed loads file (`--loads`; the CLI reads and parses it): runs the structural re-check. */
+  readonly loads?: LoadsSpec | null;
+}
+
+/** What the structural checks read of one analysed outline. */
+function structureView(start: StructureStart, d: StructureDesign): StructureCheckInput {
+  return { input: start.input.analysis, geometry: d.analysis, reach: d.reach, x0: start.grid.x0, y0: start.grid.y0 };
 }
 
 /**
@@ -82,9 +95,16 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   lap('passive');
 
   const plan = withFileName(input.name, () => planStage(field, threshold.summary.mode, s));
+  // The structural re-check (--loads): the input design now, each outline before the checks that judge it.
+  const loads = more.loads ?? null;
+  if ((loads === null) !== (s.loads === null)) throw new UsageError('the structural re-check needs both settings.loads (the file name) and the parsed loads file');
+  const fe = loads === null ? null : structureStart(field, loads, s);
+  let feFinal = fe === null ? null : structureDesign(fe, passive.polygons);
+  if (fe !== null) lap('structure');
   const checkInput = { ...field, raw: threshold.raw, smoothed: threshold.smoothed, threshold: threshold.summary, greyLevel: field.input.greyLevel };
-  let checks: CheckRecord = checkStage(passive.polygons, passive.exact?.solidRings ?? null, checkInput, plan);
+  let checks: CheckRecord = checkStage(passive.polygons, passive.exact?.solidRings ?? null, checkInput, plan, fe && feFinal ? structureView(fe, feFinal) : null);
   lap('checks');
+  let feBefore: StructureDesign | null = null;
 
   let final = passive.polygons;
   let exact = passive.exact;
@@ -107,11 +127,17 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     final = repair.polygons;
     exact = repair.passive;
     lap('repair');
+    if (fe !== null) {
+      feBefore = feFinal;
+      feFinal = structureDesign(fe, final);
+      lap('structure');
+    }
     beforeRepair = checks;
-    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true }, plan);
+    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
     lap('checks');
   }
-  const warnings = [...field.warnings, ...threshold.warnings];
+  const structure = fe !== null && feFinal !== null ? structureStage(fe, feBefore, feFinal, final) : null;
+  const warnings = [...field.warnings, ...threshold.warnings, ...(structure?.warnings ?? [])];
   const report = assembleReport({
     settings: s,
     field,
@@ -123,6 +149,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     repair,
     final,
     warnings,
+    structure,
   });
   const files = writeStage(
     { polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], checks: report.checks, repair },
@@ -147,6 +174,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     warnings,
     timings,
     builds: threshold.builds,
+    structure,
     dxf: files.dxf,
     svg: files.svg,
     pictures: () => ({
@@ -156,6 +184,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       curve: levelCurve(grid),
       ...(repair ? { beforeRepair: repair.before, repaired: repair.changed } : {}),
       thickness: pictureThickness(),
+      ...(structure ? { structure } : {}),
     }),
   };
 }

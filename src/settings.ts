@@ -81,6 +81,15 @@ export interface Settings {
   failOn: 'warn' | 'fail';
   /** Repairs to run after the checks (`--repair[=list]`), in REPAIR_IDS order; empty = none. */
   repair: RepairName[];
+  // structural re-check (docs/structure.md; the report shows these four only when `loads` is given)
+  /** The loads file as given (`--loads`); null = no structural re-check. Its parsed content is passed to `build`. */
+  loads: string | null;
+  /** %: largest allowed compliance increase of the final geometry over the input design (`--max-stiffness-loss`). */
+  maxStiffnessLoss: number;
+  /** MPa: allowable von Mises stress of the final geometry (`--allowable-stress`); null = peak-stress off. */
+  allowableStress: number | null;
+  /** Largest number of finite elements before the grid is coarsened by an integer factor (`--fe-max-elements`). */
+  feMaxElements: number;
   // output
   formats: OutputFormat[];
   units: 'mm' | 'in';
@@ -122,6 +131,10 @@ export const DEFAULT_SETTINGS: Settings = {
   severity: {},
   failOn: 'fail',
   repair: [],
+  loads: null,
+  maxStiffnessLoss: 10,
+  allowableStress: null,
+  feMaxElements: 500_000, // = FE_MAX_ELEMENTS (src/fe/analyse.ts; settings sit below fe/ in the layers)
   formats: ['dxf', 'svg', 'json', 'html'],
   units: 'mm',
 };
@@ -143,6 +156,9 @@ export function resolveSettings(partial: Partial<Settings>): Settings {
  * Whether a run with these settings needs the polygon boolean engine (src/geom/clipper.ts), which is loaded on
  * demand: passive regions, symmetry and repair use it; a plain build does not.
  */
+/** The settings of the structural re-check, which the report lists only when `--loads` is given. */
+export const STRUCTURE_SETTINGS = ['loads', 'maxStiffnessLoss', 'allowableStress', 'feMaxElements'] as const;
+
 export function needsBooleanEngine(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): boolean {
   return s.passive !== null || s.mirror.length > 0 || s.repair.length > 0;
 }

@@ -80,7 +80,7 @@ export interface CheckResult {
   /** Worst value found; null when there is nothing to measure. */
   measured: number | null;
   limit: number;
-  unit: 'mm' | 'mm2' | '%' | '1';
+  unit: 'mm' | 'mm2' | '%' | '1' | 'MPa';
   comparison: '>=' | '<=';
   /** ± accuracy of the method, same unit. */
   resolution: number;
@@ -95,13 +95,49 @@ export interface CheckResult {
  * Every option of the run as the report prints it: the settings resolved for this grid (the tolerance in mm, the
  * layout read, the size limits after a process preset, the cell size used). Key order is the JSON order.
  */
-export interface ReportSettings extends Omit<Settings, 'tolerance' | 'layout'> {
+export interface ReportSettings extends Omit<Settings, 'tolerance' | 'layout' | StructureSettingKey>, Partial<Pick<Settings, StructureSettingKey>> {
   /** mm: the outline's deviation budget actually used. */
   tolerance: number;
   /** The layout read ('auto' resolved). */
   layout: 'grid' | 'long';
   /** Where the cell size came from (additive): `--cell-size`, the 1 mm default, the file (VTK spacing), long-form coordinates. */
   cellSizeSource?: 'option' | 'default' | 'file' | 'coordinates';
+}
+
+/** Settings of the structural re-check: in the report only when `--loads` is given (additive). */
+type StructureSettingKey = 'loads' | 'maxStiffnessLoss' | 'allowableStress' | 'feMaxElements';
+
+/** A value of the structural re-check at a place: mm, MPa or N·mm as named; x, y in mm (report frame, y up). */
+export interface StructureLocated {
+  value: number;
+  x: number;
+  y: number;
+}
+
+/** One design analysed by the structural re-check (DESIGN §12 `Analysis`; docs/structure.md). */
+export interface StructureAnalysis {
+  /** f·u, N·mm. */
+  compliance: number;
+  /** mm, at a node of an element at least half full. */
+  maxDisplacement: StructureLocated;
+  /** MPa, von Mises at the centre of an element at least half full; null when none is. */
+  peakStress: StructureLocated | null;
+  solver: { iterations: number; relativeResidual: number; converged: boolean; seconds: number };
+}
+
+/** The report's `structure` block (DESIGN §12; additive, present only with `--loads`). */
+export interface StructureReport {
+  loadsFile: string;
+  material: { E: number /* MPa */; nu: number };
+  thickness: number /* mm */;
+  interpolation: { penal: number; minStiffness: number };
+  elements: [number, number];
+  elementSize: [number, number] /* mm */;
+  /** 1 = none; else the integer coarsening factor. */
+  coarsened: number;
+  designs: { input: StructureAnalysis; beforeRepair?: StructureAnalysis; final: StructureAnalysis };
+  /** final.compliance / input.compliance − 1. */
+  complianceChange: number;
 }
 
 /** The threshold stage's choice (report `threshold`; docs/threshold.md). Fractions of the domain area. */
@@ -194,6 +230,8 @@ export interface Report {
     /** mm: largest distance from the final outline to the raw iso-contour (directed Hausdorff); null without a raw contour. */
     maxDeviation: number | null;
   };
+  /** The structural re-check (`--loads`, DESIGN §12; additive, absent without). */
+  structure?: StructureReport;
   summary: { status: Status; pass: number; warn: number; fail: number };
   outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];
   /** Non-fatal remarks of the run (also printed on stderr). Additive. */

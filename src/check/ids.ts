@@ -11,6 +11,9 @@ export const CHECK_IDS = [
   'small-holes',
   'outline-fidelity',
   'grey-level',
+  'stiffness-change',
+  'peak-stress',
+  'load-path',
 ] as const;
 
 export type CheckId = (typeof CHECK_IDS)[number];

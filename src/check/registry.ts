@@ -7,6 +7,9 @@ import type { Settings } from '../settings.js';
 import { greyLevel } from './grey-level.js';
 import type { CheckId } from './ids.js';
 import { islands } from './islands.js';
+import { loadPath } from './load-path.js';
+import { peakStress } from './peak-stress.js';
+import { stiffnessChange } from './stiffness-change.js';
 import { minHoleSize } from './min-hole-size.js';
 import { minInnerRadius } from './min-inner-radius.js';
 import { minMemberSize } from './min-member-size.js';
@@ -54,6 +57,10 @@ const ENTRIES: readonly Entry[] = [
   { def: smallHoles, severity: () => 'warn', limit: (s, p) => (p.limits.minHoleArea !== undefined ? p.limits.minHoleArea : s.minHoleArea), label: 'smallest hole area', place: 'small hole', none: 'no hole' },
   { def: outlineFidelity, severity: () => 'fail', limit: (_s, p) => p.tolerance, label: 'largest outline deviation', place: 'place', none: 'no outline' },
   { def: greyLevel, severity: () => 'warn', limit: (s) => s.greyWarn, label: 'grey level M_nd', place: 'place', none: 'no input' },
+  // the structural re-check (docs/structure.md): only with --loads
+  { def: stiffnessChange, severity: () => 'warn', limit: (s) => (s.loads === null ? null : s.maxStiffnessLoss), label: 'compliance increase over the input design', place: 'place', none: 'no structural analysis' },
+  { def: peakStress, severity: () => 'fail', limit: (s) => (s.loads === null ? null : s.allowableStress), label: 'peak von Mises stress', place: 'stressed region', none: 'no element at least half full' },
+  { def: loadPath, severity: () => 'fail', limit: (s) => (s.loads === null ? null : 0), label: 'supports, loads or pieces cut off', place: 'cut-off place', none: 'no structural analysis' },
 ];
 
 /** Every registered check definition, in report order. */

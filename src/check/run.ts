@@ -38,7 +38,7 @@ export function verdict(measured: number | null, limit: number, resolution: numb
 }
 
 
-const UNIT_TEXT: Record<CheckResult['unit'], string> = { mm: ' mm', mm2: ' mm²', '%': ' %', '1': '' };
+const UNIT_TEXT: Record<CheckResult['unit'], string> = { mm: ' mm', mm2: ' mm²', '%': ' %', '1': '', MPa: ' MPa' };
 
 /**
  * One line for people. The measured value and the limit are fields of their own (and columns of the text

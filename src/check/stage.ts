@@ -15,7 +15,7 @@ import { resolveLimits, type ProcessReport } from './limits.js';
 import { locator } from './locate.js';
 import { planChecks, type ResolvedLimits } from './registry.js';
 import { runChecks, type LocateInFile, type PlannedCheck } from './run.js';
-import type { CheckContext } from './types.js';
+import type { CheckContext, StructureCheckInput } from './types.js';
 
 /** Which checks run, with which limits, and how findings are placed. */
 export interface CheckPlan {
@@ -82,7 +82,13 @@ export interface CheckRecord {
  * Run the planned checks on `polygons` (the outline to judge), with the passive-solid rings of the exact passive
  * step (`islands` counts a piece touching one as joined).
  */
-export function checkStage(polygons: PolygonSet, passiveSolid: readonly Ring[] | null, input: CheckInput, plan: CheckPlan): CheckRecord {
+export function checkStage(
+  polygons: PolygonSet,
+  passiveSolid: readonly Ring[] | null,
+  input: CheckInput,
+  plan: CheckPlan,
+  structure: StructureCheckInput | null = null,
+): CheckRecord {
   let morph: Morphology | undefined;
   const { domain } = input;
   const ctx: CheckContext = {
@@ -98,6 +104,7 @@ export function checkStage(polygons: PolygonSet, passiveSolid: readonly Ring[] |
     morphology: () => (morph ??= buildMorphology(polygons, { domain, pixel: plan.pixel })),
     ...(passiveSolid ? { passiveSolid } : {}),
     ...(input.repaired ? { repaired: true } : {}),
+    ...(structure ? { structure } : {}),
   };
   return { results: runChecks(plan.planned, ctx, plan.locate), morphology: () => morph };
 }

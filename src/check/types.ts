@@ -4,6 +4,8 @@
  *
  * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md).
  */
+import type { FeAnalysis } from '../fe/analyse.js';
+import type { ReachFinding } from '../fe/reach.js';
 import type { Morphology } from '../morph/types.js';
 import type { CheckResult, DensityGrid, PolygonSet, Ring, ThresholdSummary } from '../types.js';
 import type { CheckId } from './ids.js';
@@ -77,8 +79,24 @@ export interface CheckContext {
    * volume-fraction then measures its area instead of the threshold's (additive; absent before repair).
    */
   readonly repaired?: boolean;
+  /**
+   * The structural re-check of this outline (`--loads`, docs/structure.md; additive, absent without): the input
+   * design's analysis, this outline's, and what this outline no longer reaches.
+   */
+  readonly structure?: StructureCheckInput;
   /** The morphology engine for this outline, built on first use and shared by the size checks. */
   morphology(): Morphology;
+}
+
+/** What the structural checks read (stiffness-change, peak-stress, load-path). */
+export interface StructureCheckInput {
+  readonly input: FeAnalysis;
+  /** The outline being checked, analysed. */
+  readonly geometry: FeAnalysis;
+  readonly reach: readonly ReachFinding[];
+  /** Lower-left corner of the analysis grid, mm. */
+  readonly x0: number;
+  readonly y0: number;
 }
 
 /** A registered check: its id, unit, comparison and how to measure; the runner does the rest. */

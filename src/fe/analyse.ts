@@ -51,6 +51,17 @@ export interface FeOptions extends SolveOptions {
   thickness?: number;
   /** Elements at least this full count for the peak stress and the largest displacement (default 0.5). */
   solidFraction?: number;
+  /**
+   * Shared by several designs analysed on one grid under one load case (create with `{}`): the load case is
+   * resolved and checked for rigid-body motion once, and the fine stiffness storage is reused.
+   */
+  workspace?: FeWorkspace;
+}
+
+/** What consecutive analyses on one grid share (see FeOptions.workspace); filled by `analyse`. */
+export interface FeWorkspace {
+  stencil?: Float64Array;
+  loadCase?: { readonly key: string; readonly lc: ResolvedLoadCase };
 }
 
 export interface Located {
@@ -133,15 +144,23 @@ export function analyse(grid: FeGridSpec, design: FeDesign, spec: LoadsSpec, opt
     stiffness[e] = E * t * (r + s * (1 - r));
   }
 
-  const lc = resolveLoadCase(spec, { ex, ey, hx, hy, x0, y0 });
-  const free = freeRigidModes(ex + 1, ey + 1, hx, hy, lc.fixed);
-  if (free.length > 0) {
-    const words = free.map((m) => (m === 'rotation' ? 'rotation' : `translation in ${m}`)).join(' and ');
-    const held = spec.supports.map((s) => entryLabel(s)).join(', ');
-    throw new RhoformError('E_LOADS_CASE', `supports: expected supports that hold the part still (no rigid-body motion), found ${words} left free by ${held}`, { file: spec.file, ...spec.supportsAt });
+  const ws = opts.workspace;
+  const key = `${ex} ${ey} ${hx} ${hy} ${x0} ${y0}`;
+  let lc: ResolvedLoadCase;
+  if (ws?.loadCase !== undefined && ws.loadCase.key === key) lc = ws.loadCase.lc;
+  else {
+    lc = resolveLoadCase(spec, { ex, ey, hx, hy, x0, y0 });
+    const free = freeRigidModes(ex + 1, ey + 1, hx, hy, lc.fixed);
+    if (free.length > 0) {
+      const words = free.map((m) => (m === 'rotation' ? 'rotation' : `translation in ${m}`)).join(' and ');
+      const held = spec.supports.map((s) => entryLabel(s)).join(', ');
+      throw new RhoformError('E_LOADS_CASE', `supports: expected supports that hold the part still (no rigid-body motion), found ${words} left free by ${held}`, { file: spec.file, ...spec.supportsAt });
+    }
+    if (ws) ws.loadCase = { key, lc };
   }
 
-  const sol = solveElastic({ ex, ey, hx, hy, nu, stiffness, fixed: lc.fixed, force: lc.force }, opts);
+  const sol = solveElastic({ ex, ey, hx, hy, nu, stiffness, fixed: lc.fixed, force: lc.force }, { ...opts, stencilBuffer: ws?.stencil });
+  if (ws) ws.stencil = sol.stencil;
   const u = sol.u;
   let compliance = 0;
   for (let d = 0; d < u.length; d++) compliance += lc.force[d] * u[d];

@@ -1,4 +1,4 @@
-export { analyse, coarseningFactor, FE_MAX_ELEMENTS, type FeAnalysis, type FeDesign, type FeGridSpec, type FeOptions, type Located } from './analyse.js';
+export { analyse, coarseningFactor, FE_MAX_ELEMENTS, type FeAnalysis, type FeDesign, type FeGridSpec, type FeOptions, type FeWorkspace, type Located } from './analyse.js';
 export { coverage, type CoverageGrid } from './coverage.js';
 export { elementStiffness, planeStressD, strainMatrix } from './element.js';
 export { freeRigidModes, type RigidMode } from './rigid.js';

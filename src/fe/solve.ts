@@ -26,6 +26,8 @@ export interface ElasticProblem {
 export interface SolveOptions extends CgOptions {
   /** Coarsen until at most this many dofs are left for the direct solve (default COARSEST_DOFS). */
   coarsestDofs?: number;
+  /** Storage for the fine-level stiffness, reused across solves on one grid (overwritten). */
+  stencilBuffer?: Float64Array;
 }
 
 export interface ElasticSolution {
@@ -34,17 +36,19 @@ export interface ElasticSolution {
   readonly stats: SolverStats;
   /** Multigrid levels used, the fine one included. */
   readonly levels: number;
+  /** The fine-level stiffness storage used (pass it back as `stencilBuffer` to reuse it). */
+  readonly stencil: Float64Array;
 }
 
 export function solveElastic(p: ElasticProblem, opts: SolveOptions = {}): ElasticSolution {
   const t0 = performance.now();
   const ke = elementStiffness(p.hx, p.hy, p.nu);
-  const A = assemble(p.ex, p.ey, ke, p.stiffness);
+  const A = assemble(p.ex, p.ey, ke, p.stiffness, opts.stencilBuffer);
   eliminate(A, p.fixed);
   const f = p.force.slice();
   for (let d = 0; d < f.length; d++) if (p.fixed[d]) f[d] = 0;
   const mg = buildMultigrid(A, opts.coarsestDofs);
   const { u, stats } = pcg(A, f, mg.precondition, opts);
   stats.seconds = (performance.now() - t0) / 1000;
-  return { u, stats, levels: mg.levels };
+  return { u, stats, levels: mg.levels, stencil: A.s };
 }

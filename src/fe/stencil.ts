@@ -22,12 +22,13 @@ const LJ = [0, 0, 1, 1];
 /**
  * Assemble the global stiffness of an ex × ey grid of equal cells from the unit element matrix `ke`
  * (8×8, E = 1, t = 1; element.ts) scaled per element by `scale[ej·ex + ei]` (E_e · t, N/mm²·mm).
- * Nodes: (ex + 1) × (ey + 1).
+ * Nodes: (ex + 1) × (ey + 1). `into`, when given and of the right length, is cleared and reused as the storage
+ * (several designs on one grid share one buffer: it is the largest array of a solve).
  */
-export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float64Array): Stencil {
+export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float64Array, into?: Float64Array): Stencil {
   const nx = ex + 1;
   const ny = ey + 1;
-  const s = new Float64Array(nx * ny * 36);
+  const s = into !== undefined && into.length === nx * ny * 36 ? into.fill(0) : new Float64Array(nx * ny * 36);
   // for each of the 16 node-pair blocks of one element: its offset in s from the element's first node, and
   // where the block starts in ke
   const off = new Int32Array(16);

@@ -30,6 +30,8 @@ export interface ResolvedEntry {
   readonly name: string | null;
   /** Nodes the selector caught. */
   readonly nodes: number;
+  /** Which nodes (n = j·(ex + 1) + i), for pictures and for whether the final geometry still reaches them. */
+  readonly nodeIds: readonly number[];
   /** For loads: the part of the force (N, [Fx, Fy]) that fell on fixed dofs and goes straight to the support. */
   readonly toSupport?: Point;
 }
@@ -209,7 +211,7 @@ export function resolveLoadCase(spec: LoadsSpec, grid: FeGrid): ResolvedLoadCase
       if (e.fix !== 'y') fixed[2 * n] = 1;
       if (e.fix !== 'x') fixed[2 * n + 1] = 1;
     }
-    return { path: e.path, name: e.name, nodes: c.nodes.length };
+    return { path: e.path, name: e.name, nodes: c.nodes.length, nodeIds: c.nodes };
   });
   const loads = spec.loads.map((e) => {
     const c = caught(e);
@@ -224,7 +226,7 @@ export function resolveLoadCase(spec: LoadsSpec, grid: FeGrid): ResolvedLoadCase
       if (fixed[2 * n + 1]) sy += fy;
       else force[2 * n + 1] += fy;
     }
-    return { path: e.path, name: e.name, nodes: c.nodes.length, toSupport: [sx, sy] as Point };
+    return { path: e.path, name: e.name, nodes: c.nodes.length, nodeIds: c.nodes, toSupport: [sx, sy] as Point };
   });
   return { fixed, force, supports, loads };
 }

@@ -10,9 +10,12 @@ import type { PassiveRecord } from '../passive/stage.js';
 import type { RepairStageRecord } from '../repair/stage.js';
 import type { Settings } from '../settings.js';
 import type { ThresholdRecord } from '../threshold/stage.js';
-import type { CheckResult, PolygonSet, Report, ReportSettings } from '../types.js';
+import type { FeAnalysis } from '../fe/analyse.js';
+import type { StructureRecord } from '../fe/stage.js';
+import { STRUCTURE_SETTINGS } from '../settings.js';
+import type { CheckResult, PolygonSet, Report, ReportSettings, StructureAnalysis, StructureReport } from '../types.js';
 import { VERSION } from '../version.js';
-import { CAUTIONS } from './cautions.js';
+import { CAUTIONS, STRUCTURE_CAUTION } from './cautions.js';
 import { summarizeGeometry } from './geometry.js';
 
 export interface ReportRecords {
@@ -30,13 +33,47 @@ export interface ReportRecords {
   readonly final: PolygonSet;
   /** Every non-fatal remark of the run, in order. */
   readonly warnings: readonly string[];
+  /** The structural re-check (`--loads`); absent or null without. */
+  readonly structure?: StructureRecord | null;
+}
+
+/** One design of the report's `structure` block (DESIGN §12 `Analysis`). */
+function analysisReport(a: FeAnalysis): StructureAnalysis {
+  const { iterations, relativeResidual, converged, seconds } = a.solver;
+  return {
+    compliance: a.compliance,
+    maxDisplacement: { value: a.maxDisplacement.value, x: a.maxDisplacement.x, y: a.maxDisplacement.y },
+    peakStress: a.peakStress === null ? null : { value: a.peakStress.value, x: a.peakStress.x, y: a.peakStress.y },
+    solver: { iterations, relativeResidual, converged, seconds },
+  };
+}
+
+/** The report's `structure` block (DESIGN §12) from the structure stage's record. */
+export function structureReport(st: StructureRecord, loadsFile: string): StructureReport {
+  const f = st.final.analysis;
+  const { penal, minStiffness } = st.spec.interpolation;
+  return {
+    loadsFile,
+    material: { E: st.spec.material.E, nu: st.spec.material.nu },
+    thickness: st.thickness,
+    interpolation: { penal, minStiffness },
+    elements: [f.elements[0], f.elements[1]],
+    elementSize: [f.elementSize[0], f.elementSize[1]],
+    coarsened: f.coarsened,
+    designs: {
+      input: analysisReport(st.input.analysis),
+      ...(st.beforeRepair ? { beforeRepair: analysisReport(st.beforeRepair.analysis) } : {}),
+      final: analysisReport(f),
+    },
+    complianceChange: st.complianceChange,
+  };
 }
 
 /** Every option, resolved for this grid: the cell size and layout read, the tolerance used, the preset's limits. */
 export function reportSettings(s: Settings, field: PreparedField, plan: CheckPlan): ReportSettings {
   // Long-form CSV infers the cell size from the coordinates: report what was used, and that it was not assumed.
   const [hx, hy] = field.grid.cellSize;
-  return {
+  const out: ReportSettings = {
     ...s,
     cellSize: [hx, hy],
     // A VTK file's spacing is its cell size unless --cell-size was given.
@@ -49,6 +86,9 @@ export function reportSettings(s: Settings, field: PreparedField, plan: CheckPla
     toolRadius: plan.limits.toolRadius,
     minHoleArea: plan.limits.minHoleArea ?? s.minHoleArea,
   };
+  // The structural re-check's options appear only when it ran, so runs without --loads keep their bytes.
+  if (s.loads === null) for (const k of STRUCTURE_SETTINGS) delete out[k];
+  return out;
 }
 
 /** The report of a run; `outputs` is empty (the CLI fills it once the files are written). */
@@ -91,6 +131,10 @@ export function assembleReport(r: ReportRecords): Report {
     };
   }
   if (r.beforeRepair) report.checksBeforeRepair = [...r.beforeRepair];
+  if (r.structure) {
+    report.structure = structureReport(r.structure, s.loads ?? r.structure.spec.file);
+    report.cautions.push(STRUCTURE_CAUTION);
+  }
   report.summary = summarize(report.checks);
   if (r.final !== smoothed.polygons) report.finishing = measureFinishing(r.final, smoothed.areaAfter, threshold.raw, field.domainArea, field.tolerance);
   return report;

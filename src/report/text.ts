@@ -8,6 +8,7 @@
 import type { CheckResult, Report } from '../types.js';
 import { numberFindings, type NumberedFinding } from '../check/findings.js';
 import { fmt, pct } from './number.js';
+import { structureLines } from './structure-text.js';
 import { limitText, processLimits, withUnit } from './units.js';
 
 export interface TextOptions {
@@ -205,7 +206,10 @@ export function formatText(r: Report, opts: TextOptions): string {
   const head = headerRows(r);
   const keyW = Math.max(...head.map(([k]) => k.length), 'result'.length + 3);
   const lines = keyValueLines(head, keyW);
-  lines.push('', ...checkLines(r, c), '', summaryLine(r, c), '');
+  lines.push('', ...checkLines(r, c), '');
+  const st = structureLines(r);
+  if (st.length > 0) lines.push(paint(c, '1', st[0]), ...st.slice(1), '');
+  lines.push(summaryLine(r, c), '');
   for (const caution of r.cautions) lines.push(...wrap(caution, TEXT_WIDTH, '         ', paint(c, '33', 'caution') + '  '));
   if (r.outputs.length > 0) {
     lines.push('');
