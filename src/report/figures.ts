@@ -4,6 +4,7 @@
  *
  * Frame: mm, y up, origin lower-left (report frame); figures flip y once (svg-figures.ts).
  */
+import type { StructureRecord } from '../fe/stage.js';
 import type { ThicknessMap } from '../morph/types.js';
 import type { DensityGrid, PolygonSet, Report } from '../types.js';
 import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
@@ -12,6 +13,7 @@ import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
 import { dataUrl, encodePng, pngDataUrl } from './png.js';
 import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';
+import { stressFigure } from './stress-figure.js';
 import {
   domainRect,
   findingMarkers,
@@ -42,6 +44,8 @@ export interface HtmlPictures {
   readonly beforeRepair?: PolygonSet;
   /** The regions the repairs changed (added or removed material, mm, y up), tinted in the repair figure. */
   readonly repaired?: PolygonSet;
+  /** The structural re-check (`--loads`): the stress figure of the final geometry. */
+  readonly structure?: StructureRecord;
   /** Older form: the final outline as a standalone SVG document, shown as an image when `polygons` is absent. */
   readonly outlineSvg?: string;
 }
@@ -134,6 +138,8 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
       figure(++n, 'fig-outline', `<img alt="final outline" src="${url}">`, `Final outline over the ${escapeHtml(size)} domain (material filled, holes cut).`),
     );
   }
+  const stress = f && p.structure ? stressFigure(p.structure, f, r.settings.allowableStress ?? null, MAX_PICTURE_SIDE) : null;
+  if (f && stress) out.push(figure(++n, 'fig-stress', planSvg(f, 'von Mises stress of the final geometry with supports, loads and the deformed outline', stress.body + scaleBar(f)), stress.caption, stress.legend));
   if (f && p.repaired && p.beforeRepair) {
     const changed = p.repaired.polygons.length > 0 ? `<g class="rp-changed">${outlinePathElement(p.repaired, f, 'rf-repaired')}</g>` : '';
     const before = `<g class="rp-before">${outlinePathElement(p.beforeRepair, f, 'rf-before')}</g>`;
