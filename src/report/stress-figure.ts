@@ -210,6 +210,8 @@ export function stressLegendSvg(max: number, allowable: number | null): string {
     const x = Math.round(px(allowable) * 10) / 10;
     parts.push(`<line class="limit" x1="${x}" y1="3" x2="${x}" y2="27"/>`);
     parts.push(`<text class="note" x="${x1 + 10}" y="19">line: allowable ${escapeHtml(fmt(allowable))} MPa</text>`);
+  } else if (allowable !== null) {
+    parts.push(`<text class="note" x="${x1 + 10}" y="19">allowable ${escapeHtml(fmt(allowable))} MPa: above the peak</text>`);
   }
   parts.push(`<text class="label" x="${x0}" y="55">von Mises stress, MPa (0 … ${escapeHtml(fmt(max))}, the peak over elements at least half full)</text>`);
   return `<svg class="legend" viewBox="0 0 ${W} ${H}" role="img" aria-label="stress colour scale in MPa">${parts.join('')}</svg>`;

@@ -33,7 +33,7 @@ describe('check registry', () => {
   it("each check's unit and comparison match the docs table", () => {
     for (const def of CHECKS) {
       const row = table.find((r) => r.id === def.id)!;
-      const unit = /mm²/.test(row.measures) ? 'mm2' : /, mm$/.test(row.measures) ? 'mm' : /%$/.test(row.measures) ? '%' : '1';
+      const unit = /mm²/.test(row.measures) ? 'mm2' : /, mm$/.test(row.measures) ? 'mm' : /%$/.test(row.measures) ? '%' : /, MPa$/.test(row.measures) ? 'MPa' : '1';
       expect(def.unit, def.id).toBe(unit);
       // docs: sizes are "thinnest / narrowest / tightest / smallest" (pass when large); errors and areas of extras pass when small
       const large = /^(thinnest|narrowest|tightest|area of the smallest)/.test(row.measures);
