@@ -83,18 +83,20 @@ export function structureDesign(start: StructureStart, polygons: PolygonSet): St
   return { analysis, reach: reachFindings(analysis, polygons, start.grid.x0, start.grid.y0) };
 }
 
-function unconverged(name: string, a: FeAnalysis): string | null {
+function unconverged(name: string, a: FeAnalysis, tol: number): string | null {
   const s = a.solver;
   if (s.converged) return null;
-  return `structural re-check: the solve of the ${name} stopped after ${s.iterations} iterations at relative residual ${s.relativeResidual.toExponential(2)} (tolerance 1e-8); its compliance, displacement and stress are approximate`;
+  const its = `${s.iterations} iteration${s.iterations === 1 ? '' : 's'}`;
+  return `structural re-check: the solve of the ${name} stopped after ${its} at relative residual ${s.relativeResidual.toExponential(2)} (tolerance ${tol.toExponential(0)}); its compliance, displacement and stress are approximate`;
 }
 
 /** The record of the stage: the designs analysed, the compliance change, the solver warnings. */
 export function structureStage(start: StructureStart, beforeRepair: StructureDesign | null, final: StructureDesign, polygons: PolygonSet): StructureRecord {
+  const tol = start.options.tol ?? 1e-8;
   const warnings = [
-    unconverged('input design', start.input.analysis),
-    beforeRepair ? unconverged('geometry before repair', beforeRepair.analysis) : null,
-    unconverged('final geometry', final.analysis),
+    unconverged('input design', start.input.analysis, tol),
+    beforeRepair ? unconverged('geometry before repair', beforeRepair.analysis, tol) : null,
+    unconverged('final geometry', final.analysis, tol),
   ].filter((w): w is string => w !== null);
   return {
     spec: start.spec,

@@ -4,6 +4,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyse } from '../../src/fe/analyse.js';
+import { structureDesign, structureStage, structureStart } from '../../src/fe/stage.js';
+import { structureLines } from '../../src/report/structure-text.js';
 import { parseLoads } from '../../src/loads/parse.js';
 import { build } from '../../src/pipeline.js';
 import { resolveSettings, type Settings } from '../../src/settings.js';
@@ -197,5 +199,21 @@ describe('load-path', () => {
     const c = r.report.checks.find((x) => x.id === 'load-path')!;
     expect(c.status).toBe('fail');
     expect(c.locations.map((l) => [l.x, l.y])).toEqual([[30, 10]]);
+  });
+});
+
+describe('solver non-convergence', () => {
+  it('a solve stopped above its tolerance is a warning and marked in the text block, never a silent number', () => {
+    const r = run(csv(40, 8, () => 1), cantilever);
+    const grid = { grid: r.grid };
+    const start = structureStart(grid, cantilever, { thickness: null, feMaxElements: 500_000 });
+    const rect = { polygons: [{ outer: [[0, 0], [40, 0], [40, 8], [0, 8]] as [number, number][], holes: [] }] };
+    const capped = structureDesign({ ...start, options: { ...start.options, maxIterations: 1, tol: 1e-15 } }, rect);
+    expect(capped.analysis.solver.converged).toBe(false);
+    const rec = structureStage(start, null, capped, rect);
+    expect(rec.warnings).toHaveLength(1);
+    expect(rec.warnings[0]).toMatch(/final geometry stopped after 1 iteration at relative residual .* approximate/);
+    const text = structureLines({ ...r.report, structure: { ...r.report.structure!, designs: { ...r.report.structure!.designs, final: { ...r.report.structure!.designs.final, solver: { ...capped.analysis.solver } } } } });
+    expect(text.join('\n')).toMatch(/NOT CONVERGED/);
   });
 });
