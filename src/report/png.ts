@@ -1,12 +1,14 @@
 /**
  * A tiny PNG encoder for the pictures of the HTML report: 8-bit samples, no interlace, filter type 0 (None)
- * on every scanline, the image data compressed by zlib (node:zlib deflateSync).
+ * on every scanline, the image data compressed by zlib (RFC 1950/1951) at level 9 with pako, a JavaScript port of
+ * zlib: the same bytes in Node and in a browser (the preview page must write the HTML report byte for byte as the
+ * CLI does; Node's own zlib is a fork whose output differs from zlib's and may differ between processors).
  *
  * Format: PNG (Portable Network Graphics) Specification, Version 1.0, T. Boutell et al., IETF RFC 2083 (1997),
  * DOI 10.17487/RFC2083; also ISO/IEC 15948:2004. Chunk CRC: CRC-32 with the reflected polynomial 0xEDB88320
  * over the chunk type and data (RFC 2083 §3.4 and Annex 15).
  */
-import { deflateSync } from 'node:zlib';
+import { deflate } from 'pako';
 
 /** PNG colour types this encoder writes: 0 grey, 2 RGB, 4 grey + alpha, 6 RGB + alpha (8 bits per sample). */
 export type PngColorType = 0 | 2 | 4 | 6;
@@ -80,7 +82,7 @@ export function encodePng(image: RasterImage): Uint8Array {
     raw[j * (stride + 1)] = 0; // filter type None
     raw.set(data.subarray(j * stride, (j + 1) * stride), j * (stride + 1) + 1);
   }
-  const idat = new Uint8Array(deflateSync(raw, { level: 9 }));
+  const idat = deflate(raw, { level: 9 });
   const parts = [
     Uint8Array.of(0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a),
     chunk('IHDR', ihdr),
