@@ -7,7 +7,7 @@ import { isCheckId } from '../src/check/ids.js';
 import { PROCESS_IDS } from '../src/check/process.js';
 import { MIRROR_EDGES, REPAIR_IDS, type MirrorEdge, type OutputFormat, type RepairName, type Settings } from '../src/settings.js';
 
-export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'batch' | 'merge' | 'help' | 'version';
+export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'batch' | 'merge' | 'preview' | 'help' | 'version';
 
 export interface CliOptions {
   outDir: string | null;
@@ -39,11 +39,11 @@ interface OptionSpec {
   apply: Handler;
 }
 
-const GRID_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'batch'];
-const RUN_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch'];
-const OUT_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch', 'merge'];
-const GEOMETRY_CMDS: readonly Command[] = ['build', 'demo', 'batch'];
-const ALL_RUN_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge'];
+const GRID_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'batch', 'preview'];
+const RUN_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch', 'preview'];
+const OUT_CMDS: readonly Command[] = ['build', 'check', 'demo', 'batch', 'merge', 'preview'];
+const GEOMETRY_CMDS: readonly Command[] = ['build', 'demo', 'batch', 'preview'];
+const ALL_RUN_CMDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge', 'preview'];
 
 function repairList(v: string): RepairName[] {
   const parts = v.split(',').map((p) => p.trim());
@@ -219,7 +219,7 @@ const OPTIONS: Record<string, OptionSpec> = {
   'no-color': { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.color = false) },
 };
 
-const COMMANDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge'];
+const COMMANDS: readonly Command[] = ['build', 'check', 'inspect', 'demo', 'batch', 'merge', 'preview'];
 
 /** Parse argv (without node and script). Throws UsageError. */
 export function parseArgs(argv: readonly string[]): ParsedArgs {

@@ -11,6 +11,8 @@ Usage:
   rhoform demo    [--out-dir <dir>]  build the bundled demo grid into ./rhoform-demo/ (with repair and its load case)
   rhoform batch   <files|folders…>   build many grids on worker threads; summary CSV + JSON (docs/scale.md)
   rhoform merge   <summary.json…>    join the summaries of sharded batch runs into one
+  rhoform preview <grid> [options]   write <name>.preview.html: the grid in a live page to tune the
+                                     settings by looking, with the same files (docs/preview.md)
   rhoform --help | --version
 
 Input:

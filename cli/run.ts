@@ -18,6 +18,7 @@ import { readGridInput } from './files.js';
 import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
+import { runPreview } from './preview.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 /** The package root, from src (cli/) or from the compiled dist/cli/. */
@@ -150,6 +151,8 @@ export function run(argv: readonly string[], io: Io): number {
       case 'merge':
         // These run on worker threads and the event loop: see runAsync.
         throw new UsageError(`${args.command} runs asynchronously; call runAsync (the rhoform binary does)`);
+      case 'preview':
+        return runPreview(args, io);
       case 'build':
         return runBuild(args, io, { file: args.files[0], writeGeometry: true, force: args.cli.force, outDir: args.cli.outDir ?? '.' });
       case 'check':

@@ -1,0 +1,120 @@
+/**
+ * `rhoform preview <grid> [options]`: writes `<name>.preview.html` into --out-dir, one self-contained page with
+ * the grid file inside (its bytes, deflated), the passive-region file, and the library bundled for the
+ * browser (dist/web/, made by `npm run build`). Every option given is the page's starting state. The page
+ * runs the same `build` as the CLI and offers the same files (docs/preview.md, DESIGN §13).
+ */
+import { existsSync, readFileSync } from 'node:fs';
+import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { deflateSync } from 'node:zlib';
+import { RhoformError } from '../src/errors.js';
+import { parsePassive } from '../src/passive/parse.js';
+import { build, loadGrid } from '../src/pipeline.js';
+import { resolveSettings } from '../src/settings.js';
+import { pageHtml } from '../web/shared/page-html.js';
+import type { Embedded } from '../web/shared/protocol.js';
+import type { ParsedArgs } from './args.js';
+import { readInput, writeOutputsAtomically } from './files.js';
+import type { Io } from './run.js';
+
+/**
+ * Largest grid a page embeds unless --max-cells says otherwise: 2000 × 1000 samples. The page holds the file
+ * (a float64 NPY of that size is 16 MB, deflated and in base64 about 15–21 MB of HTML) and the browser holds
+ * the grid several times over while it builds; beyond this a page gets slow to open and to mail.
+ */
+export const PREVIEW_MAX_CELLS = 2_000_000;
+
+const here = dirname(fileURLToPath(import.meta.url));
+
+/** The package root, from the sources (cli/) or the compiled dist/cli/. */
+function packageRoot(): string {
+  for (const up of ['..', '../..']) {
+    const root = resolve(here, up);
+    if (existsSync(join(root, 'package.json'))) return root;
+  }
+  return resolve(here, '..');
+}
+
+/** The two browser bundles, as text. */
+function bundles(): { worker: string; page: string } {
+  const dir = join(packageRoot(), 'dist', 'web');
+  const read = (name: string) => {
+    const path = join(dir, name);
+    if (!existsSync(path)) {
+      throw new RhoformError('E_INTERNAL', `the page bundle ${path} is missing: run npm run build (it bundles the library for the browser)`);
+    }
+    return readFileSync(path, 'utf8');
+  };
+  return { worker: read('preview-worker.js'), page: read('preview-page.js') };
+}
+
+function stem(file: string): string {
+  const b = basename(file);
+  const ext = extname(b);
+  return ext ? b.slice(0, -ext.length) : b;
+}
+
+/** A path as cli/run.ts shows it in report.outputs: relative to the working folder when inside it. */
+function displayPath(cwd: string, path: string): string {
+  const rel = relative(cwd, path);
+  return rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
+}
+
+/** Writes the preview page of `args.files[0]`; returns the exit code (0 written, 2 refused). */
+export function runPreview(args: ParsedArgs, io: Io): number {
+  const file = args.files[0];
+  const settings = resolveSettings(args.settings);
+  const inputPath = resolve(io.cwd, file);
+  const bytes = readInput(inputPath, file);
+  let passive: Embedded['passive'] = null;
+  let passivePath: string | null = null;
+  let regions = null;
+  if (settings.passive !== null) {
+    passivePath = resolve(io.cwd, settings.passive);
+    const pbytes = readInput(passivePath, settings.passive);
+    let text: string;
+    try {
+      text = new TextDecoder('utf-8', { fatal: true }).decode(pbytes);
+    } catch {
+      throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: settings.passive });
+    }
+    regions = parsePassive(text, settings.passive);
+    passive = { name: settings.passive, bytes: Buffer.from(pbytes).toString('base64') };
+  }
+  const { nx, ny } = loadGrid({ name: file, bytes }, settings).grid;
+  const limit = args.settings.maxCells ?? PREVIEW_MAX_CELLS;
+  if (nx * ny > limit) {
+    throw new RhoformError(
+      'E_GRID_SIZE',
+      `expected at most ${limit} samples for a preview page (it embeds the grid), found ${ny}×${nx} = ${nx * ny}; ` +
+        `give --max-cells ${nx * ny} to embed it anyway (a larger, slower page), or use rhoform build`,
+      { file },
+    );
+  }
+  // One build here, as `rhoform build` would run it: bad input or settings are refused now (exit 2), not in the page.
+  build({ name: file, bytes }, settings, { passive: regions });
+  const outDir = resolve(io.cwd, args.cli.outDir ?? '.');
+  const data: Embedded = {
+    version: 1,
+    file,
+    given: args.settings,
+    outDir: args.cli.outDir,
+    outputsBase: displayPath(io.cwd, join(outDir, stem(file))),
+    grid: deflateSync(bytes, { level: 9 }).toString('base64'),
+    gridBytes: bytes.length,
+    passive,
+    cells: nx * ny,
+  };
+  const { worker, page } = bundles();
+  const html = pageHtml({ title: `rhoform preview — ${file}`, data, worker, page });
+  const out = join(outDir, `${stem(file)}.preview.html`);
+  writeOutputsAtomically([{ path: out, content: html }], passivePath === null ? [inputPath] : [inputPath, passivePath], args.cli.force);
+  const shown = displayPath(io.cwd, out);
+  const size = Buffer.byteLength(html, 'utf8');
+  if (args.cli.json) io.stdout(`${JSON.stringify({ page: shown, bytes: size, nx, ny })}\n`);
+  else if (!args.cli.quiet) {
+    io.stdout(`wrote      ${shown} (${(size / 1e6).toFixed(2)} MB; ${nx}×${ny} grid inside; open it in a browser, no network needed)\n`);
+  }
+  return 0;
+}

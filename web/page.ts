@@ -1,0 +1,339 @@
+/**
+ * The preview page (docs/preview.md): controls, the plan view, the report panel and `window.rhoformPreview`
+ * (DESIGN §13). The state is a set of command-line options parsed by the CLI's own parser; the worker runs
+ * the library's `build` on the embedded grid and answers with the outline first, then the checks.
+ */
+import { RhoformError } from '../src/errors.js';
+import { numberFindings } from '../src/report/findings.js';
+import { fmt } from '../src/report/number.js';
+import type { Report } from '../src/types.js';
+import { Controls, type Change } from './page/controls.js';
+import { ReportPanel } from './page/panel.js';
+import { PAGE_STYLE } from './page/style.js';
+import { LAYERS, PlanView, imageOf, ringsPath, type Scene } from './page/view.js';
+import { buildCommand, optionWords, settingsOf, withChanges, type OptionWords } from './shared/options.js';
+import { OUTPUT_SUFFIX, type Embedded, type FromWorker, type ResultMessage, type ToWorker } from './shared/protocol.js';
+
+type Files = { dxf: string; svg: string; json: string; html: string };
+
+interface PreviewApi {
+  ready: Promise<void>;
+  settings(): Record<string, unknown>;
+  apply(changes: Record<string, unknown>): Promise<Report>;
+  report(): Report;
+  files(): Promise<Files>;
+}
+
+/** Grids above this many samples show a progress bar over the view while a build runs. */
+const PROGRESS_CELLS = 200_000;
+
+function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Record<string, string> = {}, text = ''): HTMLElementTagNameMap[K] {
+  const e = document.createElement(tag);
+  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, v);
+  if (text) e.textContent = text;
+  return e;
+}
+
+/** An error as the CLI prints it: a RhoformError keeps code and message; anything else is internal. */
+function asError(code: string, message: string): RhoformError {
+  const e = new RhoformError(code as RhoformError['code'], message);
+  e.message = message;
+  return e;
+}
+
+const data = JSON.parse(document.getElementById('rhoform-data')!.textContent!) as Embedded;
+const stem = data.outputsBase.split('/').pop()!;
+
+// ---- layout
+const style = el('style');
+style.textContent = PAGE_STYLE;
+document.head.append(style);
+const top = el('header', { class: 'top' });
+top.append(el('h1', {}, 'rhoform preview '), el('span', { class: 'file' }, data.file));
+const status = el('span', { class: 'status', id: 'status', role: 'status' }, 'starting…');
+top.append(status);
+const aside = el('aside', { id: 'controls' });
+const main = el('main');
+const toolbar = el('div', { class: 'toolbar' });
+const layerBox = el('div', { class: 'layers' });
+for (const l of LAYERS) {
+  const id = `layer-${l.id}`;
+  const cb = el('input', { type: 'checkbox', id });
+  cb.checked = l.on;
+  const lab = el('label', { for: id }, l.label);
+  layerBox.append(el('span', { class: 'layer' }), cb, lab);
+  cb.addEventListener('change', () => {
+    view.shown[l.id] = cb.checked;
+    view.draw();
+  });
+}
+const fitBtn = el('button', { type: 'button', id: 'fit' }, 'Fit');
+toolbar.append(layerBox, fitBtn);
+const stage = el('div', { class: 'stage' });
+const canvas = el('canvas', { id: 'view', 'aria-label': 'plan view of the part, report frame in mm' });
+const progress = el('div', { class: 'progress', id: 'progress', hidden: '' });
+const readout = el('div', { class: 'readout', id: 'readout' }, 'drag to pan · wheel to zoom · double-click to fit');
+stage.append(canvas, progress);
+const side = el('section', { class: 'side' });
+const cmdBox = el('div', { class: 'cmd' });
+const cmd = el('code', { id: 'command' });
+const copyBtn = el('button', { type: 'button', id: 'copy' }, 'Copy');
+cmdBox.append(el('span', { class: 'k' }, 'same files from the command line'), cmd, copyBtn);
+const downloads = el('div', { class: 'downloads' });
+downloads.append(el('span', { class: 'k' }, 'download'));
+for (const f of ['dxf', 'svg', 'json', 'html'] as const) {
+  const b = el('button', { type: 'button', id: `download-${f}`, 'data-format': f }, `${stem}${OUTPUT_SUFFIX[f]}`);
+  b.addEventListener('click', () => void download(f));
+  downloads.append(b);
+}
+const panelHost = el('div', { id: 'report' });
+side.append(cmdBox, downloads, panelHost);
+main.append(toolbar, stage, readout, side);
+document.body.append(top, aside, main);
+
+const view = new PlanView(canvas, readout);
+fitBtn.addEventListener('click', () => view.fit());
+const controls = new Controls(aside, data.passive !== null);
+const panel = new ReportPanel(panelHost);
+
+// ---- state
+let words: OptionWords = optionWords(data.given); // the options of the result shown
+let requested: OptionWords = words; // the options of the newest request
+let result: ResultMessage | null = null;
+let version = 0;
+const asked = new Map<number, { words: OptionWords; at: number; keys: readonly string[] }>();
+const waiters: { v: number; resolve: (r: Report) => void; reject: (e: Error) => void }[] = [];
+let filesCache: { v: number; files: Promise<Files> } | null = null;
+const filesWaiters = new Map<number, { resolve: (f: Files) => void; reject: (e: Error) => void }>();
+let outlineV = 0;
+let density: Scene['density'] = null;
+let grid: Scene['grid'] = null;
+let readyResolve!: () => void;
+let readyReject!: (e: Error) => void;
+const ready = new Promise<void>((res, rej) => {
+  readyResolve = res;
+  readyReject = rej;
+});
+
+const workerUrl = URL.createObjectURL(new Blob([document.getElementById('rhoform-worker')!.textContent!], { type: 'text/javascript' }));
+const worker = new Worker(workerUrl);
+const send = (m: ToWorker) => worker.postMessage(m);
+
+function setStatus(text: string, cls: string): void {
+  status.textContent = text;
+  status.className = `status ${cls}`;
+}
+
+function busy(): void {
+  const a = asked.get(version);
+  if (!a) return;
+  setStatus('updating…', 'busy');
+  if (data.cells > PROGRESS_CELLS) progress.hidden = false;
+}
+
+/** Sends the options as a build request; returns its version. Throws the CLI's UsageError on a bad value. */
+function request(next: OptionWords, keys: readonly string[]): number {
+  const { settings } = settingsOf(data.file, next);
+  const v = ++version;
+  requested = next;
+  asked.set(v, { words: next, at: performance.now(), keys });
+  filesCache = null;
+  send({ t: 'build', v, settings });
+  busy();
+  return v;
+}
+
+function change(changes: Change, keys: readonly string[]): Promise<Report> {
+  const c: Record<string, unknown> = { ...changes };
+  if (c.passive === 'embedded') c.passive = data.passive?.name ?? null;
+  let v: number;
+  try {
+    v = request(withChanges(requested, c, result ? result.report.settings : null, data.passive?.name ?? null), keys);
+  } catch (e) {
+    const err = e instanceof RhoformError ? e : asError('E_INTERNAL', String(e));
+    return Promise.reject(err);
+  }
+  return new Promise<Report>((resolve, reject) => waiters.push({ v, resolve, reject }));
+}
+
+controls.onChange = (c, keys) => {
+  controls.clearErrors(keys);
+  change(c, keys).catch((e: RhoformError) => {
+    const k = controls.keyOfMessage(e.message);
+    controls.showError(k && !keys.includes(k) ? [...keys, k] : keys, `${e.code}: ${e.message}`);
+  });
+};
+
+function sceneOf(r: ResultMessage, outlineOnly: Scene['outline'] | null): Scene {
+  return {
+    domain: r.domain,
+    density,
+    thickness: r.thickness ? imageOf(r.thickness) : null,
+    outline: outlineOnly ?? ringsPath(r.outline),
+    outlineOnly: outlineOnly !== null,
+    beforeRepair: r.beforeRepair ? ringsPath(r.beforeRepair) : null,
+    repaired: r.repaired ? ringsPath(r.repaired) : null,
+    passive: r.passive,
+    findings: numberFindings(r.report),
+    grid,
+  };
+}
+
+function onResult(m: ResultMessage): void {
+  const a = asked.get(m.v);
+  if (m.density) density = imageOf(m.density);
+  if (m.grid) grid = m.grid;
+  result = m;
+  words = a?.words ?? words;
+  for (const k of [...asked.keys()]) if (k <= m.v) asked.delete(k);
+  view.setScene(sceneOf(m, null));
+  document.body.dataset.result = String(m.v);
+  const r = m.report;
+  controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings, r.threshold, r.settings.passive !== null);
+  panel.show(m.reportHtml, r);
+  cmd.textContent = buildCommand(data.file, words, data.outDir);
+  const took = a ? performance.now() - a.at : m.ms;
+  if (m.v === version) {
+    progress.hidden = true;
+    const word = { pass: 'PASS', warn: 'WARN', fail: 'FAIL' }[r.summary.status];
+    setStatus(`${word} · ${r.checks.length} checks: ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed · updated in ${fmt(took, 3)} ms`, r.summary.status);
+    status.title = Object.entries(m.timings ?? {}).map(([k, t]) => `${k} ${Math.round(t)} ms`).join(', ');
+  }
+  for (let k = waiters.length - 1; k >= 0; k--) {
+    if (waiters[k].v <= m.v) {
+      waiters[k].resolve(r);
+      waiters.splice(k, 1);
+    }
+  }
+  if (m.v === 1 || document.body.dataset.ready !== 'true') {
+    document.body.dataset.ready = 'true';
+    readyResolve();
+  }
+}
+
+function onError(v: number, code: string, message: string): void {
+  const err = asError(code, message);
+  if (v === 0) {
+    setStatus(`cannot start: ${code}: ${message}`, 'fail');
+    readyReject(err);
+    return;
+  }
+  const a = asked.get(v);
+  for (const k of [...asked.keys()]) if (k <= v) asked.delete(k);
+  // back to the options of the result shown; the control keeps the bad value and shows why
+  requested = words;
+  if (a) {
+    const k = controls.keyOfMessage(message);
+    controls.showError(k ? [...new Set([...a.keys, k])] : a.keys, `${code}: ${message}`);
+  }
+  if (v === version) {
+    progress.hidden = true;
+    setStatus(`not updated: ${code}: ${message}`, 'fail');
+  }
+  for (let k = waiters.length - 1; k >= 0; k--) {
+    if (waiters[k].v <= v) {
+      waiters[k].reject(err);
+      waiters.splice(k, 1);
+    }
+  }
+  if (document.body.dataset.ready !== 'true') readyReject(err);
+}
+
+worker.onmessage = (e: MessageEvent<FromWorker>) => {
+  const m = e.data;
+  if (m.t === 'ready') {
+    try {
+      request(words, []);
+    } catch (err) {
+      onError(0, (err as RhoformError).code ?? 'E_INTERNAL', (err as Error).message);
+    }
+  } else if (m.t === 'outline') {
+    if (m.v <= outlineV || (result && m.v <= result.v)) return;
+    outlineV = m.v;
+    if (result) view.setScene(sceneOf(result, ringsPath(m.outline)));
+    document.body.dataset.outline = String(m.v);
+    setStatus('outline updated · checking…', 'busy');
+  } else if (m.t === 'result') {
+    if (m.v > outlineV) document.body.dataset.outline = String(m.v);
+    onResult(m);
+  } else if (m.t === 'files') {
+    filesWaiters.get(m.v)?.resolve(m.files);
+    filesWaiters.delete(m.v);
+  } else if (m.t === 'error') {
+    const fw = filesWaiters.get(m.v);
+    if (fw) {
+      fw.reject(asError(m.code, m.message));
+      filesWaiters.delete(m.v);
+    } else onError(m.v, m.code, m.message);
+  }
+};
+worker.onerror = (e) => {
+  e.preventDefault();
+  onError(0, 'E_INTERNAL', e.message || 'the worker stopped');
+};
+send({ t: 'init', data });
+
+panel.onFinding = (n) => {
+  const f = result ? numberFindings(result.report).find((x) => x.n === n) : undefined;
+  if (!f || !result) return;
+  const [hx, hy] = result.report.input.cellSize;
+  view.zoomTo(f.location.x, f.location.y, 16 * Math.max(hx, hy, f.location.measured || 0));
+};
+view.onFindingClick = (n) => panel.highlight(n);
+
+function files(): Promise<Files> {
+  if (!result) return Promise.reject(asError('E_INTERNAL', 'no result yet: await rhoformPreview.ready'));
+  if (result.v !== version) {
+    // a newer build is on its way: the files are those of the state the page is going to
+    return new Promise<Files>((resolve, reject) => waiters.push({ v: version, resolve: () => files().then(resolve, reject), reject }));
+  }
+  const v = result.v;
+  if (filesCache?.v === v) return filesCache.files;
+  const p = new Promise<Files>((resolve, reject) => filesWaiters.set(v, { resolve, reject }));
+  send({ t: 'files', v });
+  filesCache = { v, files: p };
+  return p;
+}
+
+async function download(f: keyof Files): Promise<void> {
+  const all = await files();
+  const type = { dxf: 'application/dxf', svg: 'image/svg+xml', json: 'application/json', html: 'text/html' }[f];
+  const url = URL.createObjectURL(new Blob([all[f]], { type }));
+  const a = el('a', { href: url, download: `${stem}${OUTPUT_SUFFIX[f]}` });
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+copyBtn.addEventListener('click', async () => {
+  const text = cmd.textContent ?? '';
+  try {
+    await navigator.clipboard.writeText(text);
+  } catch {
+    const range = document.createRange();
+    range.selectNodeContents(cmd);
+    const sel = getSelection();
+    sel?.removeAllRanges();
+    sel?.addRange(range);
+    document.execCommand('copy');
+  }
+  copyBtn.textContent = 'Copied';
+  setTimeout(() => (copyBtn.textContent = 'Copy'), 1500);
+});
+
+const api: PreviewApi = {
+  ready,
+  settings: () => structuredClone(result?.report.settings ?? {}),
+  apply: (c) => {
+    const keys = Object.keys(c ?? {}).flatMap((k) => controls.keysOf(k));
+    controls.clearErrors(keys);
+    return change(c, keys);
+  },
+  report: () => {
+    if (!result) throw asError('E_INTERNAL', 'no report yet: await rhoformPreview.ready');
+    return structuredClone(result.report);
+  },
+  files,
+};
+(window as unknown as { rhoformPreview: PreviewApi }).rhoformPreview = api;

@@ -1,0 +1,100 @@
+/**
+ * What `rhoform preview` embeds in the page, and the messages between the page and its worker. Pure data
+ * types and two small helpers; no DOM, no Node.
+ */
+import type { PassiveRegions } from '../../src/passive/types.js';
+import type { Settings } from '../../src/settings.js';
+import type { Report } from '../../src/types.js';
+
+/** The page's embedded data (JSON in a `<script type="application/json" id="rhoform-data">`). */
+export interface Embedded {
+  readonly version: 1;
+  /** The grid file's name as given on the command line (report input.file; DESIGN §13). */
+  readonly file: string;
+  /** The options given to `rhoform preview` (parseArgs(...).settings): the page's starting state. */
+  readonly given: Partial<Settings>;
+  /** `--out-dir` as given, or null (the command line shown repeats it). */
+  readonly outDir: string | null;
+  /** The output paths `rhoform build` would report, without the suffix (e.g. "out/demo-bracket"). */
+  readonly outputsBase: string;
+  /** The grid file's bytes, zlib-deflated (RFC 1950), base64. */
+  readonly grid: string;
+  /** Length of the grid file, bytes (a check on the inflated data). */
+  readonly gridBytes: number;
+  /** The passive-region file, when --passive was given: its name as given and its bytes, base64. */
+  readonly passive: { readonly name: string; readonly bytes: string } | null;
+  /** Samples of the grid (nx × ny), for the page's decision to show progress. */
+  readonly cells: number;
+}
+
+/** Suffix of each output file, as cli/run.ts names them. */
+export const OUTPUT_SUFFIX = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' } as const;
+
+/** A set of rings flattened for transfer: ring k is coords[2·start[k] … 2·start[k+1]), hole[k] = 1 for a hole. */
+export interface FlatRings {
+  readonly coords: Float64Array;
+  readonly start: Int32Array;
+  readonly hole: Uint8Array;
+}
+
+/** An image to draw in report-frame millimetres: RGBA rows from the top, covering `extent` [x0, y0, x1, y1]. */
+export interface PlacedRgba {
+  readonly width: number;
+  readonly height: number;
+  readonly rgba: Uint8ClampedArray;
+  readonly extent: readonly [number, number, number, number];
+}
+
+/** The grid as shown under the cursor: the prepared samples (values[j·nx + i], j up). */
+export interface GridView {
+  readonly nx: number;
+  readonly ny: number;
+  readonly cellSize: readonly [number, number];
+  readonly origin: readonly [number, number];
+  readonly placement: 'cells' | 'nodes';
+  readonly values: Float32Array;
+  /** Rows of the grid file (for the file row under the cursor) and whether row 1 is the top. */
+  readonly fileRows: number;
+  readonly topDown: boolean;
+  /** Unfolded by --mirror: samples beyond the file's own are mirror images. */
+  readonly mirrored: boolean;
+}
+
+export type ToWorker =
+  | { readonly t: 'init'; readonly data: Embedded }
+  | { readonly t: 'build'; readonly v: number; readonly settings: Settings }
+  | { readonly t: 'files'; readonly v: number };
+
+export interface OutlineMessage {
+  readonly t: 'outline';
+  readonly v: number;
+  readonly outline: FlatRings;
+  readonly ms: number;
+}
+
+export interface ResultMessage {
+  readonly t: 'result';
+  readonly v: number;
+  readonly report: Report;
+  /** formatHtml(report) without pictures: the page shows its summary, checks, findings and repairs. */
+  readonly reportHtml: string;
+  readonly outline: FlatRings;
+  readonly beforeRepair: FlatRings | null;
+  readonly repaired: FlatRings | null;
+  readonly domain: readonly [number, number, number, number];
+  /** Set when the grid (and so the density picture) differs from the last result's. */
+  readonly density: PlacedRgba | null;
+  readonly grid: GridView | null;
+  readonly thickness: PlacedRgba | null;
+  readonly thicknessMax: number;
+  readonly passive: PassiveRegions | null;
+  readonly ms: number;
+  readonly timings?: Record<string, number>;
+}
+
+export type FromWorker =
+  | { readonly t: 'ready'; readonly ms: number }
+  | OutlineMessage
+  | ResultMessage
+  | { readonly t: 'files'; readonly v: number; readonly files: { dxf: string; svg: string; json: string; html: string } }
+  | { readonly t: 'error'; readonly v: number; readonly code: string; readonly message: string };

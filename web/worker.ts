@@ -1,0 +1,278 @@
+/**
+ * The preview page's worker: the library's own `build` (src/pipeline.ts) on the embedded grid, off the page's
+ * thread, so the page never freezes. Each request gets two answers: the outline first (a build without the
+ * size checks and repair, which is fast), then the full result with the checks, the report and the pictures.
+ * Requests that arrive while a build runs are coalesced: only the newest is built.
+ *
+ * The files it hands back (dxf, svg, json, html) are what `rhoform build` writes with the same settings: the
+ * same code, the same input bytes, the same passive file (DESIGN §13).
+ */
+import { RhoformError } from '../src/errors.js';
+import { loadBooleanEngine } from '../src/geom/clipper.js';
+import { parsePassive } from '../src/passive/parse.js';
+import type { PassiveRegions } from '../src/passive/types.js';
+import { build, type BuildResult } from '../src/pipeline.js';
+import type { HtmlPictures } from '../src/report/html.js';
+import { formatHtml } from '../src/report/html.js';
+import { formatJson } from '../src/report/json.js';
+import { densityRaster, thicknessMax, thicknessRaster, type PlacedRaster } from '../src/report/raster.js';
+import type { Settings } from '../src/settings.js';
+import type { PolygonSet } from '../src/types.js';
+import { OUTPUT_SUFFIX, type Embedded, type FlatRings, type FromWorker, type PlacedRgba, type ToWorker } from './shared/protocol.js';
+
+interface WorkerScope {
+  onmessage: ((e: { data: ToWorker }) => void) | null;
+  postMessage(m: FromWorker, transfer?: ArrayBuffer[]): void;
+  fetch?: unknown;
+}
+const scope = self as unknown as WorkerScope;
+
+/** Longest side of the density picture, pixels. */
+const DENSITY_SIDE = 1600;
+
+let data: Embedded | null = null;
+let bytes: Uint8Array | null = null;
+let passive: PassiveRegions | null = null;
+let last: { v: number; result: BuildResult; pictures?: HtmlPictures } | null = null;
+let densityKey = '';
+let pending: { v: number; settings: Settings } | null = null;
+const filesWanted: number[] = [];
+let busy = false;
+
+function decodeBase64(b64: string): Uint8Array {
+  const s = atob(b64);
+  const out = new Uint8Array(s.length);
+  for (let k = 0; k < s.length; k++) out[k] = s.charCodeAt(k);
+  return out;
+}
+
+/** zlib inflate by the browser's own DecompressionStream (no request: the bytes are already here). */
+async function inflate(deflated: Uint8Array): Promise<Uint8Array> {
+  const stream = new Blob([deflated as BlobPart]).stream().pipeThrough(new DecompressionStream('deflate'));
+  return new Uint8Array(await new Response(stream).arrayBuffer());
+}
+
+function flatten(set: PolygonSet): FlatRings {
+  let n = 0;
+  let rings = 0;
+  for (const p of set.polygons) {
+    rings += 1 + p.holes.length;
+    n += p.outer.length + p.holes.reduce((a, h) => a + h.length, 0);
+  }
+  const coords = new Float64Array(2 * n);
+  const start = new Int32Array(rings + 1);
+  const hole = new Uint8Array(rings);
+  let o = 0;
+  let r = 0;
+  const put = (ring: readonly (readonly [number, number])[], isHole: boolean) => {
+    start[r] = o;
+    hole[r++] = isHole ? 1 : 0;
+    for (const [x, y] of ring) {
+      coords[2 * o] = x;
+      coords[2 * o + 1] = y;
+      o++;
+    }
+  };
+  for (const p of set.polygons) {
+    put(p.outer, false);
+    for (const h of p.holes) put(h, true);
+  }
+  start[rings] = o;
+  return { coords, start, hole };
+}
+
+function rgbaOf(p: PlacedRaster): PlacedRgba {
+  const { width, height, colorType, data: src } = p.image;
+  const rgba = new Uint8ClampedArray(width * height * 4);
+  for (let k = 0; k < width * height; k++) {
+    if (colorType === 6) {
+      rgba[4 * k] = src[4 * k];
+      rgba[4 * k + 1] = src[4 * k + 1];
+      rgba[4 * k + 2] = src[4 * k + 2];
+      rgba[4 * k + 3] = src[4 * k + 3];
+    } else if (colorType === 2) {
+      rgba[4 * k] = src[3 * k];
+      rgba[4 * k + 1] = src[3 * k + 1];
+      rgba[4 * k + 2] = src[3 * k + 2];
+      rgba[4 * k + 3] = 255;
+    } else {
+      const spp = colorType === 4 ? 2 : 1;
+      const g = src[spp * k];
+      rgba[4 * k] = g;
+      rgba[4 * k + 1] = g;
+      rgba[4 * k + 2] = g;
+      rgba[4 * k + 3] = spp === 2 ? src[2 * k + 1] : 255;
+    }
+  }
+  return { width, height, rgba, extent: p.extent };
+}
+
+function post(m: FromWorker, transfer: ArrayBuffer[] = []): void {
+  scope.postMessage(m, transfer);
+}
+
+function fail(v: number, e: unknown): void {
+  if (e instanceof RhoformError) post({ t: 'error', v, code: e.code, message: e.message });
+  else post({ t: 'error', v, code: 'E_INTERNAL', message: e instanceof Error ? `${e.message}\n${e.stack ?? ''}` : String(e) });
+}
+
+/** Lets queued messages in, so a newer request can supersede the one in hand. */
+function breathe(): Promise<void> {
+  return new Promise((r) => setTimeout(r, 0));
+}
+
+/** The settings of the fast first answer: the same outline, without the size checks and repair. */
+function outlineOnly(s: Settings): Settings | null {
+  const heavy = s.repair.length > 0 || s.minMember !== null || s.minHole !== null || s.toolRadius !== null || s.process !== null;
+  return heavy ? { ...s, minMember: null, minHole: null, toolRadius: null, process: null, repair: [] } : null;
+}
+
+function inputKey(s: Settings): string {
+  const { cellSize, rowOrder, values, layout, valueRange, decimalComma, nonFinite, clip, mirror, passive: p, tolerance } = s;
+  return JSON.stringify([cellSize, rowOrder, values, layout, valueRange, decimalComma, nonFinite, clip, mirror, p, tolerance]);
+}
+
+function runBuild(s: Settings): BuildResult {
+  const result = build({ name: data!.file, bytes: bytes! }, s, { passive: s.passive === null ? null : passive });
+  result.report.outputs = s.formats.map((f) => ({ file: data!.outputsBase + OUTPUT_SUFFIX[f], format: f }));
+  return result;
+}
+
+async function buildOne(v: number, s: Settings): Promise<void> {
+  const quick = outlineOnly(s);
+  if (quick) {
+    const t0 = performance.now();
+    try {
+      const r = build({ name: data!.file, bytes: bytes! }, quick, { passive: s.passive === null ? null : passive });
+      const outline = flatten(r.smoothed.polygons);
+      post({ t: 'outline', v, outline, ms: performance.now() - t0 }, [outline.coords.buffer as ArrayBuffer]);
+    } catch {
+      // the full build below reports the error with its own message
+    }
+    await breathe();
+    if (pending !== null && pending.v > v) return; // superseded
+  }
+  const t0 = performance.now();
+  let result: BuildResult;
+  try {
+    result = runBuild(s);
+
+  } catch (e) {
+    fail(v, e);
+    return;
+  }
+  last = { v, result };
+  const tp = performance.now();
+  const pictures = (last.pictures = result.pictures());
+  const T: Record<string, number> = { build: tp - t0, ...result.timings, pictures: performance.now() - tp };
+  const report = result.report;
+  const key = inputKey(s);
+  const density = key === densityKey ? null : rgbaOf(densityRaster(result.grid, DENSITY_SIDE));
+  densityKey = key;
+  const g = result.grid;
+  const grid =
+    density === null
+      ? null
+      : {
+          nx: g.nx,
+          ny: g.ny,
+          cellSize: g.cellSize,
+          origin: g.origin,
+          placement: g.placement ?? 'cells',
+          values: Float32Array.from(g.values),
+          fileRows: report.input.ny,
+          topDown: s.rowOrder === 'top-down',
+          mirrored: s.mirror.length > 0,
+        };
+  const map = pictures.thickness;
+  const tmax = map ? thicknessMax(map) : 0;
+  const minMember = report.settings.minMember;
+  const thickness = map ? rgbaOf(thicknessRaster(map, { max: tmax, limit: typeof minMember === 'number' ? minMember : null })) : null;
+  const outline = flatten(pictures.polygons ?? { polygons: [] });
+  const beforeRepair = pictures.beforeRepair ? flatten(pictures.beforeRepair) : null;
+  const repaired = pictures.repaired ? flatten(pictures.repaired) : null;
+  const transfer = [outline, beforeRepair, repaired].flatMap((f) => (f ? [f.coords.buffer as ArrayBuffer] : []));
+  for (const p of [density, thickness]) if (p) transfer.push(p.rgba.buffer as ArrayBuffer);
+  if (grid) transfer.push(grid.values.buffer as ArrayBuffer);
+  post(
+    {
+      t: 'result',
+      v,
+      report,
+      reportHtml: formatHtml(report),
+      outline,
+      beforeRepair,
+      repaired,
+      domain: pictures.domain ?? [0, 0, 0, 0],
+      density,
+      grid,
+      thickness,
+      thicknessMax: tmax,
+      passive: s.passive === null ? null : passive,
+      ms: performance.now() - t0,
+      timings: T,
+    },
+    transfer,
+  );
+}
+
+function files(v: number): void {
+  if (last === null || last.v !== v) {
+    post({ t: 'error', v, code: 'E_INTERNAL', message: `the files of build ${v} are gone: a newer build replaced them` });
+    return;
+  }
+  const r = last.result;
+  try {
+    post({ t: 'files', v, files: { dxf: r.dxf(), svg: r.svg(), json: formatJson(r.report), html: formatHtml(r.report, (last.pictures ??= r.pictures())) } });
+  } catch (e) {
+    fail(v, e);
+  }
+}
+
+async function pump(): Promise<void> {
+  if (busy) return;
+  busy = true;
+  try {
+    for (;;) {
+      if (pending !== null) {
+        const { v, settings } = pending;
+        pending = null;
+        await buildOne(v, settings);
+        await breathe();
+      } else if (filesWanted.length > 0) {
+        files(filesWanted.shift()!);
+      } else break;
+    }
+  } finally {
+    busy = false;
+  }
+}
+
+async function init(d: Embedded): Promise<void> {
+  const t0 = performance.now();
+  data = d;
+  // The boolean engine embeds its WebAssembly as a data: URL and would fetch() it; without fetch it decodes it
+  // in place. The worker needs no fetch at all, so none is left to it.
+  scope.fetch = undefined;
+  const [grid] = await Promise.all([inflate(decodeBase64(d.grid)), loadBooleanEngine()]);
+  if (grid.length !== d.gridBytes) throw new RhoformError('E_INTERNAL', `embedded grid: expected ${d.gridBytes} bytes, found ${grid.length}`);
+  bytes = grid;
+  if (d.passive) {
+    const text = new TextDecoder('utf-8', { fatal: true }).decode(decodeBase64(d.passive.bytes));
+    passive = parsePassive(text, d.passive.name);
+  }
+  post({ t: 'ready', ms: performance.now() - t0 });
+}
+
+scope.onmessage = (e) => {
+  const m = e.data;
+  if (m.t === 'init') {
+    init(m.data).catch((err) => fail(0, err));
+  } else if (m.t === 'build') {
+    pending = { v: m.v, settings: m.settings };
+    void pump();
+  } else if (m.t === 'files') {
+    filesWanted.push(m.v);
+    void pump();
+  }
+};
