@@ -12,7 +12,7 @@ import { ReportPanel } from './page/panel.js';
 import { PAGE_STYLE } from './page/style.js';
 import { LAYERS, PlanView, imageOf, ringsPath, type Scene } from './page/view.js';
 import { buildCommand, optionWords, settingsOf, withChanges, type OptionWords } from './shared/options.js';
-import { OUTPUT_SUFFIX, type Embedded, type FromWorker, type ResultMessage, type ToWorker } from './shared/protocol.js';
+import { OUTPUT_SUFFIX, type Embedded, type FromWorker, type PicturesMessage, type ReportMessage, type ToWorker } from './shared/protocol.js';
 
 type Files = { dxf: string; svg: string; json: string; html: string };
 
@@ -99,13 +99,16 @@ const panel = new ReportPanel(panelHost);
 // ---- state
 let words: OptionWords = optionWords(data.given); // the options of the result shown
 let requested: OptionWords = words; // the options of the newest request
-let result: ResultMessage | null = null;
+let result: ReportMessage | null = null; // the report shown
+/** The pictures shown (paths and images made once per message). */
+let pics: { v: number; m: PicturesMessage; outline: Path2D; beforeRepair: Path2D | null; repaired: Path2D | null; thickness: Scene['thickness'] } | null = null;
+/** The newest outline, when newer than the pictures (the fast first answer, or the report's own). */
+let newest: { v: number; path: Path2D } | null = null;
 let version = 0;
 const asked = new Map<number, { words: OptionWords; at: number; keys: readonly string[] }>();
 const waiters: { v: number; resolve: (r: Report) => void; reject: (e: Error) => void }[] = [];
 let filesCache: { v: number; files: Promise<Files> } | null = null;
 const filesWaiters = new Map<number, { resolve: (f: Files) => void; reject: (e: Error) => void }>();
-let outlineV = 0;
 let density: Scene['density'] = null;
 let grid: Scene['grid'] = null;
 let readyResolve!: () => void;
@@ -164,29 +167,54 @@ controls.onChange = (c, keys) => {
   });
 };
 
-function sceneOf(r: ResultMessage, outlineOnly: Scene['outline'] | null): Scene {
-  return {
-    domain: r.domain,
+function drawScene(): void {
+  if (!pics) return;
+  const fresh = newest !== null && newest.v > pics.v ? newest : null;
+  view.setScene({
+    domain: pics.m.domain,
     density,
-    thickness: r.thickness ? imageOf(r.thickness) : null,
-    outline: outlineOnly ?? ringsPath(r.outline),
-    outlineOnly: outlineOnly !== null,
-    beforeRepair: r.beforeRepair ? ringsPath(r.beforeRepair) : null,
-    repaired: r.repaired ? ringsPath(r.repaired) : null,
-    passive: r.passive,
-    findings: numberFindings(r.report),
+    thickness: pics.thickness,
+    outline: fresh?.path ?? pics.outline,
+    outlineOnly: fresh !== null && (!result || result.v < fresh.v),
+    beforeRepair: fresh ? null : pics.beforeRepair,
+    repaired: fresh ? null : pics.repaired,
+    passive: pics.m.passive,
+    findings: result ? numberFindings(result.report) : [],
     grid,
-  };
+  });
 }
 
-function onResult(m: ResultMessage): void {
-  const a = asked.get(m.v);
+function onOutline(v: number, path: Path2D): void {
+  if (newest && v <= newest.v) return;
+  newest = { v, path };
+  drawScene();
+  document.body.dataset.outline = String(v);
+}
+
+function onPictures(m: PicturesMessage): void {
   if (m.density) density = imageOf(m.density);
   if (m.grid) grid = m.grid;
+  pics = {
+    v: m.v,
+    m,
+    outline: ringsPath(m.outline),
+    beforeRepair: m.beforeRepair ? ringsPath(m.beforeRepair) : null,
+    repaired: m.repaired ? ringsPath(m.repaired) : null,
+    thickness: m.thickness ? imageOf(m.thickness) : null,
+  };
+  drawScene();
+  if (!newest || m.v > newest.v) document.body.dataset.outline = String(m.v);
+  document.body.dataset.pictures = String(m.v);
+  settle();
+}
+
+function onReport(m: ReportMessage): void {
+  const a = asked.get(m.v);
   result = m;
   words = a?.words ?? words;
   for (const k of [...asked.keys()]) if (k <= m.v) asked.delete(k);
-  view.setScene(sceneOf(m, null));
+  if (m.outline) onOutline(m.v, ringsPath(m.outline));
+  else drawScene();
   document.body.dataset.result = String(m.v);
   const r = m.report;
   controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings, r.threshold, r.settings.passive !== null);
@@ -197,7 +225,7 @@ function onResult(m: ResultMessage): void {
     progress.hidden = true;
     const word = { pass: 'PASS', warn: 'WARN', fail: 'FAIL' }[r.summary.status];
     setStatus(`${word} · ${r.checks.length} checks: ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed · updated in ${fmt(took, 3)} ms`, r.summary.status);
-    status.title = Object.entries(m.timings ?? {}).map(([k, t]) => `${k} ${Math.round(t)} ms`).join(', ');
+    status.title = Object.entries(m.timings).map(([k, t]) => `${k} ${Math.round(t)} ms`).join(', ');
   }
   for (let k = waiters.length - 1; k >= 0; k--) {
     if (waiters[k].v <= m.v) {
@@ -205,7 +233,12 @@ function onResult(m: ResultMessage): void {
       waiters.splice(k, 1);
     }
   }
-  if (m.v === 1 || document.body.dataset.ready !== 'true') {
+  settle();
+}
+
+/** The first build is done when its report and its pictures are shown. */
+function settle(): void {
+  if (result && pics && document.body.dataset.ready !== 'true') {
     document.body.dataset.ready = 'true';
     readyResolve();
   }
@@ -248,14 +281,13 @@ worker.onmessage = (e: MessageEvent<FromWorker>) => {
       onError(0, (err as RhoformError).code ?? 'E_INTERNAL', (err as Error).message);
     }
   } else if (m.t === 'outline') {
-    if (m.v <= outlineV || (result && m.v <= result.v)) return;
-    outlineV = m.v;
-    if (result) view.setScene(sceneOf(result, ringsPath(m.outline)));
-    document.body.dataset.outline = String(m.v);
-    setStatus('outline updated · checking…', 'busy');
-  } else if (m.t === 'result') {
-    if (m.v > outlineV) document.body.dataset.outline = String(m.v);
-    onResult(m);
+    if (result && m.v <= result.v) return;
+    onOutline(m.v, ringsPath(m.outline));
+    if (m.v === version) setStatus('outline updated · checking…', 'busy');
+  } else if (m.t === 'report') {
+    onReport(m);
+  } else if (m.t === 'pictures') {
+    onPictures(m);
   } else if (m.t === 'files') {
     filesWaiters.get(m.v)?.resolve(m.files);
     filesWaiters.delete(m.v);

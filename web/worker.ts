@@ -156,16 +156,25 @@ async function buildOne(v: number, s: Settings): Promise<void> {
   let result: BuildResult;
   try {
     result = runBuild(s);
-
   } catch (e) {
     fail(v, e);
     return;
   }
   last = { v, result };
+  const report = result.report;
+  const tb = performance.now();
+  // Without a fast first answer, the smoothed outline is the one written unless passive regions, --mirror or
+  // --repair finish it: then the pictures bring it.
+  const plain = s.passive === null && s.mirror.length === 0 && s.repair.length === 0;
+  const early = quick === null && plain ? flatten(result.smoothed.polygons) : null;
+  post(
+    { t: 'report', v, report, reportHtml: formatHtml(report), outline: early, ms: tb - t0, timings: { build: tb - t0, ...result.timings } },
+    early ? [early.coords.buffer as ArrayBuffer] : [],
+  );
+  await breathe();
+  if ((pending !== null && pending.v > v) || last.v !== v) return; // superseded: its pictures are not needed
   const tp = performance.now();
   const pictures = (last.pictures = result.pictures());
-  const T: Record<string, number> = { build: tp - t0, ...result.timings, pictures: performance.now() - tp };
-  const report = result.report;
   const key = inputKey(s);
   const density = key === densityKey ? null : rgbaOf(densityRaster(result.grid, DENSITY_SIDE));
   densityKey = key;
@@ -196,10 +205,8 @@ async function buildOne(v: number, s: Settings): Promise<void> {
   if (grid) transfer.push(grid.values.buffer as ArrayBuffer);
   post(
     {
-      t: 'result',
+      t: 'pictures',
       v,
-      report,
-      reportHtml: formatHtml(report),
       outline,
       beforeRepair,
       repaired,
@@ -209,8 +216,7 @@ async function buildOne(v: number, s: Settings): Promise<void> {
       thickness,
       thicknessMax: tmax,
       passive: s.passive === null ? null : passive,
-      ms: performance.now() - t0,
-      timings: T,
+      ms: performance.now() - tp,
     },
     transfer,
   );

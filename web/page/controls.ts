@@ -230,7 +230,7 @@ export class Controls {
       else if (key === 'level') shown = threshold.level;
       else if (typeof resolved[key] === 'number') shown = resolved[key] as number;
       inp.placeholder = shown === null ? 'off' : `${fmt(shown, 5)}${g === undefined ? (key === 'volumeFraction' ? ' (mean)' : key === 'level' ? ' (found)' : '') : ''}`;
-      if (c.slider && shown !== null && document.activeElement !== c.slider) c.slider.value = String(shown);
+      if (c.slider && shown !== null && !c.slider.matches(':active')) c.slider.value = String(shown);
     }
   }
 }

@@ -72,29 +72,41 @@ export interface OutlineMessage {
   readonly ms: number;
 }
 
-export interface ResultMessage {
-  readonly t: 'result';
+/** The report of a full build (checks, repair): sent as soon as the build ends, before its pictures. */
+export interface ReportMessage {
+  readonly t: 'report';
   readonly v: number;
   readonly report: Report;
   /** formatHtml(report) without pictures: the page shows its summary, checks, findings and repairs. */
   readonly reportHtml: string;
+  /** The outline, when no fast first answer was sent (then the written outline is the smoothed one). */
+  readonly outline: FlatRings | null;
+  readonly ms: number;
+  /** Milliseconds per stage of the build (BuildResult.timings, plus 'build'). */
+  readonly timings: Record<string, number>;
+}
+
+/** The pictures of a full build: the written outline, the outline before repair, the density and thickness. */
+export interface PicturesMessage {
+  readonly t: 'pictures';
+  readonly v: number;
   readonly outline: FlatRings;
   readonly beforeRepair: FlatRings | null;
   readonly repaired: FlatRings | null;
   readonly domain: readonly [number, number, number, number];
-  /** Set when the grid (and so the density picture) differs from the last result's. */
+  /** Set when the grid (and so the density picture) differs from the last one sent. */
   readonly density: PlacedRgba | null;
   readonly grid: GridView | null;
   readonly thickness: PlacedRgba | null;
   readonly thicknessMax: number;
   readonly passive: PassiveRegions | null;
   readonly ms: number;
-  readonly timings?: Record<string, number>;
 }
 
 export type FromWorker =
   | { readonly t: 'ready'; readonly ms: number }
   | OutlineMessage
-  | ResultMessage
+  | ReportMessage
+  | PicturesMessage
   | { readonly t: 'files'; readonly v: number; readonly files: { dxf: string; svg: string; json: string; html: string } }
   | { readonly t: 'error'; readonly v: number; readonly code: string; readonly message: string };
