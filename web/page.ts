@@ -61,13 +61,28 @@ for (const l of LAYERS) {
   const cb = el('input', { type: 'checkbox', id });
   cb.checked = l.on;
   const lab = el('label', { for: id }, l.label);
-  layerBox.append(el('span', { class: 'layer' }), cb, lab);
+  layerBox.append(cb, el('span', { class: `sw sw-${l.id}`, 'aria-hidden': 'true' }), lab);
   cb.addEventListener('change', () => {
     view.shown[l.id] = cb.checked;
     view.draw();
+    legend();
   });
 }
 const fitBtn = el('button', { type: 'button', id: 'fit' }, 'Fit');
+const key = el('div', { class: 'legend', id: 'legend' });
+/** What the colours mean, for the layers shown. */
+function legend(): void {
+  const parts: string[] = [];
+  if (view.shown.density) parts.push('density: white 0 … dark grey 1');
+  if (view.shown.thickness && pics?.m.thickness) {
+    const lim = result?.report.settings.minMember;
+    parts.push(`local thickness 0 … ${fmt(pics.m.thicknessMax, 3)} mm (purple → yellow)${typeof lim === 'number' ? `, red below ${fmt(lim)} mm` : ''}`);
+  } else if (view.shown.thickness) parts.push('no thickness map for these settings');
+  if (view.shown.outline) parts.push('blue: outline written (orange while the checks run)');
+  if (view.shown.repair && pics?.repaired) parts.push('green: material the repair changed, dashed grey: outline before repair');
+  if (view.shown.passive && pics?.m.passive) parts.push('purple: passive solid, dashed orange: passive void');
+  key.textContent = parts.join(' · ');
+}
 toolbar.append(layerBox, fitBtn);
 const stage = el('div', { class: 'stage' });
 const canvas = el('canvas', { id: 'view', 'aria-label': 'plan view of the part, report frame in mm' });
@@ -88,7 +103,7 @@ for (const f of ['dxf', 'svg', 'json', 'html'] as const) {
 }
 const panelHost = el('div', { id: 'report' });
 side.append(cmdBox, downloads, panelHost);
-main.append(toolbar, stage, readout, side);
+main.append(toolbar, key, stage, readout, side);
 document.body.append(top, aside, main);
 
 const view = new PlanView(canvas, readout);
@@ -205,6 +220,7 @@ function onPictures(m: PicturesMessage): void {
   drawScene();
   if (!newest || m.v > newest.v) document.body.dataset.outline = String(m.v);
   document.body.dataset.pictures = String(m.v);
+  legend();
   settle();
 }
 

@@ -30,6 +30,11 @@ main{grid-area:main;overflow:auto;display:flex;flex-direction:column;min-width:0
 .layers{display:flex;flex-wrap:wrap;align-items:center;gap:.15rem .3rem;font-size:.85rem}.layers label{margin-right:.5rem}
 button{font:inherit;font-size:.85rem;padding:.15rem .6rem;border:1px solid #b9c1ca;border-radius:3px;background:#fff;cursor:pointer}
 button:hover{background:#eef3fb}
+.sw{display:inline-block;width:.8em;height:.8em;border-radius:2px;margin-right:.15rem;vertical-align:-.05em}
+.sw-density{background:linear-gradient(90deg,#fff,#373737);border:1px solid #b9c1ca}.sw-thickness{background:linear-gradient(90deg,#440154,#21918c,#fde725)}
+.sw-outline{background:rgba(11,92,192,.25);border:1.5px solid #0b5cc0}.sw-repair{background:rgba(20,150,60,.55)}
+.sw-passive{border:1.5px solid #6a2c91}.sw-findings{border:2px solid #d01c1c;border-radius:50%}
+.legend{flex:0 0 auto;font-size:.78rem;color:var(--muted);padding:.15rem .7rem;min-height:1.3em}
 .stage{position:relative;flex:0 0 auto;height:52vh;min-height:260px}
 canvas#view{display:block;width:100%;height:100%;cursor:grab;touch-action:none}
 canvas#view.dragging{cursor:grabbing}
