@@ -376,7 +376,16 @@ const api: PreviewApi = {
   apply: (c) => {
     const keys = Object.keys(c ?? {}).flatMap((k) => controls.keysOf(k));
     controls.clearErrors(keys);
-    return change(c, keys);
+    const p = change(c, keys);
+    p.catch((e: RhoformError) => {
+      // shown where a user would look: the refused value in its control, with the CLI's message under it
+      for (const [k, v] of Object.entries(c ?? {})) controls.showValue(k, v);
+      if (keys.length > 0 || controls.keyOfMessage(e.message)) {
+        const k = controls.keyOfMessage(e.message);
+        controls.showError(k && !keys.includes(k) ? [...keys, k] : keys, `${e.code}: ${e.message}`);
+      }
+    });
+    return p;
   },
   report: () => {
     if (!result) throw asError('E_INTERNAL', 'no report yet: await rhoformPreview.ready');

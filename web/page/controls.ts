@@ -185,6 +185,13 @@ export class Controls {
     }
   }
 
+  /** Puts a value set by a script into its text control (so a refused value shows where it is refused). */
+  showValue(key: string, value: unknown): void {
+    const c = this.controls.get(key);
+    if (!c || c.spec.kind !== 'text') return;
+    c.input.value = value === null || value === undefined ? '' : typeof value === 'string' ? value : JSON.stringify(value);
+  }
+
   clearErrors(keys?: readonly string[]): void {
     for (const [k, c] of this.controls) {
       if (keys && !keys.includes(k)) continue;
