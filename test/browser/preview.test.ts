@@ -280,7 +280,7 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     expect(await page.evaluate('window.rhoformPreview.settings()')).toEqual(before.settings);
   });
 
-  it('layers hide and show, a finding row zooms the view to it, and the cursor shows mm, row, column and density', async () => {
+  it('layers hide and show; a finding row zooms to it; wheel, drag and double-click; passive regions off and on; the cursor shows mm, row, column and density', async () => {
     const shot = () => page.locator('#view').screenshot();
     await page.evaluate('window.rhoformPreview.apply({ volumeFraction: null, minMember: 8, repair: [] })');
     await settled();
@@ -303,6 +303,29 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     await page.click('#fit');
     expect((await shot()).equals(base)).toBe(true);
     const box = (await page.locator('#view').boundingBox())!;
+    // wheel zooms about the cursor, a drag pans, a double-click fits again
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.wheel(0, -400);
+    const wheeled = await shot();
+    expect(wheeled.equals(base)).toBe(false);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width / 2 + 80, box.y + box.height / 2 + 30, { steps: 4 });
+    await page.mouse.up();
+    expect((await shot()).equals(wheeled)).toBe(false);
+    await page.dblclick('#view');
+    expect((await shot()).equals(base)).toBe(true);
+    // the passive regions switched off and on again: the option leaves and returns, the checks follow
+    let v = await resultVersion();
+    await page.click('#ctl-passive');
+    await nextResult(v);
+    expect((await report()).settings.passive).toBeNull();
+    expect(await command()).not.toContain('--passive');
+    v = await resultVersion();
+    await page.click('#ctl-passive');
+    await nextResult(v);
+    expect((await report()).settings.passive).toBe(PASSIVE);
+    expect(await command()).toContain(`--passive ${PASSIVE}`);
+    await settled();
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     expect(await page.locator('#readout').textContent()).toMatch(/^x [\d.]+ mm {2}y [\d.]+ mm {2}· {2}cell: file row \d+, col \d+ {2}· {2}density [\d.e-]+$/);
   });
