@@ -165,6 +165,17 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     const cliFiles = buildAsShown(await command());
     const got = await files();
     for (const f of Object.keys(SUFFIX) as (keyof Files)[]) expect(got[f] === cliFiles[f], `${f}: ${firstDiff(got[f], cliFiles[f])}`).toBe(true);
+    // the summary line, the check table and the findings read as in the HTML report the CLI wrote (opened in
+    // the same browser)
+    const shown = async (p: Page) => ({
+      result: await p.locator('.result').innerText(),
+      checks: await p.locator('table.checks').innerText(),
+      repairs: await p.locator('table.repairs').innerText(),
+    });
+    const reportPage = await context.newPage();
+    await reportPage.setContent(cliFiles.html, { waitUntil: 'load' });
+    expect(await shown(page)).toEqual(await shown(reportPage));
+    await reportPage.close();
     for (const f of Object.keys(SUFFIX) as (keyof Files)[]) {
       const [dl] = await Promise.all([page.waitForEvent('download'), page.click(`#download-${f}`)]);
       expect(dl.suggestedFilename()).toBe(`demo-bracket${SUFFIX[f]}`);
