@@ -16,7 +16,7 @@ import { pageHtml } from '../web/shared/page-html.js';
 import type { Embedded } from '../web/shared/protocol.js';
 import type { ParsedArgs } from './args.js';
 import { readInput, writeOutputsAtomically } from './files.js';
-import type { Io } from './run.js';
+import type { Io } from './io.js';
 
 /**
  * Largest grid a page embeds unless --max-cells says otherwise: 2000 × 1000 samples. The page holds the file

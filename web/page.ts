@@ -4,7 +4,7 @@
  * the library's `build` on the embedded grid and answers with the outline first, then the checks.
  */
 import { RhoformError } from '../src/errors.js';
-import { numberFindings } from '../src/report/findings.js';
+import { numberFindings } from '../src/check/findings.js';
 import { fmt } from '../src/report/number.js';
 import type { Report } from '../src/types.js';
 import { Controls, type Change } from './page/controls.js';
@@ -166,7 +166,7 @@ function change(changes: Change, keys: readonly string[]): Promise<Report> {
   if (c.passive === 'embedded') c.passive = data.passive?.name ?? null;
   let v: number;
   try {
-    v = request(withChanges(requested, c, result ? result.report.settings : null, data.passive?.name ?? null), keys);
+    v = request(withChanges(requested, c, result ? (result.report.settings as unknown as Record<string, unknown>) : null, data.passive?.name ?? null), keys);
   } catch (e) {
     const err = e instanceof RhoformError ? e : asError('E_INTERNAL', String(e));
     return Promise.reject(err);
@@ -233,7 +233,7 @@ function onReport(m: ReportMessage): void {
   else drawScene();
   document.body.dataset.result = String(m.v);
   const r = m.report;
-  controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings, r.threshold, r.settings.passive !== null);
+  controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings as unknown as Record<string, unknown>, r.threshold, r.settings.passive !== null);
   panel.show(m.reportHtml, r);
   cmd.textContent = buildCommand(data.file, words, data.outDir);
   const took = a ? performance.now() - a.at : m.ms;

@@ -4,7 +4,7 @@
  * material repair changed), passive regions, numbered findings — pan (drag), zoom (wheel, about the cursor),
  * fit, a scale bar, and the cursor's coordinates with the grid cell under it.
  */
-import type { NumberedFinding } from '../../src/report/findings.js';
+import type { NumberedFinding } from '../../src/check/findings.js';
 import { fmt } from '../../src/report/number.js';
 import type { PassiveRegions } from '../../src/passive/types.js';
 import type { FlatRings, GridView, PlacedRgba } from '../shared/protocol.js';
