@@ -306,6 +306,10 @@ export class PlanView {
     const L = len * this.s;
     const bx = 14;
     const by = h - 16;
+    g.font = '12px system-ui, sans-serif';
+    const label = `${fmt(len)} mm`;
+    g.fillStyle = 'rgba(255,255,255,.85)';
+    g.fillRect(bx - 6, by - 11, L + g.measureText(label).width + 20, 22);
     g.strokeStyle = '#1d232b';
     g.lineWidth = 1.5;
     g.beginPath();
@@ -317,7 +321,6 @@ export class PlanView {
     g.lineTo(bx + L, by + 4);
     g.stroke();
     g.fillStyle = '#1d232b';
-    g.font = '12px system-ui, sans-serif';
-    g.fillText(`${fmt(len)} mm`, bx + L + 6, by);
+    g.fillText(label, bx + L + 6, by);
   }
 }
