@@ -5,18 +5,18 @@
  * runs the same `build` as the CLI and offers the same files (docs/preview.md, DESIGN §13).
  */
 import { existsSync, readFileSync } from 'node:fs';
-import { basename, dirname, extname, isAbsolute, join, relative, resolve } from 'node:path';
+import { basename, dirname, extname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { deflateSync } from 'node:zlib';
 import { RhoformError } from '../src/errors.js';
-import { parsePassive } from '../src/passive/parse.js';
+import { parsePassiveBytes } from '../src/passive/parse.js';
 import { build, loadGrid } from '../src/pipeline.js';
 import { resolveSettings } from '../src/settings.js';
 import { pageHtml } from '../web/shared/page-html.js';
 import type { Embedded } from '../web/shared/protocol.js';
 import type { ParsedArgs } from './args.js';
-import { readInput, writeOutputsAtomically } from './files.js';
-import type { Io } from './io.js';
+import { readGridInput, readInput, writeOutputsAtomically } from './files.js';
+import { displayPath, type Io } from './io.js';
 
 /**
  * Largest grid a page embeds unless --max-cells says otherwise: 2000 × 1000 samples. The page holds the file
@@ -55,31 +55,20 @@ function stem(file: string): string {
   return ext ? b.slice(0, -ext.length) : b;
 }
 
-/** A path as cli/run.ts shows it in report.outputs: relative to the working folder when inside it. */
-function displayPath(cwd: string, path: string): string {
-  const rel = relative(cwd, path);
-  return rel && !rel.startsWith('..') && !isAbsolute(rel) ? rel : path;
-}
-
 /** Writes the preview page of `args.files[0]`; returns the exit code (0 written, 2 refused). */
 export function runPreview(args: ParsedArgs, io: Io): number {
   const file = args.files[0];
   const settings = resolveSettings(args.settings);
   const inputPath = resolve(io.cwd, file);
-  const bytes = readInput(inputPath, file);
+  // Read as `rhoform build` reads (cli/build-file.ts): the grid bounded by --max-cells, the passive file by its size.
+  const bytes = readGridInput(inputPath, file, settings.maxCells);
   let passive: Embedded['passive'] = null;
   let passivePath: string | null = null;
   let regions = null;
   if (settings.passive !== null) {
     passivePath = resolve(io.cwd, settings.passive);
-    const pbytes = readInput(passivePath, settings.passive);
-    let text: string;
-    try {
-      text = new TextDecoder('utf-8', { fatal: true }).decode(pbytes);
-    } catch {
-      throw new RhoformError('E_PASSIVE_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: settings.passive });
-    }
-    regions = parsePassive(text, settings.passive);
+    const pbytes = readInput(passivePath, settings.passive, { what: 'passive-region file' });
+    regions = parsePassiveBytes(pbytes, settings.passive);
     passive = { name: settings.passive, bytes: Buffer.from(pbytes).toString('base64') };
   }
   const { nx, ny } = loadGrid({ name: file, bytes }, settings).grid;

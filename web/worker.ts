@@ -9,7 +9,7 @@
  */
 import { RhoformError } from '../src/errors.js';
 import { loadBooleanEngine } from '../src/geom/clipper.js';
-import { parsePassive } from '../src/passive/parse.js';
+import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
 import { build, type BuildResult } from '../src/pipeline.js';
 import type { HtmlPictures } from '../src/report/html.js';
@@ -264,8 +264,7 @@ async function init(d: Embedded): Promise<void> {
   if (grid.length !== d.gridBytes) throw new RhoformError('E_INTERNAL', `embedded grid: expected ${d.gridBytes} bytes, found ${grid.length}`);
   bytes = grid;
   if (d.passive) {
-    const text = new TextDecoder('utf-8', { fatal: true }).decode(decodeBase64(d.passive.bytes));
-    passive = parsePassive(text, d.passive.name);
+    passive = parsePassiveBytes(decodeBase64(d.passive.bytes), d.passive.name);
   }
   post({ t: 'ready', ms: performance.now() - t0 });
 }
