@@ -3,8 +3,9 @@
  * (web/worker.ts → dist/web/preview-worker.js) and the page script (web/page.ts → dist/web/preview-page.js),
  * each one self-contained IIFE that `rhoform preview` inlines into the page. Run by `npm run build`.
  *
- * The library is pure TypeScript; two Node built-ins it uses get browser stand-ins that do only what it needs
- * (web/shims/): node:crypto's sha256 (the report's input.sha256) and Buffer's base64 (PNG data URLs).
+ * The library is pure TypeScript; the Node built-ins it uses get browser stand-ins that do only what it needs
+ * (web/shims/): node:crypto's sha256 (the report's input.sha256), node:zlib's inflateSync (MAT and VTI readers) and
+ * Buffer's base64 (PNG data URLs).
  * js-angusj-clipper is taken in its web build (WebAssembly embedded as a data: URL); its asm.js fallback is
  * left out (every browser the page targets runs WebAssembly), which halves its size.
  */
@@ -19,6 +20,7 @@ const browserPlugin = {
   name: 'rhoform-browser',
   setup(b) {
     b.onResolve({ filter: /^node:crypto$/ }, () => ({ path: join(root, 'web/shims/crypto.ts') }));
+    b.onResolve({ filter: /^node:zlib$/ }, () => ({ path: join(root, 'web/shims/zlib.ts') }));
     b.onResolve({ filter: /^js-angusj-clipper$/ }, () => ({ path: join(root, 'node_modules/js-angusj-clipper/web/index.js') }));
     b.onResolve({ filter: /^\.\/wasm\/clipper$/ }, (a) =>
       a.importer.includes('js-angusj-clipper') ? { path: 'asmjs-fallback', namespace: 'rhoform-empty' } : undefined,

@@ -8,7 +8,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'no
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { inflateSync } from 'node:zlib';
+import { constants as nodeConstants, deflateSync, inflateSync, inflateSync as nodeInflate } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseArgs } from '../../cli/args.js';
 import { resolveSettings } from '../../src/settings.js';
@@ -17,6 +17,7 @@ import { buildCommand, optionWords, settingsOf, withChanges } from '../../web/sh
 import type { Embedded } from '../../web/shared/protocol.js';
 import { base64 } from '../../web/shims/buffer.js';
 import { sha256Hex } from '../../web/shims/sha256.js';
+import { constants, inflateSync as shimInflate } from '../../web/shims/zlib.js';
 import { cli } from '../cli/harness.js';
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -115,6 +116,7 @@ describe('the page state as command-line words (web/shared/options.ts)', () => {
   const argvs = [
     ['--cell-size', '2', '--process', 'waterjet-cut', '--thickness', '8', '--passive', PASSIVE, '--repair'],
     ['--cell-size', '0.5,0.25', '--row-order', 'bottom-up', '--value-range', '0,255', '--clip', '--max-cells', '99', '--volume-fraction', '0.4'],
+    ['--field', 'xPhys', '--image-solid', 'light', '--image-channel', 'g'],
     ['--level', '0.3', '--saddle', 'split', '--smooth', '0', '--tolerance', '0.1', '--mirror', 'left', '--mirror', 'top', '--circles'],
     ['--min-member', '2.5', '--min-hole', '3', '--tool-radius', '1e-1', '--min-island-area', '4', '--min-hole-area', '5', '--grey-warn', '30'],
     ['--severity', 'islands=fail', '--severity', 'grey-level=off', '--fail-on', 'warn', '--repair=fill-holes,thicken', '--formats', 'dxf,json', '--units', 'in'],
@@ -147,6 +149,21 @@ describe('browser stand-ins for Node built-ins (web/shims/)', () => {
     }
     const big = new Uint8Array(randomBytes(1 << 20));
     expect(sha256Hex(big)).toBe(createHash('sha256').update(big).digest('hex'));
+  });
+
+  it('inflateSync matches node:zlib on whole streams, within maxOutputLength, and on a cut stream with Z_SYNC_FLUSH', () => {
+    const data = new Uint8Array(200_000);
+    for (let k = 0; k < data.length; k++) data[k] = (k * 7919) % 251 > 120 ? k & 255 : 0;
+    const z = new Uint8Array(deflateSync(data, { level: 6 }));
+    expect(shimInflate(z)).toEqual(new Uint8Array(nodeInflate(z)));
+    expect(() => shimInflate(z, { maxOutputLength: 1000 })).toThrow(RangeError);
+    const cut = z.subarray(0, Math.floor(z.length / 2));
+    const a = shimInflate(cut, { finishFlush: constants.Z_SYNC_FLUSH });
+    const b = new Uint8Array(nodeInflate(cut, { finishFlush: nodeConstants.Z_SYNC_FLUSH }));
+    expect(a.length).toBeGreaterThan(0);
+    expect(a).toEqual(data.subarray(0, a.length)); // a prefix of the data, as Node gives one
+    expect(b).toEqual(data.subarray(0, b.length));
+    expect(() => shimInflate(cut)).toThrow();
   });
 
   it('base64 matches Node Buffer for every tail length', () => {

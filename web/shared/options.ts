@@ -30,6 +30,9 @@ const FORMS: Readonly<Record<string, Form>> = {
   nonFinite: { kind: 'value', flag: '--non-finite' },
   clip: { kind: 'flag', flag: '--clip' },
   maxCells: { kind: 'value', flag: '--max-cells' },
+  field: { kind: 'value', flag: '--field' },
+  imageSolid: { kind: 'value', flag: '--image-solid' },
+  imageChannel: { kind: 'value', flag: '--image-channel' },
   volumeFraction: { kind: 'value', flag: '--volume-fraction' },
   volumeTolerance: { kind: 'value', flag: '--volume-tolerance' },
   level: { kind: 'value', flag: '--level' },
@@ -58,7 +61,7 @@ const FORMS: Readonly<Record<string, Form>> = {
 export const OPTION_KEYS: readonly string[] = Object.keys(FORMS);
 
 /** Keys of report.settings that no option sets (derived or fixed): apply refuses them. */
-const DERIVED = new Set(['cellSizeDefaulted', 'smoothLambda', 'smoothMu']);
+const DERIVED = new Set(['cellSizeDefaulted', 'cellSizeSource', 'smoothLambda', 'smoothMu']);
 
 /** The command-line words of one option, `[flag, value]` pairs flattened; a value of null, false or [] is none. */
 function text(v: unknown): string {
