@@ -8,7 +8,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { deflateSync } from 'node:zlib';
-import { RhoformError } from '../src/errors.js';
+import { RhoformError, UsageError } from '../src/errors.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import { build, loadGrid } from '../src/pipeline.js';
 import { resolveSettings } from '../src/settings.js';
@@ -59,6 +59,9 @@ function stem(file: string): string {
 export function runPreview(args: ParsedArgs, io: Io): number {
   const file = args.files[0];
   const settings = resolveSettings(args.settings);
+  if (settings.loads !== null) {
+    throw new UsageError('--loads: the preview page does not embed a loads file yet; run the structural re-check with rhoform build --loads');
+  }
   const inputPath = resolve(io.cwd, file);
   // Read as `rhoform build` reads (cli/build-file.ts): the grid bounded by --max-cells, the passive file by its size.
   const bytes = readGridInput(inputPath, file, settings.maxCells);

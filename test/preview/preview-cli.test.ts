@@ -109,6 +109,11 @@ describe('rhoform preview (command line)', () => {
     expect(p2.code).toBe(2);
     expect(p2.stderr).toBe(b2.stderr);
     expect(existsSync(join(dir, 'd'))).toBe(false);
+    // not yet in the page: a loads file is refused by name, nothing written
+    const p3 = cli(['preview', DEMO, '--loads', 'any.json', '--out-dir', join(dir, 'e')], ROOT);
+    expect(p3.code).toBe(2);
+    expect(p3.stderr).toContain('E_USAGE: --loads: the preview page does not embed a loads file yet');
+    expect(existsSync(join(dir, 'e'))).toBe(false);
   });
 });
 
