@@ -5,7 +5,7 @@
 import { UsageError } from '../src/errors.js';
 import { isCheckId } from '../src/check/ids.js';
 import { PROCESS_IDS } from '../src/check/process.js';
-import { MIRROR_EDGES, REPAIR_IDS, type MirrorEdge, type OutputFormat, type RepairName, type Settings } from '../src/settings.js';
+import { MIRROR_EDGES, OUTPUT_FORMATS, REPAIR_IDS, type MirrorEdge, type OutputFormat, type RepairName, type Settings } from '../src/settings.js';
 
 export type Command = 'build' | 'check' | 'inspect' | 'demo' | 'batch' | 'merge' | 'preview' | 'help' | 'version';
 
@@ -208,11 +208,14 @@ const OPTIONS: Record<string, OptionSpec> = {
     value: true,
     commands: [...GEOMETRY_CMDS],
     apply: (v, o) => {
-      const list = v.split(',').map((f) => oneOf('--formats', f.trim(), ['dxf', 'svg', 'json', 'html'] as const));
+      const list = v.split(',').map((f) => oneOf('--formats', f.trim(), OUTPUT_FORMATS));
       o.settings.formats = [...new Set<OutputFormat>(list)];
     },
   },
   units: { value: true, commands: [...GEOMETRY_CMDS], apply: (v, o) => (o.settings.units = oneOf('--units', v, ['mm', 'in'] as const)) },
+  annotations: { value: false, commands: [...GEOMETRY_CMDS], apply: (_v, o) => (o.settings.annotations = true) },
+  arcs: { value: false, commands: [...GEOMETRY_CMDS], apply: (_v, o) => (o.settings.arcs = true) },
+  'dxf-version': { value: true, commands: [...GEOMETRY_CMDS], apply: (v, o) => (o.settings.dxfVersion = oneOf('--dxf-version', v, ['r12', 'r2000'] as const)) },
   json: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.json = true) },
   force: { value: false, commands: [...OUT_CMDS], apply: (_v, o) => (o.cli.force = true) },
   quiet: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.quiet = true) },

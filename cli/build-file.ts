@@ -17,7 +17,9 @@ import type { Report } from '../src/types.js';
 import { readGridInput, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { displayPath, reportExitCode } from './io.js';
 
-const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' };
+const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html', stl: '.stl', '3mf': '.3mf' };
+/** The annotations file beside the part's DXF (`--annotations`, docs/output-formats.md). */
+const NOTES_SUFFIX = '.notes.dxf';
 
 function stem(file: string): string {
   const b = basename(file);
@@ -73,13 +75,16 @@ export function buildFile(settings: Settings, opts: BuildFileOptions): { report:
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
-  const paths = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
-  report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format }));
+  const paths: { format: OutputFormat; path: string; annotations?: true }[] = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
+  if (settings.annotations && formats.includes('dxf')) paths.splice(formats.indexOf('dxf') + 1, 0, { format: 'dxf', path: base + NOTES_SUFFIX, annotations: true });
+  report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format, ...(p.annotations ? { annotations: true as const } : {}) }));
   const planned: PlannedOutput[] = [];
   let svg: string | undefined;
   for (const p of paths) {
-    let content: string;
-    if (p.format === 'dxf') content = result.dxf();
+    let content: string | Uint8Array;
+    if (p.annotations) content = result.notesDxf();
+    else if (p.format === 'dxf') content = result.dxf();
+    else if (p.format === 'stl' || p.format === '3mf') content = result.solid(p.format);
     else if (p.format === 'svg') content = svg ??= result.svg();
     else if (p.format === 'json') content = formatJson(report);
     else content = formatHtml(report, result.pictures());

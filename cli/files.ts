@@ -140,7 +140,8 @@ function canonical(path: string): string {
 
 export interface PlannedOutput {
   readonly path: string;
-  readonly content: string;
+  /** Text (written as UTF-8) or bytes (the binary solids). */
+  readonly content: string | Uint8Array;
 }
 
 /** `<output>.<pid>.<8 hex>.tmp` (this version) or `<output>.<8 hex>.tmp` (earlier versions). */

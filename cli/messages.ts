@@ -68,8 +68,13 @@ Batch (docs/scale.md):
 Output:
   --out-dir <dir>              where files go (default: the current folder; demo: ./rhoform-demo;
                                check writes its reports only when --out-dir is given)
-  --formats dxf,svg,json,html  which files to write (default: all four)
+  --formats dxf,svg,json,html  which files to write (default: those four; also stl and 3mf, the part
+                               extruded by --thickness)
   --units mm|in                DXF/SVG units (the report is always in mm)
+  --annotations                also write <name>.notes.dxf (passive references, findings, repair regions, on
+                               layers that do not plot) and draw them in the SVG; off: the files hold the part
+  --arcs                       fit the outline with circular arcs and lines within --tolerance
+  --dxf-version r12|r2000      DXF version of the part (default r2000; r12 for older machine software)
   --json                       print the JSON report on stdout and nothing else
   --force                      replace existing output files
   --quiet                      no summary on stdout, no progress on stderr

@@ -52,4 +52,7 @@ export { symmetrize } from './geom/symmetry.js';
 export { fitCircle, findCircleRings } from './geom/fit-circle.js';
 export { booleanOp, unionRings, offsetRings, bufferPolylines, loadBooleanEngine, type BooleanOp } from './geom/clipper.js';
 export type { Circle, RingCircle } from './geom/circle.js';
-export type { WriterInput } from './write/types.js';
+export type { DxfVersion, RingBulges, WriterInput } from './write/types.js';
+export { writeSolid } from './write/solid.js';
+export { extrude, type Mesh, type SolidInput } from './geom/extrude.js';
+export { fitOutlineArcs, type OutlineArcs, type OutlineArcsInput } from './write/arcs-outline.js';

@@ -41,7 +41,11 @@ export interface BuildResult {
   readonly timings: Readonly<Record<string, number>>;
   /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
   dxf(): string;
+  /** `<name>.notes.dxf` (`--annotations`): the annotation layers alone, not plotting, always R2000. */
+  notesDxf(): string;
   svg(): string;
+  /** The part extruded by `--thickness` (mm) as binary STL or 3MF bytes (src/write/solid.ts). */
+  solid(format: 'stl' | '3mf'): Uint8Array;
   /** The picture data of the HTML report (the local-thickness map only when it is cheap or already built). */
   pictures(): HtmlPictures;
   /** The structural re-check's record (`--loads`), or null without. */
@@ -82,6 +86,9 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     timings[name] = (timings[name] ?? 0) + (t - t0);
     t0 = t;
   };
+  if (s.thickness === null && s.formats.some((f) => f === 'stl' || f === '3mf')) {
+    throw new UsageError(`--formats ${s.formats.filter((f) => f === 'stl' || f === '3mf').join(',')}: expected --thickness <mm> (the extrusion of the solid), found none`);
+  }
   const read = loadGrid(input, s);
   lap('read');
   const field = prepareStage(input, read, s, more.passive ?? null);
@@ -121,6 +128,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       passiveSolid: exact?.solidRings ?? [],
       domain: field.domain,
       tolerance: field.tolerance,
+      simplify: Math.max(0, field.tolerance - threshold.smoothed.maxDeviation),
       pixel: plan.pixel,
       locate: plan.locate,
     });
@@ -138,6 +146,11 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   }
   const structure = fe !== null && feFinal !== null ? structureStage(fe, feBefore, feFinal, final) : null;
   const warnings = [...field.warnings, ...threshold.warnings, ...(structure?.warnings ?? [])];
+  const files = writeStage(
+    { polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], checks: checks.results, repair, passive: field.passive, raw: threshold.raw },
+    s,
+  );
+  lap('write');
   const report = assembleReport({
     settings: s,
     field,
@@ -148,13 +161,10 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     beforeRepair: beforeRepair?.results ?? null,
     repair,
     final,
+    written: files.shape,
     warnings,
     structure,
   });
-  const files = writeStage(
-    { polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], checks: report.checks, repair },
-    s,
-  );
   const { grid, domain } = field;
   const finalChecks = checks;
   // The local-thickness picture: from the checks' engine when they built one; else, on grids small enough, from
@@ -176,7 +186,9 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     builds: threshold.builds,
     structure,
     dxf: files.dxf,
+    notesDxf: files.notesDxf,
     svg: files.svg,
+    solid: files.solid,
     pictures: () => ({
       grid,
       polygons: final,

@@ -5,7 +5,10 @@
 /** How a saddle cell of marching squares is resolved (docs/contour.md). */
 export type SaddleRuleName = 'decider' | 'join' | 'split';
 
-export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html';
+export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html' | 'stl' | '3mf';
+
+/** Every output format `--formats` accepts, in the order of docs/output-formats.md. */
+export const OUTPUT_FORMATS: readonly OutputFormat[] = ['dxf', 'svg', 'json', 'html', 'stl', '3mf'];
 
 /** The repairs of `--repair` (docs/repair.md), in the order they run; each is tied to check ids. */
 export const REPAIR_IDS = ['thicken', 'fill-holes', 'open-corners', 'drop-islands'] as const;
@@ -93,6 +96,15 @@ export interface Settings {
   // output
   formats: OutputFormat[];
   units: 'mm' | 'in';
+  /**
+   * Write the annotations (passive-region references, findings, where repairs acted, labels) beside the part:
+   * `<name>.notes.dxf` on non-plotting layers and groups in the SVG (`--annotations`). Off: the part only.
+   */
+  annotations: boolean;
+  /** Fit the final outline with circular arcs and lines within the outline tolerance (`--arcs`). */
+  arcs: boolean;
+  /** DXF version of the part file (`--dxf-version`). */
+  dxfVersion: 'r12' | 'r2000';
 }
 
 export const DEFAULT_SETTINGS: Settings = {
@@ -137,6 +149,9 @@ export const DEFAULT_SETTINGS: Settings = {
   feMaxElements: 500_000, // = FE_MAX_ELEMENTS (src/fe/analyse.ts; settings sit below fe/ in the layers)
   formats: ['dxf', 'svg', 'json', 'html'],
   units: 'mm',
+  annotations: false,
+  arcs: false,
+  dxfVersion: 'r2000',
 };
 
 /** Defaults filled in; `cellSizeDefaulted` follows from whether a cell size was given. */

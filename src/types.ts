@@ -179,6 +179,14 @@ export interface Report {
     vertices: number;
     bbox: [number, number, number, number];
     finalFraction: number;
+    /**
+     * Additive: what the part's geometry files hold (DXF in mm): straight segments, circular-arc segments
+     * (`--arcs`) and true circles, and the shortest written segment (mm; chord length for an arc; null when
+     * every ring is a circle or there is none). area, perimeter, vertices and bbox above are of the same geometry.
+     */
+    written?: { lines: number; arcs: number; circles: number; shortestSegment: number | null };
+    /** Additive, with `--arcs`: the part's segments before the arc fit (lines) and the fit's measured deviation. */
+    arcFit?: ArcFitSummary;
   };
   /** Smoothing and simplification, measured against the raw iso-contour (added in schema 1, additive). */
   smoothing: {
@@ -233,8 +241,25 @@ export interface Report {
   /** The structural re-check (`--loads`, DESIGN §12; additive, absent without). */
   structure?: StructureReport;
   summary: { status: Status; pass: number; warn: number; fail: number };
-  outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' }[];
+  /** Files written; `annotations: true` marks `<name>.notes.dxf` (additive). */
+  outputs: { file: string; format: 'dxf' | 'svg' | 'json' | 'html' | 'stl' | '3mf'; annotations?: true }[];
   /** Non-fatal remarks of the run (also printed on stderr). Additive. */
   warnings: string[];
   cautions: string[];
+}
+
+/** What `--arcs` did (report `geometry.arcFit`, additive). Lengths in mm. */
+export interface ArcFitSummary {
+  /** Segments of the part before the fit (straight, as the rings were). */
+  segmentsBefore: number;
+  /** Segments after: straight lines plus arcs. */
+  segmentsAfter: number;
+  arcs: number;
+  /**
+   * Largest sampled distance from the fitted pieces (arcs and merged lines) to the raw iso-contour, mm; the
+   * sampling certifies that no point of a piece is farther than `tolerance` (docs/output-formats.md, Arcs).
+   */
+  maxDeviation: number;
+  /** The bound they were fitted to: the outline tolerance (`--tolerance`), mm. */
+  tolerance: number;
 }

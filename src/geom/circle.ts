@@ -43,6 +43,39 @@ export function circleRing(c: Circle, tolerance: number): Point[] {
   return ring;
 }
 
+/**
+ * The number of vertices of a regular polygon circumscribed about a circle of radius r (mm) whose vertices stay
+ * within `tolerance` mm outside it: r(1/cos(π/n) − 1) ≤ tolerance (analytic); at least 8, at most 4096.
+ */
+export function circumscribedSegments(r: number, tolerance: number): number {
+  if (!(r > 0)) return 8;
+  const t = Math.min(Math.max(tolerance, r * 1e-6), r);
+  const n = Math.ceil(Math.PI / Math.acos(1 / (1 + t / r)));
+  return Math.min(4096, Math.max(8, n));
+}
+
+/** Radius (mm) of the vertices of the regular n-gon circumscribed about a circle of radius r: r / cos(π/n). */
+export function circumscribedRadius(r: number, n: number): number {
+  return r / Math.cos(Math.PI / n);
+}
+
+/**
+ * A circle as the regular polygon circumscribed about it (its edges touch the circle at their midpoints, its
+ * vertices lie at most `tolerance` mm outside), counter-clockwise, first vertex at angle 0. The polygon contains
+ * the whole disc, so a boolean with it never leaves material of the other side inside the disc: a passive void
+ * circle cut out this way is void exactly, a passive solid circle added this way is solid exactly.
+ */
+export function circumscribedRing(c: Circle, tolerance: number): Point[] {
+  const n = circumscribedSegments(c.r, tolerance);
+  const R = circumscribedRadius(c.r, n);
+  const ring: Point[] = new Array(n);
+  for (let k = 0; k < n; k++) {
+    const a = (2 * Math.PI * k) / n;
+    ring[k] = [c.cx + R * Math.cos(a), c.cy + R * Math.sin(a)];
+  }
+  return ring;
+}
+
 /** The same ring in the opposite direction (a hole from an outer ring and back). */
 export function reversed(ring: Ring): Point[] {
   return [...ring].reverse();
@@ -50,8 +83,9 @@ export function reversed(ring: Ring): Point[] {
 
 /**
  * A ring of the part that is a true circle (a passive-void bolt hole, or a ring `--circles` recognised): the
- * writers draw the circle instead of the ring's vertices — a DXF CIRCLE, SVG arc commands inside the part's
- * even-odd path (so it still cuts). mm, y up.
+ * writers draw the circle instead of the ring's vertices — a DXF CIRCLE on the ring's own layer (`outline` for
+ * an outer ring, `hole` for a hole: every hole of the part is on `hole`, DESIGN §8), SVG arc commands inside
+ * the part's even-odd path (so it still cuts). mm, y up.
  */
 export interface RingCircle {
   /** Index into `polygons.polygons`. */
@@ -62,6 +96,4 @@ export interface RingCircle {
   readonly x: number;
   readonly y: number;
   readonly r: number;
-  /** DXF layer of the circle: 'passive' for a passive region's circle; default the ring's own (outline / hole). */
-  readonly layer?: 'passive';
 }

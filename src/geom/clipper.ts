@@ -157,10 +157,15 @@ export function ringsOf(set: PolygonSet | readonly Polygon[]): Ring[] {
 }
 
 /**
- * A boolean operation of two ring sets (non-zero fill each): union, intersection, difference (subject minus
+ * A boolean operation of two ring sets (non-zero fill each; `fill: 'positive'` for the subject): union, intersection, difference (subject minus
  * clip) or xor. `quantum` (mm) overrides the automatic one (pass the same to several calls that must agree).
  */
-export function booleanOp(op: BooleanOp, subject: readonly Ring[], clip: readonly Ring[], opts: { quantum?: number } = {}): PolygonSet {
+export function booleanOp(
+  op: BooleanOp,
+  subject: readonly Ring[],
+  clip: readonly Ring[],
+  opts: { quantum?: number; fill?: 'nonzero' | 'positive' } = {},
+): PolygonSet {
   const q = opts.quantum ?? quantumFor(extentOf([subject, clip]));
   let s = toInt(subject, q, true);
   let c = toInt(clip, q, true);
@@ -175,7 +180,9 @@ export function booleanOp(op: BooleanOp, subject: readonly Ring[], clip: readonl
       clipType: CLIP[clipType],
       subjectInputs: [{ data: s, closed: true }],
       clipInputs: c.length ? [{ data: c }] : [],
-      subjectFillType: clipperLib.PolyFillType.NonZero,
+      // positive: counter-clockwise outers (+1) and clockwise holes (−1) reproduce the set even where a hole
+      // strays past its outer ring (the stray part has winding −1 and stays void)
+      subjectFillType: opts.fill === 'positive' ? clipperLib.PolyFillType.Positive : clipperLib.PolyFillType.NonZero,
       clipFillType: clipperLib.PolyFillType.NonZero,
     });
     return setFromTree(tree, q);

@@ -10,15 +10,18 @@
  *
  * - Void wins over solid: a void primitive inside a solid one (a bolt hole in a boss) stays a hole.
  * - Primitives reaching outside the domain are clipped to it; the domain edge stays a hard edge.
- * - Circles are polygonised as inscribed regular polygons within `tolerance / 4` mm (sagitta) of the circle.
- *   A circle that survives whole as a ring of the result (a bolt hole surrounded by material) is reported as a
- *   RingCircle, so the writers draw a true circle (DXF CIRCLE on the layer `passive`, SVG arcs). A circle cut by
- *   the outline or the domain edge (partly outside the material) stays polygonal.
+ * - Circles are polygonised as circumscribed regular polygons (edges touching the circle, vertices within
+ *   `tolerance / 4` mm outside it), so the polygon contains the disc: a void circle is void exactly and a solid
+ *   circle solid exactly, whatever else the booleans meet there (a repair that grew material around a
+ *   pass-through never leaves a sliver inside it). A circle that survives whole as a ring of the result (a bolt
+ *   hole surrounded by material) is reported as a RingCircle, so the writers draw the true circle (DXF CIRCLE on
+ *   the ring's own layer — `hole` for a hole — and SVG arcs). A circle cut by the outline or the domain edge
+ *   (partly outside the material) stays polygonal, its vertices outside the disc.
  *
  * Frame: mm, y up, origin at the lower-left corner of the grid. Output orientation as DESIGN §3: outer rings
  * counter-clockwise, holes clockwise.
  */
-import { arcSagitta, circleSegments } from '../geom/circle.js';
+import { arcSagitta, circumscribedRadius, circumscribedSegments } from '../geom/circle.js';
 import { booleanOp, extentOf, quantumFor, ringsOf } from '../geom/clipper.js';
 import { RhoformError } from '../errors.js';
 import type { Point, PolygonSet, Ring } from '../types.js';
@@ -30,7 +33,7 @@ import type { PassiveRegions } from './types.js';
 export interface PassiveExactResult {
   /** The part with the passive regions applied, inside the domain rectangle. */
   readonly polygons: PolygonSet;
-  /** Rings of `polygons` that are whole passive circles (layer 'passive'), at most one per ring. */
+  /** Rings of `polygons` that are whole passive circles (written on the ring's own layer), at most one per ring. */
   readonly ringCircles: RingCircle[];
   /** The solid primitives as counter-clockwise rings (mm, not clipped to the domain), as used in the union. */
   readonly solidRings: Ring[];
@@ -42,11 +45,13 @@ interface CircleRef {
   readonly r: number;
   /** Vertices of its polygon. */
   readonly n: number;
+  /** Radius of those vertices (mm): the circumscribed polygon's, r / cos(π/n). */
+  readonly R: number;
 }
 
 /** True when every vertex of `ring` lies within `eps` mm of the circle. */
 function onCircle(ring: Ring, c: CircleRef, eps: number): boolean {
-  for (const [x, y] of ring) if (!(Math.abs(Math.hypot(x - c.cx, y - c.cy) - c.r) <= eps)) return false;
+  for (const [x, y] of ring) if (!(Math.abs(Math.hypot(x - c.cx, y - c.cy) - c.R) <= eps)) return false;
   return true;
 }
 
@@ -55,7 +60,7 @@ function onCircle(ring: Ring, c: CircleRef, eps: number): boolean {
  * domain rectangle [minX, minY, maxX, maxY] (mm). `tolerance` (mm, > 0) is the outline tolerance; circles are
  * polygonised within tolerance / 4. Never mutates its inputs. With no regions the set is returned as it is.
  *
- * ringCircles: every ring of the result all of whose vertices lie on one passive circle (within 4 quanta +
+ * ringCircles: every ring of the result all of whose vertices lie on one passive circle's circumscribed polygon (within 4 quanta +
  * 1e-9·r) and whose vertex count equals that circle's polygon — the circle survived whole. Void circles (bolt
  * holes) are the usual case; a solid circle that survived whole (a free-standing boss) is listed too.
  */
@@ -75,11 +80,12 @@ export function applyPassiveExact(
   const voidRings: Ring[] = [];
   const circles: CircleRef[] = [];
   for (const reg of regions.regions) {
-    const ring = shapeRing(reg.shape, circleTol);
+    const ring = shapeRing(reg.shape, circleTol, 'circumscribed');
     (reg.role === 'solid' ? solidRings : voidRings).push(ring);
     if (reg.shape.kind === 'circle') {
       const { cx, cy, r } = reg.shape;
-      circles.push({ cx, cy, r, n: circleSegments(r, circleTol) });
+      const n = circumscribedSegments(r, circleTol);
+      circles.push({ cx, cy, r, n, R: circumscribedRadius(r, n) });
     }
   }
   const box: Ring = [
@@ -119,9 +125,9 @@ function findCircles(set: PolygonSet, circles: readonly CircleRef[], quantum: nu
       const first: Point = ring[0];
       for (const c of candidates) {
         const eps = 4 * quantum + 1e-9 * c.r;
-        if (!(Math.abs(Math.hypot(first[0] - c.cx, first[1] - c.cy) - c.r) <= eps)) continue;
+        if (!(Math.abs(Math.hypot(first[0] - c.cx, first[1] - c.cy) - c.R) <= eps)) continue;
         if (!onCircle(ring, c, eps)) continue;
-        out.push({ polygon: p, ring: k, x: c.cx, y: c.cy, r: c.r, layer: 'passive' });
+        out.push({ polygon: p, ring: k, x: c.cx, y: c.cy, r: c.r });
         break;
       }
     }

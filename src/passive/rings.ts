@@ -1,7 +1,7 @@
 /**
  * Passive primitives as rings: mm, y up, counter-clockwise (positive signed area), implicitly closed.
  */
-import { circleRing } from '../geom/circle.js';
+import { circleRing, circumscribedRing } from '../geom/circle.js';
 import { orientRing } from '../geom/orient.js';
 import { RhoformError } from '../errors.js';
 import type { Ring } from '../types.js';
@@ -17,12 +17,16 @@ export function passiveRings(region: PassiveRegion, tolerance: number): Ring {
   return shapeRing(region.shape, tolerance);
 }
 
-/** passiveRings for a bare shape. */
-export function shapeRing(shape: PassiveShape, tolerance: number): Ring {
+/**
+ * passiveRings for a bare shape. `fit` chooses the polygon of a circle: 'inscribed' (vertices on the circle,
+ * edges within `tolerance` inside it) or 'circumscribed' (edges touching it, vertices within `tolerance`
+ * outside: the polygon contains the disc, the form the exact booleans use so a void circle stays void).
+ */
+export function shapeRing(shape: PassiveShape, tolerance: number, fit: 'inscribed' | 'circumscribed' = 'inscribed'): Ring {
   if (!(tolerance > 0)) throw new RhoformError('E_INTERNAL', `passive ring tolerance must be > 0 mm, found ${tolerance}`);
   switch (shape.kind) {
     case 'circle':
-      return circleRing({ cx: shape.cx, cy: shape.cy, r: shape.r }, tolerance);
+      return (fit === 'circumscribed' ? circumscribedRing : circleRing)({ cx: shape.cx, cy: shape.cy, r: shape.r }, tolerance);
     case 'rect':
       return [
         [shape.x0, shape.y0],

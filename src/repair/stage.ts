@@ -17,6 +17,8 @@ import type { PassiveRegions } from '../passive/types.js';
 import type { RepairName, Settings } from '../settings.js';
 import type { Domain, Location, PolygonSet, RepairRecord, Ring } from '../types.js';
 import { runRepairs } from './run.js';
+import { quantumOf } from './common.js';
+import { simplifySet } from '../smooth/simplify-set.js';
 import { REPAIR_CHECKS, type RepairAction } from './types.js';
 
 /** Why a repair does nothing because the check it answers is off or has no limit; null when it can run. */
@@ -38,6 +40,11 @@ export interface RepairStageInput {
   readonly passiveSolid: readonly Ring[];
   readonly domain: Domain;
   readonly tolerance: number;
+  /**
+   * mm: the outline budget the smoothing left (tolerance − its measured deviation); the repaired outline is
+   * simplified within it before the passive regions are applied again (src/smooth/simplify-set.ts). 0 = none.
+   */
+  readonly simplify?: number;
   /** Morphology raster pixel, mm (choosePixel). */
   readonly pixel: number;
   /** Maps a point (mm) to its 1-based file row and column (the check locator). */
@@ -60,7 +67,7 @@ export function repairStage(input: RepairStageInput): RepairStageRecord {
   const plannedIds = new Set(input.planned.map((p) => p.def.id));
   const ids = input.settings.repair.filter((id) => offReason(id, plannedIds) === null);
   const passiveVoid = input.passive
-    ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, arcSagitta(input.tolerance)))
+    ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, arcSagitta(input.tolerance), 'circumscribed'))
     : [];
   const has = (c: CheckId) => plannedIds.has(c);
   const run = runRepairs(ids, {
@@ -92,7 +99,9 @@ export function repairStage(input: RepairStageInput): RepairStageRecord {
       unresolved: a.unresolved,
     };
   });
-  const fixed = applyFixedParts(run.polygons, input.planes, input.passive, input.domain, input.tolerance);
+  // the repairs' booleans and offsets leave near-coincident vertices: simplify within the budget left
+  const repaired = input.simplify ? simplifySet(run.polygons, input.simplify, { quantum: quantumOf(input.domain, 0) }) : run.polygons;
+  const fixed = applyFixedParts(repaired, input.planes, input.passive, input.domain, input.tolerance);
   const changed: PolygonSet = { polygons: run.actions.flatMap((a) => a.changed.polygons) };
   return { polygons: fixed.polygons, passive: fixed.passive, records, before: input.polygons, changed };
 }

@@ -17,6 +17,7 @@ import type { CheckResult, PolygonSet, Report, ReportSettings, StructureAnalysis
 import { VERSION } from '../version.js';
 import { CAUTIONS, STRUCTURE_CAUTION } from './cautions.js';
 import { summarizeGeometry } from './geometry.js';
+import type { WrittenShape } from '../write/stage.js';
 
 export interface ReportRecords {
   readonly settings: Settings;
@@ -31,6 +32,8 @@ export interface ReportRecords {
   readonly repair: RepairStageRecord | null;
   /** The outline written. */
   readonly final: PolygonSet;
+  /** The outline as the files hold it (true circles, arcs); the geometry block measures it. */
+  readonly written?: WrittenShape;
   /** Every non-fatal remark of the run, in order. */
   readonly warnings: readonly string[];
   /** The structural re-check (`--loads`); absent or null without. */
@@ -101,7 +104,10 @@ export function assembleReport(r: ReportRecords): Report {
     input: field.input,
     settings: reportSettings(s, field, r.plan),
     threshold: threshold.summary,
-    geometry: summarizeGeometry(r.final, field.domainArea),
+    geometry: {
+      ...summarizeGeometry(r.written?.polygons ?? r.final, field.domainArea, r.written ?? {}),
+      ...(r.written?.arcFit ? { arcFit: r.written.arcFit } : {}),
+    },
     smoothing: {
       maxDeviation: smoothed.maxDeviation,
       tolerance: field.tolerance,

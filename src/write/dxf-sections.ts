@@ -9,15 +9,20 @@
  */
 import { DxfTags, hex } from './dxf-tags.js';
 
-/** Our layers and their ACI colours (7 white/black, 5 blue, 3 green, 1 red, 6 magenta). */
+/**
+ * Our layers, their ACI colours (7 white/black, 5 blue, 3 green, 1 red, 6 magenta) and whether they plot
+ * (LAYER group 290: 0 = not plotted). The part's layers plot; the annotation layers never do, so a program
+ * that plots or cuts what plots leaves them out.
+ */
 export const DXF_LAYERS = [
-  { name: '0', color: 7 },
-  { name: 'outline', color: 7 },
-  { name: 'hole', color: 5 },
-  { name: 'passive', color: 3 },
-  { name: 'finding', color: 1 },
-  { name: 'repair', color: 6 },
+  { name: '0', color: 7, plot: true },
+  { name: 'outline', color: 7, plot: true },
+  { name: 'hole', color: 5, plot: true },
+  { name: 'passive', color: 3, plot: false },
+  { name: 'finding', color: 1, plot: false },
+  { name: 'repair', color: 6, plot: false },
 ] as const;
+export type DxfLayer = (typeof DXF_LAYERS)[number];
 
 /** Fixed handles of the tables, blocks and objects; entities get handles from FIRST_ENTITY_HANDLE upward. */
 export const H = {
@@ -61,8 +66,13 @@ export interface DxfHeaderValues {
   measurement: 0 | 1;
   extmin: readonly [number, number];
   extmax: readonly [number, number];
+  /** $LIMMIN/$LIMMAX: the domain corners. */
+  limmin: readonly [number, number];
+  limmax: readonly [number, number];
   /** First handle not used in the file ($HANDSEED). */
   handseed: number;
+  /** The layers declared in the LAYER table, '0' first. */
+  layers: readonly DxfLayer[];
 }
 
 /** HEADER section. */
@@ -73,8 +83,8 @@ export function headerSection(t: DxfTags, v: DxfHeaderValues): void {
   t.tag(9, '$INSBASE').point(10, 0, 0);
   t.tag(9, '$EXTMIN').point(10, v.extmin[0], v.extmin[1]);
   t.tag(9, '$EXTMAX').point(10, v.extmax[0], v.extmax[1]);
-  t.tag(9, '$LIMMIN').tag(10, v.extmin[0]).tag(20, v.extmin[1]);
-  t.tag(9, '$LIMMAX').tag(10, v.extmax[0]).tag(20, v.extmax[1]);
+  t.tag(9, '$LIMMIN').tag(10, v.limmin[0]).tag(20, v.limmin[1]);
+  t.tag(9, '$LIMMAX').tag(10, v.limmax[0]).tag(20, v.limmax[1]);
   t.tag(9, '$HANDSEED').tag(5, hex(v.handseed));
   t.tag(9, '$INSUNITS').int(70, v.insunits);
   t.tag(9, '$MEASUREMENT').int(70, v.measurement);
@@ -95,7 +105,7 @@ function recordStart(t: DxfTags, type: string, handle: number, owner: number, su
   t.tag(100, 'AcDbSymbolTableRecord').tag(100, subclass);
 }
 
-/** TABLES section; the active viewport shows the whole domain. */
+/** TABLES section; the active viewport shows the drawing's extents. */
 export function tablesSection(t: DxfTags, v: DxfHeaderValues): void {
   t.tag(0, 'SECTION').tag(2, 'TABLES');
 
@@ -106,7 +116,7 @@ export function tablesSection(t: DxfTags, v: DxfHeaderValues): void {
   t.tag(2, '*Active').int(70, 0);
   t.tag(10, 0).tag(20, 0).tag(11, 1).tag(21, 1);
   t.tag(12, v.extmin[0] + w / 2).tag(22, v.extmin[1] + h / 2);
-  t.tag(40, h * 1.1).tag(41, w / h);
+  t.tag(40, Math.max(h, 1e-6) * 1.1).tag(41, h > 0 && w > 0 ? w / h : 1);
   t.tag(0, 'ENDTAB');
 
   tableStart(t, 'LTYPE', H.ltypeTable, 3);
@@ -121,11 +131,14 @@ export function tablesSection(t: DxfTags, v: DxfHeaderValues): void {
   }
   t.tag(0, 'ENDTAB');
 
-  tableStart(t, 'LAYER', H.layerTable, DXF_LAYERS.length);
-  DXF_LAYERS.forEach((layer, i) => {
-    recordStart(t, 'LAYER', H.layerFirst + i, H.layerTable, 'AcDbLayerTableRecord');
-    t.tag(2, layer.name).int(70, 0).int(62, layer.color).tag(6, 'Continuous').int(370, -3);
-  });
+  tableStart(t, 'LAYER', H.layerTable, v.layers.length);
+  for (const layer of v.layers) {
+    // each layer keeps its handle from DXF_LAYERS, so a layer's handle is the same in every file
+    recordStart(t, 'LAYER', H.layerFirst + DXF_LAYERS.indexOf(layer), H.layerTable, 'AcDbLayerTableRecord');
+    t.tag(2, layer.name).int(70, 0).int(62, layer.color).tag(6, 'Continuous');
+    if (!layer.plot) t.int(290, 0);
+    t.int(370, -3);
+  }
   t.tag(0, 'ENDTAB');
 
   tableStart(t, 'STYLE', H.styleTable, 1);

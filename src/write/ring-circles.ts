@@ -45,9 +45,6 @@ export function ringCircleLookup(polygons: PolygonSet, circles: readonly RingCir
         `${where}: expected a finite circle centre, found (${String(c.x)}, ${String(c.y)})`,
       );
     }
-    if (c.layer !== undefined && c.layer !== 'passive') {
-      throw new RhoformError('E_INTERNAL', `${where}: expected layer 'passive' or none, found ${JSON.stringify(c.layer)}`);
-    }
     let rings = byPolygon.get(c.polygon);
     if (rings === undefined) byPolygon.set(c.polygon, (rings = new Map()));
     if (rings.has(c.ring)) {

@@ -1,25 +1,30 @@
 /**
- * The write stage: the final outline and the findings as the geometry files (DXF, SVG) — the part on its
- * layers, true circles where rings are circles, and the annotation layers (`finding`, `repair`).
+ * The write stage: the final outline as the files hold it (DESIGN §8) — the part on its layers `outline` and
+ * `hole`, true circles where rings are circles, arcs under `--arcs` — and, rendered on demand, the DXF (R2000 or
+ * R12), the SVG, the annotations file `<name>.notes.dxf` (`--annotations`) and the solids (`--formats stl,3mf`).
+ * The report's geometry block is measured on `shape`, so it states what the files hold.
  *
  * Frame: mm, y up, origin at the lower-left corner of the input grid; the writers convert units and the SVG
  * writer does the only y-down flip.
  */
 import { numberFindings } from '../check/findings.js';
+import { fitOutlineArcs } from './arcs-outline.js';
 import type { RingCircle } from '../geom/circle.js';
 import { circleRings } from '../geom/circle-rings.js';
-import { ringsOf } from '../geom/clipper.js';
+import type { PassiveRegions } from '../passive/types.js';
 import type { Settings } from '../settings.js';
-import type { CheckResult, Domain, PolygonSet, RepairRecord } from '../types.js';
+import type { ArcFitSummary, CheckResult, Domain, PolygonSet, RepairRecord } from '../types.js';
+import { annotationExtras } from './annotations.js';
 import { writeDxf } from './dxf.js';
+import { writeSolid } from './solid.js';
 import { writeSvg } from './svg.js';
-import type { WriterExtra, WriterInput } from './types.js';
+import type { RingBulges, WriterInput } from './types.js';
 
 export interface WriteStageInput {
   /** The final outline. */
   readonly polygons: PolygonSet;
   readonly domain: Domain;
-  /** mm: the outline's deviation budget (for recognising circles). */
+  /** mm: the outline's deviation budget (for recognising circles, fitting arcs, polygonising for solids). */
   readonly tolerance: number;
   /** The passive circles that survived whole (PassiveExactResult.ringCircles). */
   readonly passiveCircles: readonly RingCircle[];
@@ -27,32 +32,55 @@ export interface WriteStageInput {
   readonly checks: readonly CheckResult[];
   /** With `--repair`: what the repairs did and the material they changed. */
   readonly repair: { readonly records: readonly RepairRecord[]; readonly changed: PolygonSet } | null;
+  /** The passive regions (drawn on the annotations' `passive` layer; their boundaries bound the arc fit). */
+  readonly passive: PassiveRegions | null;
+  /** The raw iso-contour (`--arcs` stays within the tolerance of it). */
+  readonly raw: PolygonSet;
+}
+
+/** The part as the files hold it. */
+export interface WrittenShape {
+  /** The rings written (with `--arcs`, reduced to the arcs' and lines' end points). */
+  readonly polygons: PolygonSet;
+  readonly ringCircles: readonly RingCircle[];
+  readonly arcs?: RingBulges;
+  readonly arcFit?: ArcFitSummary;
 }
 
 export interface WriteRecord {
   readonly input: WriterInput;
+  readonly shape: WrittenShape;
   dxf(): string;
+  /** `<name>.notes.dxf`: the annotation layers alone, not plotting, always R2000. */
+  notesDxf(): string;
   svg(): string;
+  /** The part extruded by `--thickness` as binary STL or 3MF bytes. */
+  solid(format: 'stl' | '3mf'): Uint8Array;
 }
 
-/** The writers' input, and the files rendered on demand (the CLI asks only for the formats it writes). */
-export function writeStage(w: WriteStageInput, s: Pick<Settings, 'units' | 'circles'>): WriteRecord {
-  const findings = numberFindings(w);
-  const extras: WriterExtra[] = [];
-  if (findings.length > 0) {
-    extras.push({ layer: 'finding', markers: findings.map((f) => ({ x: f.location.x, y: f.location.y, label: String(f.n), note: f.checkId })) });
-  }
-  if (w.repair) {
-    // Where the repairs acted: the material they changed, and R<k> markers as in the HTML report.
-    const markers = w.repair.records.flatMap((r, k) => r.locations.map((L) => ({ x: L.x, y: L.y, label: `R${k + 1}`, note: r.id })));
-    extras.push({ layer: 'repair', rings: ringsOf(w.repair.changed), markers });
-  }
+export function writeStage(
+  w: WriteStageInput,
+  s: Pick<Settings, 'units' | 'circles' | 'arcs' | 'annotations' | 'dxfVersion' | 'thickness'>,
+): WriteRecord {
+  const ringCircles = circleRings(w.polygons, w.passiveCircles, s.circles, w.tolerance);
+  const fit = s.arcs ? fitOutlineArcs({ polygons: w.polygons, ringCircles, passive: w.passive, domain: w.domain, tolerance: w.tolerance, raw: w.raw }) : null;
+  const shape: WrittenShape = fit ? { polygons: fit.polygons, ringCircles, arcs: fit.bulges, arcFit: fit.summary } : { polygons: w.polygons, ringCircles };
   const input: WriterInput = {
-    polygons: w.polygons,
+    polygons: shape.polygons,
     domain: w.domain,
     units: s.units,
-    extras,
-    ringCircles: circleRings(w.polygons, w.passiveCircles, s.circles, w.tolerance),
+    ringCircles,
+    ...(shape.arcs ? { arcs: shape.arcs } : {}),
+    dxfVersion: s.dxfVersion,
   };
-  return { input, dxf: () => writeDxf(input), svg: () => writeSvg(input) };
+  const extras = () =>
+    annotationExtras({ passive: w.passive, findings: numberFindings(w), repaired: w.repair?.changed ?? null, repairs: w.repair?.records ?? [], tolerance: w.tolerance });
+  return {
+    input,
+    shape,
+    dxf: () => writeDxf(input),
+    notesDxf: () => writeDxf({ polygons: { polygons: [] }, domain: w.domain, units: s.units, extras: extras() }),
+    svg: () => writeSvg(s.annotations ? { ...input, extras: extras() } : input),
+    solid: (format) => writeSolid(format, { polygons: shape.polygons, ringCircles, ...(shape.arcs ? { arcs: shape.arcs } : {}), thickness: s.thickness, tolerance: w.tolerance }),
+  };
 }

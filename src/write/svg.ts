@@ -10,14 +10,22 @@
  *   `ringCircles` is a sub-path of two half-circle elliptical arcs (SVG 1.1 §8.3.8 'A'):
  *   `M cx+r cy' A r r 0 1 s cx−r cy' A r r 0 1 s cx+r cy' Z`, in the same path, so a circular hole still cuts;
  *   its sweep flag s keeps the model's orientation (outer rings counter-clockwise on screen: s = 0; holes: s = 1).
- * - Optional groups, bottom to top: `underlay` (caller markup), the part, `passive`, `repair`, `finding`
- *   (numbered circle markers).
+ * - Rings are written as the file holds them (src/geom/clean-ring.ts): rounded to the written decimals, no
+ *   repeated point and no segment shorter than 1 µm (or one unit of the last decimal, if larger). An edge with a
+ *   bulge (`arcs`) is an `A` command: radius from the bulge, large-arc flag |θ| > π, sweep 0 for a
+ *   counter-clockwise arc of the model (the flip keeps it counter-clockwise on screen).
+ * - Optional groups, bottom to top: `underlay` (caller markup), the part, then the annotation groups `passive`,
+ *   `repair`, `finding` (numbered circle markers), each a separate `<g class="annotation">`, never part of
+ *   the part's path. A label that would run past the page's edge is turned to the other side of its marker,
+ *   so no label is cut off.
  * - Numbers: at most 3 decimals in mm, 4 in inches (1 µm / 2.5 µm), no exponent, no "-0"; deterministic.
  */
+import { bulgeRadius } from '../geom/bulge.js';
+import { cleanRing, MIN_SEGMENT_MM } from '../geom/clean-ring.js';
 import type { Ring } from '../types.js';
 import { formatNumber } from './number.js';
 import { ringCircleLookup } from './ring-circles.js';
-import { checkDomain, checkRadius, ringLength, unitDivisor } from './rings.js';
+import { checkDomain, checkRadius, unitDivisor } from './rings.js';
 import { TextSink } from './text-sink.js';
 import type { ExtraLayer, RingCircle, WriterExtra, WriterInput } from './types.js';
 import { escapeXml } from './xml.js';
@@ -35,18 +43,24 @@ const PART_STROKE_MM = 0.1;
 const EXTRA_STROKE_MM = 0.2;
 /** Marker circle radius as a share of the larger domain side. */
 const MARKER_SHARE = 0.015;
+/** Width of one label character as a share of the font size (sans-serif digits and letters stay below it). */
+const CHAR_WIDTH_SHARE = 0.65;
 
 /**
  * Number formatting and path output in the SVG frame (output units, y down). `fx`/`fy` are the only place
  * where model coordinates (mm, y up) become SVG coordinates.
  */
 class SvgFrame {
+  /** Shortest written segment, output units: 1 µm, or one unit of the last decimal if that is larger. */
+  readonly minSegment: number;
   constructor(
     readonly out: TextSink,
     readonly div: number,
     readonly maxY: number,
     readonly decimals: number,
-  ) {}
+  ) {
+    this.minSegment = Math.max(MIN_SEGMENT_MM / div, 10 ** -decimals);
+  }
 
   /** Model x (mm) → SVG x (output units). */
   fx(x: number): number {
@@ -72,21 +86,42 @@ class SvgFrame {
     return formatNumber(this.fy(y), this.decimals);
   }
 
-  /** Writes `M x y L x y x y … Z` sub-paths (space-separated) for every ring with ≥ 3 points. */
-  rings(rings: readonly Ring[], first: boolean): boolean {
+  /**
+   * Writes `M x y L x y x y … Z` sub-paths (space-separated) for every ring that cleans to ≥ 3 points; an edge
+   * with a non-zero bulge (`bulges[k][i]`, model frame) is an `A` command.
+   */
+  rings(rings: readonly Ring[], first: boolean, bulges?: readonly (readonly number[] | null | undefined)[]): boolean {
     const { out, decimals } = this;
-    for (const ring of rings) {
-      const n = ringLength(ring);
-      if (n === 0) continue;
+    // clean in the SVG frame: x / div and (maxY − y) / div are rounded together with the written decimals
+    rings.forEach((ring, k) => {
+      // cleaned in the SVG frame, so each written number is rounded once
+      const flipped = ring.map(([x, y]) => [x, this.maxY - y] as const);
+      const c = cleanRing(flipped, this.div, decimals, this.minSegment, bulges?.[k] ?? null);
+      if (!c) return;
+      const { xy, bulge } = c;
+      const n = xy.length >> 1;
       out.str(first ? 'M' : ' M');
       first = false;
+      out.num(xy[0], decimals).str(' ').num(xy[1], decimals);
+      let line = false;
       for (let i = 0; i < n; i++) {
-        if (i === 1) out.str('L');
-        else if (i > 1) out.str(' ');
-        out.num(this.fx(ring[i][0]), decimals).str(' ').num(this.fy(ring[i][1]), decimals);
+        const j = (i + 1) % n;
+        const b = bulge ? bulge[i] : 0;
+        if (b === 0) {
+          if (j === 0) break; // the closing edge is the Z
+          out.str(line ? ' ' : 'L');
+          line = true;
+          out.num(xy[2 * j], decimals).str(' ').num(xy[2 * j + 1], decimals);
+        } else {
+          line = false;
+          const chord = Math.hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
+          const r = formatNumber(bulgeRadius(chord, b), decimals);
+          out.str(`A${r} ${r} 0 ${Math.abs(b) > 1 ? 1 : 0} ${b > 0 ? 0 : 1} `);
+          out.num(xy[2 * j], decimals).str(' ').num(xy[2 * j + 1], decimals);
+        }
       }
       out.str(' Z');
-    }
+    });
     return first;
   }
 
@@ -135,7 +170,7 @@ export function writeSvg(input: WriterInput): string {
   input.polygons.polygons.forEach((polygon, i) => {
     for (let k = 0; k <= polygon.holes.length; k++) {
       const circle = circleOf(i, k) !== undefined;
-      const n = circle ? 0 : ringLength(k === 0 ? polygon.outer : polygon.holes[k - 1]);
+      const n = circle ? 0 : (k === 0 ? polygon.outer : polygon.holes[k - 1]).length >= 3 ? (k === 0 ? polygon.outer : polygon.holes[k - 1]).length : 0;
       if (circle) circles++;
       if (circle || n > 0) {
         if (k === 0) outers++;
@@ -167,30 +202,37 @@ export function writeSvg(input: WriterInput): string {
     for (let k = 0; k <= polygon.holes.length; k++) {
       const c = circleOf(i, k);
       if (c !== undefined) first = f.circle(c, k > 0, first);
-      else first = f.rings([k === 0 ? polygon.outer : polygon.holes[k - 1]], first);
+      else first = f.rings([k === 0 ? polygon.outer : polygon.holes[k - 1]], first, [input.arcs?.[i]?.[k]]);
     }
   });
   out.str('"/>\n');
 
   const markerR = (Math.max(maxX - minX, maxY - minY) * MARKER_SHARE) / div;
+  const page = { left: minX / div, width: (maxX - minX) / div, height: (maxY - minY) / div };
   for (const layer of ['passive', 'repair', 'finding'] as const) {
     const entries = (input.extras ?? []).filter((e) => e.layer === layer);
     const drawn = entries.some(
-      (e) => (e.rings ?? []).some((r) => ringLength(r) > 0) || (e.circles?.length ?? 0) + (e.markers?.length ?? 0) > 0,
+      (e) => (e.rings ?? []).some((r) => r.length >= 3) || (e.circles?.length ?? 0) + (e.markers?.length ?? 0) > 0,
     );
     if (!drawn) continue;
-    out.str(`<g id="${layer}" fill="none" stroke="${COLORS[layer]}" stroke-width="${f.len(EXTRA_STROKE_MM)}">\n`);
-    layerBody(entries, f, markerR, COLORS[layer]);
+    out.str(`<g id="${layer}" class="annotation" fill="none" stroke="${COLORS[layer]}" stroke-width="${f.len(EXTRA_STROKE_MM)}">\n`);
+    layerBody(entries, f, markerR, COLORS[layer], page);
     out.str('</g>\n');
   }
   out.str('</svg>\n');
   return out.text();
 }
 
-/** Rings as one unfilled path, circles as `<circle>`, markers as a circle and its label. */
-function layerBody(entries: readonly WriterExtra[], f: SvgFrame, markerR: number, color: string): void {
+/** Rings as one unfilled path, circles as `<circle>`, markers as a circle and its label kept on the page. */
+function layerBody(
+  entries: readonly WriterExtra[],
+  f: SvgFrame,
+  markerR: number,
+  color: string,
+  page: { left: number; width: number; height: number },
+): void {
   const out = f.out;
-  if (entries.some((e) => (e.rings ?? []).some((r) => ringLength(r) > 0))) {
+  if (entries.some((e) => (e.rings ?? []).some((r) => r.length >= 3))) {
     out.str('<path d="');
     let first = true;
     for (const e of entries) first = f.rings(e.rings ?? [], first);
@@ -202,15 +244,22 @@ function layerBody(entries: readonly WriterExtra[], f: SvgFrame, markerR: number
     }
   }
   const r = f.num(markerR);
-  const size = f.num(markerR * 1.4);
+  const sizeValue = markerR * 1.4;
+  const size = f.num(sizeValue);
   for (const e of entries) {
     for (const m of e.markers ?? []) {
       const label = escapeXml(m.label);
       const title = m.note ? `${label} ${escapeXml(m.note)}` : label;
       const cx = f.x(m.x);
       const cy = f.y(m.y);
+      // Up and right of the marker by default; turned left / down where the label would leave the page.
+      const width = CHAR_WIDTH_SHARE * sizeValue * m.label.length;
+      const right = f.fx(m.x) + markerR + width <= page.left + page.width;
+      const up = f.fy(m.y) - markerR - sizeValue >= 0;
+      const dx = right ? r : `-${r}`;
+      const dy = up ? `-${r}` : f.num(markerR + sizeValue);
       out.str(`<g class="marker"><title>${title}</title><circle cx="${cx}" cy="${cy}" r="${r}"/>`);
-      out.str(`<text x="${cx}" y="${cy}" dx="${r}" dy="-${r}" font-family="sans-serif" font-size="${size}" `);
+      out.str(`<text x="${cx}" y="${cy}" dx="${dx}" dy="${dy}"${right ? '' : ' text-anchor="end"'} font-family="sans-serif" font-size="${size}" `);
       out.str(`fill="${color}" stroke="none">${label}</text></g>\n`);
     }
   }

@@ -108,6 +108,11 @@ export class TextSink {
     return this.len;
   }
 
+  /** A copy of the bytes written so far (UTF-8). */
+  bytes(): Uint8Array {
+    return this.buf.slice(0, this.len);
+  }
+
   /** Decodes everything written as one string. */
   text(): string {
     return decoder.decode(this.buf.subarray(0, this.len));

@@ -19,6 +19,15 @@ timings.dxf = performance.now() - t;
 t = performance.now();
 const svg = r.svg();
 timings.svg = performance.now() - t;
+// the solids, when a thickness is given (`--formats stl,3mf`)
+const solidBytes: Record<string, number> = {};
+if (settings.thickness !== null) {
+  for (const f of ['stl', '3mf'] as const) {
+    t = performance.now();
+    solidBytes[f] = r.solid(f).length;
+    timings[f] = performance.now() - t;
+  }
+}
 t = performance.now();
 const json = formatJson(r.report);
 timings.json = performance.now() - t;
@@ -31,6 +40,8 @@ console.log(
     wallMs: performance.now() - t0,
     maxRssMb: process.resourceUsage().maxRSS / 1024,
     vertices: r.report.geometry.vertices,
+    solidBytes,
+    arcFit: r.report.geometry.arcFit ?? null,
     builds: r.builds,
     checks: r.report.checks.map((c) => ({ id: c.id, status: c.status, measured: c.measured, locationsTotal: c.locationsTotal })),
     relErr: Math.abs(r.report.threshold.achievedFraction - r.report.threshold.targetFraction) / r.report.threshold.targetFraction,

@@ -63,11 +63,14 @@ describe('checks on the command line', () => {
     for (const ext of ['dxf', 'svg', 'report.json', 'report.html']) expect(existsSync(join(dir, `struts.${ext}`))).toBe(true);
   });
 
-  it('the finding goes to the finding layer of the DXF (read back by dxf-parser)', () => {
+  it('the finding goes to the finding layer of the annotations DXF, never into the part DXF (read back by dxf-parser)', () => {
     const { dir } = setup();
-    cli(['build', 'struts.csv', '--min-member', '4', '--quiet'], dir);
+    cli(['build', 'struts.csv', '--min-member', '4', '--quiet', '--annotations'], dir);
     const Parser = DxfParser as unknown as new () => { parseSync(s: string): { entities: { type: string; layer: string; text?: string; position?: { x: number; y: number } }[] } };
-    const dxf = new Parser().parseSync(readFileSync(join(dir, 'struts.dxf'), 'utf8'));
+    // DESIGN §8: the part file holds the part only
+    const part = new Parser().parseSync(readFileSync(join(dir, 'struts.dxf'), 'utf8'));
+    expect(part.entities.filter((e) => e.layer !== 'outline' && e.layer !== 'hole')).toEqual([]);
+    const dxf = new Parser().parseSync(readFileSync(join(dir, 'struts.notes.dxf'), 'utf8'));
     const onLayer = dxf.entities.filter((e) => e.layer === 'finding');
     expect(onLayer.length).toBeGreaterThan(0);
     const label = onLayer.find((e) => e.type === 'TEXT' || e.type === 'MTEXT');

@@ -139,9 +139,9 @@ describe('findCircleRings', () => {
       ],
     };
     const found = findCircleRings(set, 0.05);
-    expect(found.map(({ polygon, ring, layer }) => ({ polygon, ring, layer }))).toEqual([
-      { polygon: 0, ring: 2, layer: undefined },
-      { polygon: 1, ring: 0, layer: undefined },
+    expect(found.map(({ polygon, ring }) => ({ polygon, ring }))).toEqual([
+      { polygon: 0, ring: 2 },
+      { polygon: 1, ring: 0 },
     ]);
     // analytic centres and radii of the two circles
     expect(found[0].x).toBeCloseTo(60, 9);

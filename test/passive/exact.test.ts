@@ -36,9 +36,19 @@ const fewest = (r: number, s: number): number => {
   while (sagitta(n, r) > s) n++;
   return n;
 };
+/** analytic: area of the regular n-gon circumscribed about a circle of radius r, n r² tan(π/n). */
+const circumscribed = (n: number, r: number): number => n * r * r * Math.tan(Math.PI / n);
+/** analytic: how far the vertices of the circumscribed n-gon lie outside the circle, r (1/cos(π/n) − 1). */
+const overshoot = (n: number, r: number): number => r * (1 / Math.cos(Math.PI / n) - 1);
+/** analytic: the fewest vertices of a circumscribed regular polygon whose vertices lie within s of the circle (at least 8). */
+const fewestOutside = (r: number, s: number): number => {
+  let n = 8;
+  while (overshoot(n, r) > s) n++;
+  return n;
+};
 
 describe('applyPassiveExact', () => {
-  it('a 100 × 60 plate minus a void circle Ø10 at (30, 30): area 6000 − inscribed polygon, one RingCircle r 5 at (30, 30)', () => {
+  it('a 100 × 60 plate minus a void circle Ø10 at (30, 30): area 6000 − circumscribed polygon, one RingCircle r 5 at (30, 30)', () => {
     const set = rectSet(0, 0, 100, 60);
     const snapshot = JSON.stringify(set);
     const res = applyPassiveExact(set, regionsOf(region('void', { kind: 'circle', cx: 30, cy: 30, r: 5 })), [0, 0, 100, 60], TOL);
@@ -47,13 +57,14 @@ describe('applyPassiveExact', () => {
     expect(res.polygons.polygons[0].holes).toHaveLength(1);
     expect(ringArea(hole)).toBeLessThan(0); // holes clockwise (DESIGN §3)
     const n = hole.length;
-    expect(n).toBe(fewest(5, TOL / 4)); // polygonised within a quarter of the tolerance, with no more vertices than needed
+    expect(n).toBe(fewestOutside(5, TOL / 4)); // polygonised within a quarter of the tolerance, with no more vertices than needed
     const area = polygonSetArea(res.polygons);
-    expect(Math.abs(area - (6000 - inscribed(n, 5)))).toBeLessThan(AREA_EPS);
-    // and within the polygonisation bound of the true answer 6000 − π·25 (analytic)
-    expect(area - (6000 - Math.PI * 25)).toBeGreaterThan(0);
-    expect(area - (6000 - Math.PI * 25)).toBeLessThanOrEqual(2 * Math.PI * 5 * (TOL / 4));
-    expect(res.ringCircles).toEqual([{ polygon: 0, ring: 1, x: 30, y: 30, r: 5, layer: 'passive' }]);
+    expect(Math.abs(area - (6000 - circumscribed(n, 5)))).toBeLessThan(AREA_EPS);
+    // the polygon contains the disc: never more material than the true answer 6000 − π·25 (analytic), and
+    // within the polygonisation bound of it
+    expect(area - (6000 - Math.PI * 25)).toBeLessThan(0);
+    expect(6000 - Math.PI * 25 - area).toBeLessThanOrEqual(2 * Math.PI * 5.5 * (TOL / 4));
+    expect(res.ringCircles).toEqual([{ polygon: 0, ring: 1, x: 30, y: 30, r: 5 }]);
     expect(res.solidRings).toEqual([]);
     expect(JSON.stringify(set)).toBe(snapshot); // input unchanged
   });
@@ -67,11 +78,12 @@ describe('applyPassiveExact', () => {
     expect(res.polygons.polygons).toHaveLength(1);
     expect(res.polygons.polygons[0].holes).toHaveLength(0); // the bite is part of the outer ring
     const exact = 4800 - (Math.PI * r * r - segment(r, d)); // analytic: disc area inside the material
-    // the part of the inscribed polygon inside the material misses at most the whole disc's deficit (analytic)
-    const deficit = Math.PI * r * r - inscribed(fewest(r, TOL / 4), r);
+    // the circumscribed polygon contains the disc, so at least the disc's part is removed, and at most the
+    // polygon's whole excess over the disc more (analytic)
+    const excess = circumscribed(fewestOutside(r, TOL / 4), r) - Math.PI * r * r;
     const area = polygonSetArea(res.polygons);
-    expect(area).toBeGreaterThanOrEqual(exact - AREA_EPS);
-    expect(area - exact).toBeLessThanOrEqual(deficit + AREA_EPS);
+    expect(area).toBeLessThanOrEqual(exact + AREA_EPS);
+    expect(exact - area).toBeLessThanOrEqual(excess + AREA_EPS);
   });
 
   it('a void circle crossing the domain edge: clipped there, no RingCircle, area by the segment formula', () => {
@@ -81,8 +93,8 @@ describe('applyPassiveExact', () => {
     expect(res.ringCircles).toEqual([]);
     const exact = 6000 - (Math.PI * r * r - segment(r, d)); // analytic
     const area = polygonSetArea(res.polygons);
-    expect(area).toBeGreaterThanOrEqual(exact - AREA_EPS);
-    expect(area - exact).toBeLessThanOrEqual(Math.PI * r * r - inscribed(fewest(r, TOL / 4), r) + AREA_EPS);
+    expect(area).toBeLessThanOrEqual(exact + AREA_EPS);
+    expect(exact - area).toBeLessThanOrEqual(circumscribed(fewestOutside(r, TOL / 4), r) - Math.PI * r * r + AREA_EPS);
   });
 
   it('a solid pad adds only its uncovered part: 50 × 60 plate ∪ pad 40…70 × 20…30 = 3000 + 20 × 10', () => {
@@ -101,9 +113,9 @@ describe('applyPassiveExact', () => {
       expect(res.polygons.polygons).toHaveLength(1); // the pad touches the plate along x = 70: one piece
       const h = res.polygons.polygons[0].holes;
       expect(h).toHaveLength(1);
-      // analytic: 70·60 + 20·20 minus the inscribed polygon of the hole
-      expect(Math.abs(polygonSetArea(res.polygons) - (4200 + 400 - inscribed(h[0].length, 5)))).toBeLessThan(AREA_EPS);
-      expect(res.ringCircles).toEqual([{ polygon: 0, ring: 1, x: 80, y: 30, r: 5, layer: 'passive' }]);
+      // analytic: 70·60 + 20·20 minus the circumscribed polygon of the hole
+      expect(Math.abs(polygonSetArea(res.polygons) - (4200 + 400 - circumscribed(h[0].length, 5)))).toBeLessThan(AREA_EPS);
+      expect(res.ringCircles).toEqual([{ polygon: 0, ring: 1, x: 80, y: 30, r: 5 }]);
     }
   });
 
@@ -116,12 +128,12 @@ describe('applyPassiveExact', () => {
     );
     expect(res.polygons.polygons).toHaveLength(1);
     const p = res.polygons.polygons[0];
-    // analytic: annulus between the two inscribed polygons
-    expect(Math.abs(polygonSetArea(res.polygons) - (inscribed(p.outer.length, 12) - inscribed(p.holes[0].length, 5.5)))).toBeLessThan(AREA_EPS);
-    expect(p.outer.length).toBe(fewest(12, TOL / 4));
+    // analytic: annulus between the two circumscribed polygons
+    expect(Math.abs(polygonSetArea(res.polygons) - (circumscribed(p.outer.length, 12) - circumscribed(p.holes[0].length, 5.5)))).toBeLessThan(AREA_EPS);
+    expect(p.outer.length).toBe(fewestOutside(12, TOL / 4));
     expect(res.ringCircles).toEqual([
-      { polygon: 0, ring: 0, x: 50, y: 30, r: 12, layer: 'passive' },
-      { polygon: 0, ring: 1, x: 50, y: 30, r: 5.5, layer: 'passive' },
+      { polygon: 0, ring: 0, x: 50, y: 30, r: 12 },
+      { polygon: 0, ring: 1, x: 50, y: 30, r: 5.5 },
     ]);
     expect(res.solidRings).toHaveLength(1);
   });
@@ -182,7 +194,9 @@ describe('applyPassiveExact', () => {
     for (const c of res.ringCircles) {
       const p = res.polygons.polygons[c.polygon];
       const ring = c.ring === 0 ? p.outer : p.holes[c.ring - 1];
-      for (const [x, y] of ring) expect(Math.abs(Math.hypot(x - c.x, y - c.y) - c.r)).toBeLessThan(1e-6);
+      // every vertex on the circumscribed polygon's circle, r / cos(π/n) (analytic)
+      const R = c.r / Math.cos(Math.PI / ring.length);
+      for (const [x, y] of ring) expect(Math.abs(Math.hypot(x - c.x, y - c.y) - R)).toBeLessThan(1e-6);
     }
     // the pad between the holes (x 200…218 clears both Ø11 holes, y 18…42) is all material: 18 × 24 mm² (analytic)
     const padCore = booleanOp('intersection', ringsOf(res.polygons), [rectRing(200, 18, 218, 42)]);

@@ -52,9 +52,10 @@ describe('DXF re-read by dxf-parser', () => {
       expect(dxf.header['$INSUNITS']).toBe(units === 'mm' ? 4 : 1);
       expect(dxf.header['$MEASUREMENT']).toBe(units === 'mm' ? 1 : 0);
       const div = units === 'in' ? 25.4 : 1;
-      const extmin = dxf.header['$EXTMIN'] as { x: number; y: number };
-      const extmax = dxf.header['$EXTMAX'] as { x: number; y: number };
-      // the domain [-10, -5, 180, 70] mm of sampleInput
+      // $LIMMIN/$LIMMAX: the domain [-10, -5, 180, 70] mm of sampleInput ($EXTMIN/$EXTMAX, the bounds of the
+      // entities, are tested in test/write/cad-files.test.ts)
+      const extmin = dxf.header['$LIMMIN'] as { x: number; y: number };
+      const extmax = dxf.header['$LIMMAX'] as { x: number; y: number };
       expect(extmin.x).toBeCloseTo(-10 / div, 6);
       expect(extmin.y).toBeCloseTo(-5 / div, 6);
       expect(extmax.x).toBeCloseTo(180 / div, 6);

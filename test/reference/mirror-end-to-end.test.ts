@@ -92,9 +92,9 @@ function runBuild(bytes: Uint8Array, s: Settings): Outcome {
   const lines = dxf.entities.filter((e): e is ILwpolylineEntity => e.type === 'LWPOLYLINE');
   const outers = lines.filter((l) => l.layer === 'outline').map((l) => l.vertices.map((v): Point => [v.x, v.y]));
   const holes = lines.filter((l) => l.layer === 'hole').map((l) => l.vertices.map((v): Point => [v.x, v.y]));
-  // DXF header: $EXTMIN / $EXTMAX are the domain corners (src/write/dxf.ts)
-  const lo = dxf.header.$EXTMIN as { x: number; y: number };
-  const hi = dxf.header.$EXTMAX as { x: number; y: number };
+  // DXF header: $LIMMIN / $LIMMAX are the domain corners (src/write/dxf.ts; $EXTMIN/$EXTMAX bound the entities)
+  const lo = dxf.header.$LIMMIN as { x: number; y: number };
+  const hi = dxf.header.$LIMMAX as { x: number; y: number };
   expect(res.report.geometry.polygons).toBe(outers.length);
   return {
     // holes are attached to the first outer ring: the disc has none, and the count is checked separately

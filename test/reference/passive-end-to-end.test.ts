@@ -35,13 +35,13 @@ function run(extra: string[] = [], file = passive) {
 }
 
 describe('passive regions through build (DXF read back by dxf-parser)', () => {
-  it('a passive-void circle of diameter 10 is written as a DXF CIRCLE of radius 5 on layer passive', () => {
+  it('a passive-void circle of diameter 10 is written as a DXF CIRCLE of radius 5 on layer hole', () => {
     const { dir, r } = run();
     expect(r.code).toBe(0);
     const dxf = new DxfParser().parseSync(readFileSync(join(dir, 'out/plate.dxf'), 'utf8'));
     const circles = (dxf?.entities ?? []).filter((e) => e.type === 'CIRCLE') as ICircleEntity[];
     expect(circles).toHaveLength(1);
-    expect(circles[0].layer).toBe('passive');
+    expect(circles[0].layer).toBe('hole'); // DESIGN §8: every hole of the part on `hole`
     expect(circles[0].radius).toBeCloseTo(5, 9); // the file's diameter 10
     expect(circles[0].center.x).toBeCloseTo(20, 9);
     expect(circles[0].center.y).toBeCloseTo(12, 9);
@@ -57,8 +57,19 @@ describe('passive regions through build (DXF read back by dxf-parser)', () => {
     expect(report.settings.passive).toBe('plate.passive.json');
     // the pad's top edge is the file's y = 28 exactly: exact booleans, not a contour of cells
     expect(report.geometry.bbox).toEqual([0, 0, 60, 28]);
-    // final area = smoothed area + what the exact booleans changed (the report's own bookkeeping, to 1e-9 mm²)
-    expect(report.geometry.area).toBeCloseTo(report.smoothing.area + report.passive.area, 6);
+    // final area = smoothed area + what the exact booleans changed, except that the hole is written (and
+    // measured) as the true circle instead of its circumscribed polygon: the difference is that polygon's
+    // excess over the disc, at most 2π·r·(tolerance / 4) (analytic)
+    const change = report.geometry.area - (report.smoothing.area + report.passive.area);
+    expect(change).toBeGreaterThan(0);
+    expect(change).toBeLessThanOrEqual(2 * Math.PI * 5 * (report.smoothing.tolerance / 4));
+    // and it is the area the DXF holds: the outline polyline (shoelace) minus the circle, as dxf-parser reads them
+    const dxf = new DxfParser().parseSync(readFileSync(join(dir, 'out/plate.dxf'), 'utf8'));
+    const outline = (dxf?.entities ?? []).find((e) => e.type === 'LWPOLYLINE') as ILwpolylineEntity;
+    const v = outline.vertices;
+    const shoelace = v.reduce((a, p, i) => a + p.x * v[(i + 1) % v.length].y - v[(i + 1) % v.length].x * p.y, 0) / 2;
+    const circle = (dxf?.entities ?? []).find((e) => e.type === 'CIRCLE') as ICircleEntity;
+    expect(report.geometry.area).toBeCloseTo(shoelace - Math.PI * circle.radius ** 2, 6);
     // the disc is removed whole: the final area is below the band-plus-pad area by at least the inscribed
     // polygon of the circle (analytic (n/2) r² sin(2π/n) ≥ 0.99 π r² for the polygonisation used)
     expect(report.geometry.area).toBeLessThan(60 * 28 - 0.99 * Math.PI * 25);

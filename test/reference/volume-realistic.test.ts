@@ -28,9 +28,11 @@ describe('volume-preserving threshold on realistic optimizer grids', () => {
         // The target is the optimizer's own volume: numpy's mean of the grid (float64 sums agree to ~1e-15).
         expect(t.targetFraction).toBeCloseTo(expect_.mean, 12);
         expect(Math.abs(t.achievedFraction - t.targetFraction) / t.targetFraction).toBeLessThanOrEqual(0.001);
-        // The achieved fraction is the area of the written polygons over the domain.
+        // The achieved fraction is the area of the smoothed polygons over the domain; the report's area is that of
+        // the rings as the DXF holds them (coordinates rounded to 1e-6 mm), which moves it by under
+        // perimeter × 1e-6 mm (each vertex moves by at most 0.5e-6·√2 mm).
         const domain = expect_.shape[0] * expect_.shape[1] * h * h;
-        expect(res.report.geometry.area / domain).toBeCloseTo(t.achievedFraction, 12);
+        expect(Math.abs(res.report.geometry.area / domain - t.achievedFraction)).toBeLessThanOrEqual((res.report.geometry.perimeter * 1e-6) / domain);
         // Smoothing stayed within its budget (default 0.25 cell).
         expect(res.report.smoothing.maxDeviation).toBeLessThanOrEqual(0.25 * h + 1e-9);
       });

@@ -18,13 +18,13 @@ import { parseDxf } from '../support/dxf-parser.js';
 const HALF_ULP6 = 0.5e-6 + 1e-12;
 
 /**
- * A 100 × 60 plate with a square hole and a 48-gon bolt hole (r = 5 at (30, 30), drawn as a passive CIRCLE),
+ * A 100 × 60 plate with a square hole and a 48-gon bolt hole (r = 5 at (30, 30), drawn as a CIRCLE on `hole`),
  * and a 64-gon disc (r = 8 at (140, 30), its outer ring drawn as a circle on its own layer) with a 32-gon
  * hole (r = 3, a circle on its own layer, `hole`).
  */
 function circleInput(units: 'mm' | 'in' = 'mm'): WriterInput {
   const ringCircles: RingCircle[] = [
-    { polygon: 0, ring: 2, x: 30, y: 30, r: 5, layer: 'passive' },
+    { polygon: 0, ring: 2, x: 30, y: 30, r: 5 },
     { polygon: 1, ring: 0, x: 140, y: 30, r: 8 },
     { polygon: 1, ring: 1, x: 140, y: 30, r: 3 },
   ];
@@ -48,13 +48,14 @@ describe('DXF: rings as CIRCLE entities, re-read by dxf-parser', () => {
   for (const units of ['mm', 'in'] as const) {
     const div = units === 'in' ? 25.4 : 1; // 1 in = 25.4 mm exactly (NIST SP 811)
 
-    it(`writes a passive bolt hole as a CIRCLE on layer passive and no LWPOLYLINE for it (${units})`, () => {
+    it(`writes a bolt hole as a CIRCLE on layer hole and no LWPOLYLINE for it (${units})`, () => {
       const input = circleInput(units);
       const dxf = parseDxf(writeDxf(input));
       const circles = dxf.entities.filter((e): e is ICircleEntity => e.type === 'CIRCLE');
       const polylines = dxf.entities.filter((e): e is ILwpolylineEntity => e.type === 'LWPOLYLINE');
       // DXF Reference, CIRCLE group codes: 10/20/30 centre, 40 radius; 8 layer (common entity codes).
-      expect(circles.map((c) => c.layer)).toEqual(['passive', 'outline', 'hole']);
+      // DESIGN §8: every hole of the part on `hole`, true circles included
+      expect(circles.map((c) => c.layer)).toEqual(['hole', 'outline', 'hole']);
       const expected = input.ringCircles ?? [];
       circles.forEach((c, k) => {
         expect(Math.abs(c.radius - expected[k].r / div)).toBeLessThanOrEqual(HALF_ULP6);
@@ -76,7 +77,7 @@ describe('DXF: rings as CIRCLE entities, re-read by dxf-parser', () => {
     expect(dxf.entities.map((e) => `${e.type}:${e.layer}`)).toEqual([
       'LWPOLYLINE:outline',
       'LWPOLYLINE:hole',
-      'CIRCLE:passive',
+      'CIRCLE:hole',
       'CIRCLE:outline',
       'CIRCLE:hole',
     ]);

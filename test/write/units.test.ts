@@ -27,7 +27,7 @@ function plate(units: 'mm' | 'in'): WriterInput {
     },
     domain: [-12.7, -25.4, 266.7, 152.4],
     units,
-    ringCircles: [{ polygon: 0, ring: 1, x: 63.5, y: 63.5, r: 5, layer: 'passive' }],
+    ringCircles: [{ polygon: 0, ring: 1, x: 63.5, y: 63.5, r: 5 }],
     extras: [
       { layer: 'passive', circles: [{ x: 220, y: 100, r: 12.7 }] },
       { layer: 'finding', markers: [{ x: 175, y: 60, label: '1' }] },
@@ -50,21 +50,26 @@ describe('DXF in inches', () => {
   });
 
   it('writes extents and limits in inches', () => {
-    // the domain [-12.7, -25.4, 266.7, 152.4] mm is [-0.5, -1, 10.5, 6] in (exact decimals)
+    // limits: the domain [-12.7, -25.4, 266.7, 152.4] mm is [-0.5, -1, 10.5, 6] in (exact decimals)
     for (const [name, x, y] of [
-      ['$EXTMIN', -0.5, -1],
-      ['$EXTMAX', 10.5, 6],
       ['$LIMMIN', -0.5, -1],
       ['$LIMMAX', 10.5, 6],
     ] as const) {
       const p = inch.header[name] as IPoint;
       expect([name, p.x, p.y]).toEqual([name, x, y]);
     }
+    // extents: what is drawn — the plate from (0, 0); the passive circle reaches (232.7 + 12.7) / 25.4 = 9.66 in
+    // right and (100 + 12.7) / 25.4 = 4.437 in up, inside the plate's 10 × 5 in
+    const lo = inch.header.$EXTMIN as IPoint;
+    const hi = inch.header.$EXTMAX as IPoint;
+    expect([lo.x, lo.y]).toEqual([0, 0]);
+    expect(hi.x).toBeGreaterThanOrEqual(10);
+    expect(hi.y).toBeGreaterThanOrEqual(5);
     const vport = (inch.tables as unknown as { viewPort: { viewPorts: { center: IPoint; viewHeight: number }[] } })
       .viewPort.viewPorts[0];
-    // the active viewport is centred on the domain: (5, 2.5) in
-    expect(vport.center.x).toBeCloseTo(5, 6);
-    expect(vport.center.y).toBeCloseTo(2.5, 6);
+    // the active viewport is centred on the extents
+    expect(vport.center.x).toBeCloseTo(hi.x / 2, 6);
+    expect(vport.center.y).toBeCloseTo(hi.y / 2, 6);
   });
 
   it('writes the part, the bolt-hole CIRCLE and the extras in inches', () => {
@@ -72,7 +77,7 @@ describe('DXF in inches', () => {
     expect(pl.map((p) => p.layer)).toEqual(['outline', 'hole']);
     expect(pl[0].vertices.map((v) => [v.x, v.y])).toEqual([[0, 0], [10, 0], [10, 5], [0, 5]]); // 254 × 127 mm
     const circles = inch.entities.filter((e): e is ICircleEntity => e.type === 'CIRCLE');
-    expect(circles.map((c) => c.layer)).toEqual(['passive', 'passive']);
+    expect(circles.map((c) => c.layer)).toEqual(['hole', 'passive']);
     // bolt hole: centre (63.5, 63.5) mm = (2.5, 2.5) in, r = 5 mm = 5/25.4 in
     expect(circles[0].center.x).toBe(2.5);
     expect(circles[0].center.y).toBe(2.5);
