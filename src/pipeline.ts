@@ -128,7 +128,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       passiveSolid: exact?.solidRings ?? [],
       domain: field.domain,
       tolerance: field.tolerance,
-      simplify: Math.max(0, field.tolerance - threshold.smoothed.maxDeviation),
+      simplify: Math.min(Math.max(0, field.tolerance - threshold.smoothed.maxDeviation), field.tolerance / 16),
       pixel: plan.pixel,
       locate: plan.locate,
     });

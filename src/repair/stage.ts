@@ -67,7 +67,7 @@ export function repairStage(input: RepairStageInput): RepairStageRecord {
   const plannedIds = new Set(input.planned.map((p) => p.def.id));
   const ids = input.settings.repair.filter((id) => offReason(id, plannedIds) === null);
   const passiveVoid = input.passive
-    ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, arcSagitta(input.tolerance), 'circumscribed'))
+    ? input.passive.regions.filter((r) => r.role === 'void').map((r) => shapeRing(r.shape, arcSagitta(input.tolerance)))
     : [];
   const has = (c: CheckId) => plannedIds.has(c);
   const run = runRepairs(ids, {

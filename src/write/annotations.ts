@@ -12,7 +12,7 @@ import { booleanOp, offsetRings, ringsOf } from '../geom/clipper.js';
 import { ringArea, ringPerimeter } from '../geom/area.js';
 import { shapeRing } from '../passive/rings.js';
 import type { PassiveRegions } from '../passive/types.js';
-import type { PolygonSet, RepairRecord } from '../types.js';
+import type { Point, PolygonSet, RepairRecord, Ring } from '../types.js';
 import type { WriterExtra, WriterMarker } from './types.js';
 
 export interface AnnotationInput {
@@ -56,5 +56,32 @@ function simpleRegions(set: PolygonSet) {
   const opts = { join: 'miter' as const, miterLimit: 4, arcTolerance: OPEN_MM / 4 };
   const opened = ringsOf(offsetRings(ringsOf(offsetRings(ringsOf(union), -OPEN_MM, opts)), OPEN_MM, opts));
   // a ring thinner on average than the opening is a sliver the rounding could fold over itself
-  return opened.filter((r) => Math.abs(ringArea(r)) > OPEN_MM * ringPerimeter(r));
+  return opened.map(withoutSpikes).filter((r) => r.length >= 3 && Math.abs(ringArea(r)) > OPEN_MM * ringPerimeter(r));
+}
+
+/**
+ * The ring without its spikes: a vertex where the outline turns back on itself (the two edges at it point in
+ * opposite directions within 1°, so the ring runs out and back along one line) is dropped, until none is left.
+ */
+function withoutSpikes(ring: Ring): Ring {
+  let pts = [...ring];
+  const cosLimit = Math.cos((179 * Math.PI) / 180);
+  for (let changed = true; changed && pts.length >= 3; ) {
+    changed = false;
+    const out: Point[] = [];
+    for (let i = 0; i < pts.length; i++) {
+      const a = out.length > 0 ? out[out.length - 1] : pts[(i + pts.length - 1) % pts.length];
+      const b = pts[i];
+      const c = pts[(i + 1) % pts.length];
+      const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
+      const len = Math.hypot(ux, uy) * Math.hypot(vx, vy);
+      if (len > 0 && (ux * vx + uy * vy) / len < cosLimit) {
+        changed = true;
+        continue;
+      }
+      out.push(b);
+    }
+    pts = out;
+  }
+  return pts;
 }

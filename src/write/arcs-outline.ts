@@ -10,6 +10,7 @@
  * arc is that polygon's circumscribed circle (outside the disc), and the domain edge stays straight. No arc
  * leaves the domain. Frame: mm, y up.
  */
+import { passiveCircleTolerance } from '../passive/exact.js';
 import type { PassiveRegions } from '../passive/types.js';
 import type { ArcFitSummary, Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RingBulges } from '../geom/bulge.js';
@@ -48,8 +49,8 @@ function boundaries(input: OutlineArcsInput, eps: number): Boundary[] {
   for (const r of input.passive?.regions ?? []) {
     const shape = r.shape;
     if (shape.kind === 'circle') {
-      // as src/passive/exact.ts polygonises it: circumscribed, within tolerance / 4
-      const R = circumscribedRadius(shape.r, circumscribedSegments(shape.r, input.tolerance / 4));
+      // as src/passive/exact.ts polygonises it: circumscribed, within passiveCircleTolerance
+      const R = circumscribedRadius(shape.r, circumscribedSegments(shape.r, passiveCircleTolerance(input.tolerance)));
       out.push((x, y) => Math.abs(Math.hypot(x - shape.cx, y - shape.cy) - R) <= eps);
     } else {
       const pts: Point[] =

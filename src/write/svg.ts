@@ -43,8 +43,12 @@ const PART_STROKE_MM = 0.1;
 const EXTRA_STROKE_MM = 0.2;
 /** Marker circle radius as a share of the larger domain side. */
 const MARKER_SHARE = 0.015;
-/** Width of one label character as a share of the font size (sans-serif digits and letters stay below it). */
-const CHAR_WIDTH_SHARE = 0.65;
+/**
+ * Width of one label character as a share of the font size: the labels are digits and capitals (a finding
+ * number, R<k>), whose advance widths in Helvetica/Arial are 0.556 em (digits) to 0.722 em (R) (Adobe's
+ * Helvetica font metrics, from memory).
+ */
+const CHAR_WIDTH_SHARE = 0.75;
 
 /**
  * Number formatting and path output in the SVG frame (output units, y down). `fx`/`fy` are the only place

@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { bulgeCentre, bulgeRadius, bulgeSegmentArea } from '../../src/geom/bulge.js';
 import { fitOutlineArcs } from '../../src/write/arcs-outline.js';
 import { circumscribedRadius, circumscribedSegments } from '../../src/geom/circle.js';
+import { passiveCircleTolerance } from '../../src/passive/exact.js';
 import { flattenSet } from '../../src/geom/flat.js';
 import { locatedDeviation } from '../../src/geom/hausdorff.js';
 import { build } from '../../src/pipeline.js';
@@ -98,8 +99,8 @@ describe('fitOutlineArcs', () => {
   it('a passive void circle stays void: the arcs of its circumscribed polygon never enter the disc', () => {
     const r = 10;
     const tolerance = 0.5;
-    // the hole as src/passive/exact.ts cuts it: the circumscribed polygon within tolerance / 4, clockwise
-    const n = circumscribedSegments(r, tolerance / 4);
+    // the hole as src/passive/exact.ts cuts it: the circumscribed polygon within tolerance / 16, clockwise
+    const n = circumscribedSegments(r, passiveCircleTolerance(tolerance));
     const hole = circle(50, 50, circumscribedRadius(r, n), n).reverse();
     const set: PolygonSet = { polygons: [{ outer: [[0, 0], [100, 0], [100, 100], [0, 100]], holes: [hole] }] };
     const passive = { regions: [{ role: 'void' as const, shape: { kind: 'circle' as const, cx: 50, cy: 50, r }, name: null, path: 'regions[0]' }] };

@@ -27,7 +27,9 @@ const sagitta = (n: number, r: number): number => r * (1 - Math.cos(Math.PI / n)
 /** analytic: area of the circular segment cut off by a chord at distance d from the centre, r² acos(d/r) − d √(r² − d²). */
 const segment = (r: number, d: number): number => r * r * Math.acos(d / r) - d * Math.sqrt(r * r - d * d);
 
-const TOL = 0.5; // outline tolerance, mm: circles within TOL / 4
+const TOL = 0.5; // outline tolerance, mm: circles within TOL / 4 (inscribed), passive circles within TOL / 16 (circumscribed)
+/** How far outside its circle a passive circle's circumscribed polygon reaches at most (passiveCircleTolerance). */
+const OUT = TOL / 16;
 const AREA_EPS = 1e-5; // mm²: vertices are rounded to a quantum of ~2.4e-7 mm; perimeter × quantum ≈ 1e-5
 /** analytic: the fewest vertices of an inscribed regular polygon with sagitta ≤ s (the polygonisation rule; the tool
  * uses at least 8, and every circle here needs more). */
@@ -57,13 +59,13 @@ describe('applyPassiveExact', () => {
     expect(res.polygons.polygons[0].holes).toHaveLength(1);
     expect(ringArea(hole)).toBeLessThan(0); // holes clockwise (DESIGN §3)
     const n = hole.length;
-    expect(n).toBe(fewestOutside(5, TOL / 4)); // polygonised within a quarter of the tolerance, with no more vertices than needed
+    expect(n).toBe(fewestOutside(5, OUT)); // polygonised within tolerance/16 outside the circle, with no more vertices than needed
     const area = polygonSetArea(res.polygons);
     expect(Math.abs(area - (6000 - circumscribed(n, 5)))).toBeLessThan(AREA_EPS);
     // the polygon contains the disc: never more material than the true answer 6000 − π·25 (analytic), and
     // within the polygonisation bound of it
     expect(area - (6000 - Math.PI * 25)).toBeLessThan(0);
-    expect(6000 - Math.PI * 25 - area).toBeLessThanOrEqual(2 * Math.PI * 5.5 * (TOL / 4));
+    expect(6000 - Math.PI * 25 - area).toBeLessThanOrEqual(2 * Math.PI * (5 + OUT) * OUT);
     expect(res.ringCircles).toEqual([{ polygon: 0, ring: 1, x: 30, y: 30, r: 5 }]);
     expect(res.solidRings).toEqual([]);
     expect(JSON.stringify(set)).toBe(snapshot); // input unchanged
@@ -80,7 +82,7 @@ describe('applyPassiveExact', () => {
     const exact = 4800 - (Math.PI * r * r - segment(r, d)); // analytic: disc area inside the material
     // the circumscribed polygon contains the disc, so at least the disc's part is removed, and at most the
     // polygon's whole excess over the disc more (analytic)
-    const excess = circumscribed(fewestOutside(r, TOL / 4), r) - Math.PI * r * r;
+    const excess = circumscribed(fewestOutside(r, OUT), r) - Math.PI * r * r;
     const area = polygonSetArea(res.polygons);
     expect(area).toBeLessThanOrEqual(exact + AREA_EPS);
     expect(exact - area).toBeLessThanOrEqual(excess + AREA_EPS);
@@ -94,7 +96,7 @@ describe('applyPassiveExact', () => {
     const exact = 6000 - (Math.PI * r * r - segment(r, d)); // analytic
     const area = polygonSetArea(res.polygons);
     expect(area).toBeLessThanOrEqual(exact + AREA_EPS);
-    expect(exact - area).toBeLessThanOrEqual(circumscribed(fewestOutside(r, TOL / 4), r) - Math.PI * r * r + AREA_EPS);
+    expect(exact - area).toBeLessThanOrEqual(circumscribed(fewestOutside(r, OUT), r) - Math.PI * r * r + AREA_EPS);
   });
 
   it('a solid pad adds only its uncovered part: 50 × 60 plate ∪ pad 40…70 × 20…30 = 3000 + 20 × 10', () => {
@@ -130,7 +132,7 @@ describe('applyPassiveExact', () => {
     const p = res.polygons.polygons[0];
     // analytic: annulus between the two circumscribed polygons
     expect(Math.abs(polygonSetArea(res.polygons) - (circumscribed(p.outer.length, 12) - circumscribed(p.holes[0].length, 5.5)))).toBeLessThan(AREA_EPS);
-    expect(p.outer.length).toBe(fewestOutside(12, TOL / 4));
+    expect(p.outer.length).toBe(fewestOutside(12, OUT));
     expect(res.ringCircles).toEqual([
       { polygon: 0, ring: 0, x: 50, y: 30, r: 12 },
       { polygon: 0, ring: 1, x: 50, y: 30, r: 5.5 },

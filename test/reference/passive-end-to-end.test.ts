@@ -59,7 +59,7 @@ describe('passive regions through build (DXF read back by dxf-parser)', () => {
     expect(report.geometry.bbox).toEqual([0, 0, 60, 28]);
     // final area = smoothed area + what the exact booleans changed, except that the hole is written (and
     // measured) as the true circle instead of its circumscribed polygon: the difference is that polygon's
-    // excess over the disc, at most 2π·r·(tolerance / 4) (analytic)
+    // excess over the disc, at most 2π·r·(tolerance / 4) (analytic; its vertices lie within tolerance/16 outside)
     const change = report.geometry.area - (report.smoothing.area + report.passive.area);
     expect(change).toBeGreaterThan(0);
     expect(change).toBeLessThanOrEqual(2 * Math.PI * 5 * (report.smoothing.tolerance / 4));

@@ -150,7 +150,10 @@ describe('the annotations file (--annotations)', () => {
   it('holds passive references, findings and repair regions, on layers that do not plot (290 = 0), and no part', () => {
     const dxf = parseDxf(notes);
     const layers = new Set(dxf.entities.map((e) => e.layer));
-    expect([...layers].sort()).toEqual(['finding', 'passive', 'repair']);
+    // findings only when a check of the repaired part warned or failed with a place
+    const located = built.report.checks.filter((c) => c.status !== 'pass').reduce((n, c) => n + c.locations.length, 0);
+    expect([...layers].sort()).toEqual(located > 0 ? ['finding', 'passive', 'repair'] : ['passive', 'repair']);
+    expect(dxf.entities.filter((e) => e.layer === 'finding' && e.type === 'POINT')).toHaveLength(located);
     // DXF Reference, LAYER: group 290 plotting flag, 0 = do not plot
     const pairs = dxfPairs(notes);
     const plot = new Map<string, string>();
@@ -164,8 +167,10 @@ describe('the annotations file (--annotations)', () => {
     expect(Object.fromEntries(plot)).toEqual({ passive: '0', finding: '0', repair: '0' });
     // the passive file's six regions: five circles and one rectangle (the motor pad)
     expect(dxf.entities.filter((e) => e.layer === 'passive').map((e) => e.type).sort()).toEqual(['CIRCLE', 'CIRCLE', 'CIRCLE', 'CIRCLE', 'CIRCLE', 'LWPOLYLINE']);
-    // one numbered marker per finding, as the report numbers them
-    expect(dxf.entities.filter((e) => e.layer === 'finding' && e.type === 'POINT').length).toBeGreaterThan(0);
+    // one labelled point per place a repair acted, as the report lists them
+    const places = built.report.repairs.reduce((n, r) => n + r.locations.length, 0);
+    expect(places).toBeGreaterThan(0);
+    expect(dxf.entities.filter((e) => e.layer === 'repair' && e.type === 'POINT')).toHaveLength(places);
   });
 
   it('draws every repair region as simple rings: no ring crosses itself', () => {
@@ -212,8 +217,8 @@ describe('the demo SVG', () => {
       const x = Number(m[1]) + Number(m[3]);
       const y = Number(m[2]) + Number(m[4]);
       const size = Number(m[6]);
-      // a sans-serif glyph is at most about one font size wide and tall (common practice, no source)
-      const w = size * m[7].length;
+      // digits and capitals are at most 0.722 em wide in Helvetica/Arial (Adobe's font metrics, from memory)
+      const w = 0.75 * size * m[7].length;
       const [left, right] = m[5] ? [x - w, x] : [x, x + w];
       expect(left).toBeGreaterThanOrEqual(0);
       expect(right).toBeLessThanOrEqual(width + 1e-9);
