@@ -16,10 +16,8 @@ import type { OutputFormat, Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
 import { readGridInput, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { displayPath, reportExitCode } from './io.js';
+import { outputNames } from './output-names.js';
 
-const SUFFIX: Record<OutputFormat, string> = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html', stl: '.stl', '3mf': '.3mf' };
-/** The annotations file beside the part's DXF (`--annotations`, docs/output-formats.md). */
-const NOTES_SUFFIX = '.notes.dxf';
 
 function stem(file: string): string {
   const b = basename(file);
@@ -75,8 +73,7 @@ export function buildFile(settings: Settings, opts: BuildFileOptions): { report:
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
-  const paths: { format: OutputFormat; path: string; annotations?: true }[] = formats.map((f) => ({ format: f, path: base + SUFFIX[f] }));
-  if (settings.annotations && formats.includes('dxf')) paths.splice(formats.indexOf('dxf') + 1, 0, { format: 'dxf', path: base + NOTES_SUFFIX, annotations: true });
+  const paths = outputNames(base, formats, settings.annotations);
   report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format, ...(p.annotations ? { annotations: true as const } : {}) }));
   const planned: PlannedOutput[] = [];
   let svg: string | undefined;

@@ -18,7 +18,8 @@ import { formatJson } from '../src/report/json.js';
 import { densityRaster, thicknessMax, thicknessRaster, type PlacedRaster } from '../src/report/raster.js';
 import type { Settings } from '../src/settings.js';
 import type { PolygonSet } from '../src/types.js';
-import { OUTPUT_SUFFIX, type Embedded, type FlatRings, type FromWorker, type PlacedRgba, type ToWorker } from './shared/protocol.js';
+import { type Embedded, type FlatRings, type FromWorker, type PlacedRgba, type ToWorker } from './shared/protocol.js';
+import { outputNames } from '../cli/output-names.js';
 
 interface WorkerScope {
   onmessage: ((e: { data: ToWorker }) => void) | null;
@@ -134,7 +135,7 @@ function inputKey(s: Settings): string {
 
 function runBuild(s: Settings): BuildResult {
   const result = build({ name: data!.file, bytes: bytes! }, s, { passive: s.passive === null ? null : passive });
-  result.report.outputs = s.formats.map((f) => ({ file: data!.outputsBase + OUTPUT_SUFFIX[f], format: f }));
+  result.report.outputs = outputNames(data!.outputsBase, s.formats, s.annotations).map((p) => ({ file: p.path, format: p.format, ...(p.annotations ? { annotations: true as const } : {}) }));
   return result;
 }
 

@@ -27,8 +27,8 @@ export interface Embedded {
   readonly cells: number;
 }
 
-/** Suffix of each output file, as cli/run.ts names them. */
-export const OUTPUT_SUFFIX = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' } as const;
+/** Suffix of each output file, as the CLI names them. */
+export { OUTPUT_SUFFIX } from '../../cli/output-names.js';
 
 /** A set of rings flattened for transfer: ring k is coords[2·start[k] … 2·start[k+1]), hole[k] = 1 for a hole. */
 export interface FlatRings {
