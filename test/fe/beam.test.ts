@@ -9,7 +9,7 @@ const solid = (n: number) => ({ kind: 'density' as const, values: new Float64Arr
 describe('element', () => {
   it('the square element equals the closed form of the 88-line code', () => {
     // Andreassen, Clausen, Schevenels, Lazarov & Sigmund, "Efficient topology optimization in MATLAB using 88
-    // lines of code", SMO 43:1–16, 2011, DOI 10.1007/s00158-010-0594-7: KE = 1/(1−ν²)/24 ([A11 A12; A12ᵀ A11]
+    // lines of code", SMO 43:1–16, 2011, DOI 10.1007/s00158-010-0594-7: the element stiffness = 1/(1−ν²)/24 ([A11 A12; A12ᵀ A11]
     // + ν [B11 B12; B12ᵀ B11]), same node order (lower-left first, counter-clockwise, y up).
     const nu = 0.3;
     const A11 = [[12, 3, -6, -3], [3, 12, 3, 0], [-6, 3, 12, -3], [-3, 0, -3, 12]];

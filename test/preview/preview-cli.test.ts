@@ -121,7 +121,7 @@ describe('the page state as command-line words (web/shared/options.ts)', () => {
   const argvs = [
     ['--cell-size', '2', '--process', 'waterjet-cut', '--thickness', '8', '--passive', PASSIVE, '--repair'],
     ['--cell-size', '0.5,0.25', '--row-order', 'bottom-up', '--value-range', '0,255', '--clip', '--max-cells', '99', '--volume-fraction', '0.4'],
-    ['--field', 'xPhys', '--image-solid', 'light', '--image-channel', 'g'],
+    ['--field', 'density', '--image-solid', 'light', '--image-channel', 'g'],
     ['--level', '0.3', '--saddle', 'split', '--smooth', '0', '--tolerance', '0.1', '--mirror', 'left', '--mirror', 'top', '--circles'],
     ['--min-member', '2.5', '--min-hole', '3', '--tool-radius', '1e-1', '--min-island-area', '4', '--min-hole-area', '5', '--grey-warn', '30'],
     ['--severity', 'islands=fail', '--severity', 'grey-level=off', '--fail-on', 'warn', '--repair=fill-holes,thicken', '--formats', 'dxf,json', '--units', 'in'],

@@ -54,13 +54,13 @@ describe('the CLI with the new formats', () => {
     copyFileSync(join(fixtures, 'mat/two-matrices.mat'), join(d, 'opt.mat'));
     const bad = cli(['build', 'opt.mat'], d);
     expect(bad.code).toBe(2);
-    expect(bad.stderr).toMatch(/E_MAT_FIELD.*"x" \(37×53 double\), "xold" \(37×53 double\); choose one with --field <name>/);
+    expect(bad.stderr).toMatch(/E_MAT_FIELD.*"x" \(37×53 double\), "previous" \(37×53 double\); choose one with --field <name>/);
     expect(readdirSync(d)).toEqual(['opt.mat']); // nothing written
-    const ok = cli(['build', 'opt.mat', '--field', 'xold', '--cell-size', '2', '--json', '--formats', 'json'], d);
+    const ok = cli(['build', 'opt.mat', '--field', 'previous', '--cell-size', '2', '--json', '--formats', 'json'], d);
     expect(ok.code).toBeLessThan(2);
     const rep = JSON.parse(ok.stdout);
     expect(rep.input.format).toBe('mat');
-    expect(rep.settings).toMatchObject({ field: 'xold', cellSizeDefaulted: false, cellSizeSource: 'option' });
+    expect(rep.settings).toMatchObject({ field: 'previous', cellSizeDefaulted: false, cellSizeSource: 'option' });
   });
   it('a VTK spacing is reported as the cell size, not as a default', () => {
     const d = tempDir();

@@ -48,13 +48,13 @@ describe('choosing the variable', () => {
     expectSameGrid(r, read(loadFixture(DIR, 'with-scalars.npy'), 'w.npy'));
   });
   it('refuses two candidates, listing both with sizes, and reads the one named by --field', () => {
-    expect(() => read(loadFixture(DIR, 'two-matrices.mat'), 't.mat')).toThrow(/expected one real numeric 2-D matrix, found 2: "x" \(37×53 double\), "xold" \(37×53 double\); choose one with --field/);
-    const x = read(loadFixture(DIR, 'two-matrices.mat'), 't.mat', { field: 'xold' });
+    expect(() => read(loadFixture(DIR, 'two-matrices.mat'), 't.mat')).toThrow(/expected one real numeric 2-D matrix, found 2: "x" \(37×53 double\), "previous" \(37×53 double\); choose one with --field/);
+    const x = read(loadFixture(DIR, 'two-matrices.mat'), 't.mat', { field: 'previous' });
     const f = read(loadFixture(DIR, 'double.npy'), 'd.npy');
     for (let k = 0; k < f.grid.values.length; k += 97) expect(x.grid.values[k]).toBe(1 - f.grid.values[k]);
   });
   it('names what exists when --field names nothing', () => {
-    expect(() => read(loadFixture(DIR, 'two-matrices.mat'), 't.mat', { field: 'rho' })).toThrow(/named "rho" \(--field\), found "x" \(37×53 double\), "xold"/);
+    expect(() => read(loadFixture(DIR, 'two-matrices.mat'), 't.mat', { field: 'rho' })).toThrow(/named "rho" \(--field\), found "x" \(37×53 double\), "previous"/);
   });
   it('reads a 3-D array with one dimension of 1, with a warning', () => {
     const r = read(loadFixture(DIR, 'three-d.mat'), 'x.mat');

@@ -40,7 +40,7 @@ describe('VTK image data read as numpy wrote the same field', () => {
       expect(() => read(loadFixture(DIR, f), f, { field: 'u' })).toThrow(/"u": vectors \(3 components\), which is refused: VECTORS arrays are not scalar/);
       expect(() => read(loadFixture(DIR, f), f, { field: 'disp' })).toThrow(/"disp": point data FIELD array, 2052 × 3 float, which is refused: 3 components/);
     }
-    expect(() => read(loadFixture(DIR, 'two-arrays.vti'), 'a.vti')).toThrow(/found 2: "rho" \(cell data, 53×37×1 × 1 Float64\), "xold"/);
+    expect(() => read(loadFixture(DIR, 'two-arrays.vti'), 'a.vti')).toThrow(/found 2: "rho" \(cell data, 53×37×1 × 1 Float64\), "previous"/);
     expect(() => read(loadFixture(DIR, 'appended-raw-uint32.vti'), 'a.vti', { field: 'u' })).toThrow(/"u": .*which is refused: 3 components/);
   });
   it('locates ASCII values by line and column, binary values by byte', () => {
