@@ -24,7 +24,8 @@ import type { SmoothResult } from './smooth/smooth.js';
 import { thresholdStage } from './threshold/stage.js';
 import type { StructureCheckInput } from './check/types.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
-import { writeStage } from './write/stage.js';
+import { writeStage, writtenShape, type WrittenShape } from './write/stage.js';
+import { summarizeGeometry } from './report/geometry.js';
 
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
 
@@ -117,6 +118,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   let exact = passive.exact;
   let repair: RepairStageRecord | null = null;
   let beforeRepair: CheckRecord | null = null;
+  let shape: WrittenShape | undefined;
   if (s.repair.length > 0) {
     repair = repairStage({
       polygons: final,
@@ -141,7 +143,10 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       lap('structure');
     }
     beforeRepair = checks;
-    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
+    // After a repair, volume-fraction judges the area the files will hold (true circles, cleaned rings, arcs).
+    shape = writtenShape({ polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], passive: field.passive, raw: threshold.raw }, s);
+    const writtenArea = summarizeGeometry(shape.polygons, field.domainArea, shape).area;
+    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true, writtenArea }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
     lap('checks');
   }
   const structure = fe !== null && feFinal !== null ? structureStage(fe, feBefore, feFinal, final) : null;
@@ -149,6 +154,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   const files = writeStage(
     { polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], checks: checks.results, repair, passive: field.passive, raw: threshold.raw },
     s,
+    shape,
   );
   lap('write');
   const report = assembleReport({

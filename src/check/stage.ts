@@ -70,6 +70,8 @@ export interface CheckInput {
   readonly greyLevel: number;
   /** True for the re-check after `--repair`: the outline judged is the one written (CheckContext.repaired). */
   readonly repaired?: boolean;
+  /** With `repaired`: the area the files hold, mm² (true circles, cleaned rings; CheckContext.writtenArea). */
+  readonly writtenArea?: number;
 }
 
 export interface CheckRecord {
@@ -104,6 +106,7 @@ export function checkStage(
     morphology: () => (morph ??= buildMorphology(polygons, { domain, pixel: plan.pixel })),
     ...(passiveSolid ? { passiveSolid } : {}),
     ...(input.repaired ? { repaired: true } : {}),
+    ...(input.writtenArea !== undefined ? { writtenArea: input.writtenArea } : {}),
     ...(structure ? { structure } : {}),
   };
   return { results: runChecks(plan.planned, ctx, plan.locate), morphology: () => morph };

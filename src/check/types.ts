@@ -80,6 +80,11 @@ export interface CheckContext {
    */
   readonly repaired?: boolean;
   /**
+   * With `repaired`: the area of the part as the files hold it, mm² (true circles as circles, rings cleaned as
+   * written; src/report/geometry.ts). Absent: the polygon area of `polygons`.
+   */
+  readonly writtenArea?: number;
+  /**
    * The structural re-check of this outline (`--loads`, docs/structure.md; additive, absent without): the input
    * design's analysis, this outline's, and what this outline no longer reaches.
    */

@@ -33,12 +33,12 @@ function percent(f: number): string {
   return `${(100 * f).toFixed(2)} %`;
 }
 
-/** Solid area of `ctx.polygons` over the domain area (mm² / mm²); 0 for an empty domain. */
-export function writtenFraction(ctx: Pick<CheckContext, 'polygons' | 'domain'>): number {
+/** Solid area written (ctx.writtenArea, else the polygon area of `ctx.polygons`) over the domain area; 0 for an empty domain. */
+export function writtenFraction(ctx: Pick<CheckContext, 'polygons' | 'domain' | 'writtenArea'>): number {
   const [x0, y0, x1, y1] = ctx.domain;
   const domainArea = (x1 - x0) * (y1 - y0);
-  let area = 0;
-  for (const p of ctx.polygons.polygons) area += polygonArea(p);
+  let area = ctx.writtenArea ?? 0;
+  if (ctx.writtenArea === undefined) for (const p of ctx.polygons.polygons) area += polygonArea(p);
   return domainArea > 0 ? area / domainArea : 0;
 }
 

@@ -58,13 +58,27 @@ export interface WriteRecord {
   solid(format: 'stl' | '3mf'): Uint8Array;
 }
 
+/**
+ * The part as the files will hold it: true circles where rings are circles (`--circles`, passive circles),
+ * and the arcs and lines of `--arcs`. The pipeline measures it before the final checks, so `volume-fraction`
+ * after a repair judges the area written.
+ */
+export function writtenShape(
+  w: Pick<WriteStageInput, 'polygons' | 'domain' | 'tolerance' | 'passiveCircles' | 'passive' | 'raw'>,
+  s: Pick<Settings, 'circles' | 'arcs'>,
+): WrittenShape {
+  const ringCircles = circleRings(w.polygons, w.passiveCircles, s.circles, w.tolerance);
+  const fit = s.arcs ? fitOutlineArcs({ polygons: w.polygons, ringCircles, passive: w.passive, domain: w.domain, tolerance: w.tolerance, raw: w.raw }) : null;
+  return fit ? { polygons: fit.polygons, ringCircles, arcs: fit.bulges, arcFit: fit.summary } : { polygons: w.polygons, ringCircles };
+}
+
+/** The files of the final outline; `shape` when the pipeline already measured it (writtenShape of the same input). */
 export function writeStage(
   w: WriteStageInput,
   s: Pick<Settings, 'units' | 'circles' | 'arcs' | 'annotations' | 'dxfVersion' | 'thickness'>,
+  shape: WrittenShape = writtenShape(w, s),
 ): WriteRecord {
-  const ringCircles = circleRings(w.polygons, w.passiveCircles, s.circles, w.tolerance);
-  const fit = s.arcs ? fitOutlineArcs({ polygons: w.polygons, ringCircles, passive: w.passive, domain: w.domain, tolerance: w.tolerance, raw: w.raw }) : null;
-  const shape: WrittenShape = fit ? { polygons: fit.polygons, ringCircles, arcs: fit.bulges, arcFit: fit.summary } : { polygons: w.polygons, ringCircles };
+  const { ringCircles } = shape;
   const input: WriterInput = {
     polygons: shape.polygons,
     domain: w.domain,
