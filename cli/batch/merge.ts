@@ -4,7 +4,7 @@
  * are recomputed, and a file that appears in two summaries is refused, naming both.
  */
 import { RhoformError } from '../../src/errors.js';
-import { jsonParseMessage, lineCol, scanJson } from '../../src/passive/json-scan.js';
+import { jsonParseMessage, lineCol, scanJson } from '../../src/json/scan.js';
 import { comparePaths } from './shard.js';
 import { makeSummary, ROW_STATUSES, type BatchSummary, type SummaryRow } from './summary.js';
 

@@ -1,10 +1,10 @@
 /**
  * Reading a strict JSON input file of our own formats (the passive-region file, the loads file): JSON.parse for
- * the values, the position scanner (passive/json-scan.ts) for where each value sits and for repeated keys, and
+ * the values, the position scanner (json/scan.ts) for where each value sits and for repeated keys, and
  * the wording shared by their messages (`file:line:col: key.path: expected …, found …`).
  */
 import { RhoformError, show, type ErrorCode, type Where } from '../errors.js';
-import { MAX_JSON_DEPTH, jsonParseMessage, lineCol, scanJson, type JsonSpot } from '../passive/json-scan.js';
+import { MAX_JSON_DEPTH, jsonParseMessage, lineCol, scanJson, type JsonSpot } from './scan.js';
 
 /** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
 export function describe(v: unknown): string {

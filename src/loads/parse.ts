@@ -11,7 +11,7 @@
  */
 import { RhoformError, show } from '../errors.js';
 import { describe, parseStrictJson, whereOf, type StrictJson } from '../json/strict.js';
-import { elementPath, memberPath } from '../passive/json-scan.js';
+import { elementPath, memberPath } from '../json/scan.js';
 import type { Point } from '../types.js';
 import type { Edge, Fix, Load, LoadsSpec, Selector, Support } from './types.js';
 

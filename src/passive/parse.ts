@@ -12,9 +12,9 @@
  */
 import { RhoformError, show, type Where } from '../errors.js';
 import type { Point } from '../types.js';
-import { describe, jsonOffset } from '../json/strict.js';
+import { describe, parseStrictJson } from '../json/strict.js';
 import { firstInvalidUtf8 } from '../read/utf8.js';
-import { MAX_JSON_DEPTH, elementPath, jsonParseMessage, lineCol, memberPath, scanJson, type JsonScan, type JsonSpot } from './json-scan.js';
+import { elementPath, lineCol, memberPath, type JsonSpot } from '../json/scan.js';
 import { absArea, allCollinear, dropRepeats, firstSelfIntersection } from './polygon-check.js';
 import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
 
@@ -186,13 +186,6 @@ export function parsePassiveBytes(bytes: Uint8Array, file: string): PassiveRegio
 }
 
 /** The refusal of arrays or objects nested deeper than the scanner follows. */
-function tooDeep(src: string, file: string, scan: JsonScan & { ok: false }): RhoformError {
-  return new RhoformError(
-    'E_PASSIVE_FORMAT',
-    `expected at most ${MAX_JSON_DEPTH} levels of nested arrays and objects (the format needs 5), found deeper nesting`,
-    { file, ...lineCol(src, scan.offset) },
-  );
-}
 
 /**
  * Parse a passive-region file. `file` names it in messages. Pure: the caller reads the file.
@@ -200,29 +193,6 @@ function tooDeep(src: string, file: string, scan: JsonScan & { ok: false }): Rho
  * Throws RhoformError E_PASSIVE_JSON (not JSON) or E_PASSIVE_FORMAT (not the format), with line and column.
  */
 export function parsePassive(text: string, file: string): PassiveRegions {
-  const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // a byte-order mark is not JSON; editors add one
-  let data: unknown;
-  try {
-    data = JSON.parse(src);
-  } catch (e) {
-    let at = jsonOffset(src, e);
-    if (at === null) {
-      const scan = scanJson(src);
-      if (!scan.ok) {
-        if (scan.tooDeep) throw tooDeep(src, file, scan);
-        at = scan.offset;
-      }
-    }
-    const where: Where = at === null ? { file } : typeof at === 'number' ? { file, ...lineCol(src, at) } : { file, ...at };
-    throw new RhoformError('E_PASSIVE_JSON', `expected JSON, found a syntax error (${jsonParseMessage(e)})`, where);
-  }
-  const scan = scanJson(src);
-  if (!scan.ok && scan.tooDeep) throw tooDeep(src, file, scan);
-  const spots = scan.ok ? scan.spots : new Map<string, JsonSpot>();
-  const checker = new Checker(src, file, spots);
-  if (scan.ok && scan.duplicate !== null) {
-    const { path, key } = scan.duplicate;
-    throw new RhoformError('E_PASSIVE_FORMAT', `${path}: expected each key once, found it repeated`, { file, ...lineCol(src, key) });
-  }
-  return checker.top(data);
+  const json = parseStrictJson(text, file, 'E_PASSIVE_JSON', 'E_PASSIVE_FORMAT');
+  return new Checker(json.text, file, json.spots).top(json.data);
 }

@@ -9,6 +9,7 @@
  * over the chunk type and data (RFC 2083 §3.4 and Annex 15).
  */
 import { deflate } from 'pako';
+import { crc32 } from '../write/crc32.js';
 
 /** PNG colour types this encoder writes: 0 grey, 2 RGB, 4 grey + alpha, 6 RGB + alpha (8 bits per sample). */
 export type PngColorType = 0 | 2 | 4 | 6;
@@ -25,23 +26,6 @@ export interface RasterImage {
 /** Samples per pixel of a PNG colour type (RFC 2083 §4.1.1). */
 export function samplesPerPixel(colorType: PngColorType): number {
   return colorType === 0 ? 1 : colorType === 2 ? 3 : colorType === 4 ? 2 : 4;
-}
-
-const CRC_TABLE = (() => {
-  const t = new Uint32Array(256);
-  for (let n = 0; n < 256; n++) {
-    let c = n;
-    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-    t[n] = c >>> 0;
-  }
-  return t;
-})();
-
-/** CRC-32 (RFC 2083 Annex 15; polynomial 0xEDB88320, initial and final XOR 0xFFFFFFFF) of `bytes[from, to)`. */
-export function crc32(bytes: Uint8Array, from = 0, to = bytes.length): number {
-  let c = 0xffffffff;
-  for (let i = from; i < to; i++) c = CRC_TABLE[(c ^ bytes[i]) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
 }
 
 function chunk(type: string, data: Uint8Array): Uint8Array {

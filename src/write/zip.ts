@@ -8,23 +8,7 @@
  * Names are ASCII; no ZIP64, so the whole package stays below 4 GiB (checked).
  */
 import { RhoformError } from '../errors.js';
-
-const CRC_TABLE = (() => {
-  const t = new Uint32Array(256);
-  for (let n = 0; n < 256; n++) {
-    let c = n;
-    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-    t[n] = c >>> 0;
-  }
-  return t;
-})();
-
-/** CRC-32 of `data` (APPNOTE §4.4.7; the same as zlib's crc32). */
-export function crc32(data: Uint8Array): number {
-  let c = 0xffffffff;
-  for (let i = 0; i < data.length; i++) c = CRC_TABLE[(c ^ data[i]) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
+import { crc32 } from './crc32.js';
 
 /** DOS date of 1980-01-01 (year − 1980 = 0, month 1, day 1) and time 00:00:00. */
 const DOS_DATE = (0 << 9) | (1 << 5) | 1;

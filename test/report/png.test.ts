@@ -1,6 +1,7 @@
 import { inflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { crc32, encodePng, samplesPerPixel, type PngColorType } from '../../src/report/png.js';
+import { encodePng, samplesPerPixel, type PngColorType } from '../../src/report/png.js';
+import { crc32 } from '../../src/write/crc32.js';
 import { blockMeans, densityGrey, densityRaster } from '../../src/report/raster.js';
 import type { DensityGrid } from '../../src/types.js';
 
