@@ -19,6 +19,8 @@ export interface CliOptions {
   jobs: number | null;
   /** `batch --shard k/n`: this run's share of the sorted file list; null = all of it. */
   shard: { k: number; n: number } | null;
+  /** `--timings`: print where the build spent its time on stderr. */
+  timings: boolean;
 }
 
 export interface ParsedArgs {
@@ -219,6 +221,7 @@ const OPTIONS: Record<string, OptionSpec> = {
   json: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.json = true) },
   force: { value: false, commands: [...OUT_CMDS], apply: (_v, o) => (o.cli.force = true) },
   quiet: { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.quiet = true) },
+  timings: { value: false, commands: ['build', 'check', 'demo'], apply: (_v, o) => (o.cli.timings = true) },
   'no-color': { value: false, commands: [...ALL_RUN_CMDS], apply: (_v, o) => (o.cli.color = false) },
 };
 
@@ -230,7 +233,7 @@ export function parseArgs(argv: readonly string[]): ParsedArgs {
     command: 'help',
     files: [],
     settings: {},
-    cli: { outDir: null, json: false, force: false, quiet: false, color: null, jobs: null, shard: null },
+    cli: { outDir: null, json: false, force: false, quiet: false, color: null, jobs: null, shard: null, timings: false },
   };
   if (argv.length === 0) return out;
   const first = argv[0];

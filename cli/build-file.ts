@@ -25,6 +25,11 @@ function stem(file: string): string {
   return ext ? b.slice(0, -ext.length) : b;
 }
 
+/** Bytes: the peak resident set of this process so far (Node reports kibibytes). */
+export function peakMemory(): number {
+  return process.resourceUsage().maxRSS * 1024;
+}
+
 /** Read and parse a passive-region file (docs/passive.md); `name` as the user gave it, for messages. */
 function readPassive(path: string, name: string): PassiveRegions {
   return parsePassiveBytes(readInput(path, name, { what: 'passive-region file' }), name);
@@ -61,7 +66,16 @@ export interface BuildFileOptions {
  * and return its report. Throws RhoformError on bad input or an unwritable output (then nothing is written).
  * The boolean engine must be loaded when the settings need it (src/pipeline.ts prepareBuild).
  */
-export function buildFile(settings: Settings, opts: BuildFileOptions): { report: Report; warnings: readonly string[]; exitCode: number } {
+export function buildFile(
+  settings: Settings,
+  opts: BuildFileOptions,
+): {
+  report: Report;
+  warnings: readonly string[];
+  exitCode: number;
+  /** Milliseconds spent after the report was formatted (json, files), for `--timings`. */
+  after: Readonly<Record<string, number>>;
+} {
   const inputPath = resolve(opts.cwd, opts.file);
   const name = opts.name ?? opts.file;
   const bytes = readGridInput(inputPath, name, settings.maxCells);
@@ -75,19 +89,33 @@ export function buildFile(settings: Settings, opts: BuildFileOptions): { report:
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));
   const paths = outputNames(base, formats, settings.annotations);
   report.outputs = paths.map((p) => ({ file: displayPath(opts.cwd, p.path), format: p.format, ...(p.annotations ? { annotations: true as const } : {}) }));
-  const planned: PlannedOutput[] = [];
+  // The report's timings (the same object as result.timings) get the renderings made before the JSON is formatted:
+  // every other file first, then the JSON with every figure known by then.
+  const timings = result.timings;
+  const timed = <T>(key: string, f: () => T, into: Record<string, number> = timings): T => {
+    const t0 = performance.now();
+    const v = f();
+    into[key] = (into[key] ?? 0) + (performance.now() - t0);
+    return v;
+  };
+  const content: (string | Uint8Array | undefined)[] = [];
   let svg: string | undefined;
-  for (const p of paths) {
-    let content: string | Uint8Array;
-    if (p.annotations) content = result.notesDxf();
-    else if (p.format === 'dxf') content = result.dxf();
-    else if (p.format === 'stl' || p.format === '3mf') content = result.solid(p.format);
-    else if (p.format === 'svg') content = svg ??= result.svg();
-    else if (p.format === 'json') content = formatJson(report);
-    else content = formatHtml(report, result.pictures());
-    planned.push({ path: p.path, content });
-  }
+  paths.forEach((p, k) => {
+    if (p.annotations) content[k] = timed('notes', () => result.notesDxf());
+    else if (p.format === 'dxf') content[k] = timed('dxf', () => result.dxf());
+    else if (p.format === 'stl' || p.format === '3mf') content[k] = timed(p.format, () => result.solid(p.format as 'stl' | '3mf'));
+    else if (p.format === 'svg') content[k] = svg ??= timed('svg', () => result.svg());
+    else if (p.format === 'html') content[k] = timed('html', () => formatHtml(report, result.pictures()));
+  });
+  report.peakMemory = peakMemory();
+  for (const k of Object.keys(timings)) timings[k] = Math.round(timings[k] * 100) / 100;
+  // What happens after the JSON is formatted is not in the report: its own formatting and the file writes.
+  const after: Record<string, number> = {};
+  paths.forEach((p, k) => {
+    if (p.format === 'json') content[k] = timed('json', () => formatJson(report), after);
+  });
+  const planned: PlannedOutput[] = paths.map((p, k) => ({ path: p.path, content: content[k] as string | Uint8Array }));
   const inputs = [inputPath, ...(passivePath === null ? [] : [passivePath]), ...(loadsPath === null ? [] : [loadsPath])];
-  writeOutputsAtomically(planned, inputs, opts.force);
-  return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn) };
+  timed('files', () => writeOutputsAtomically(planned, inputs, opts.force), after);
+  return { report, warnings: result.warnings, exitCode: reportExitCode(report, settings.failOn), after };
 }

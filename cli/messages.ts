@@ -78,6 +78,7 @@ Output:
   --json                       print the JSON report on stdout and nothing else
   --force                      replace existing output files
   --quiet                      no summary on stdout, no progress on stderr
+  --timings                    print the time of every stage and the peak memory on stderr (build, check, demo)
   --no-color                   no colour (also NO_COLOR)
 
 Exit codes: 0 every check passed (warnings allowed unless --fail-on warn), 1 a check failed (geometry still

@@ -14,6 +14,7 @@ import { REPAIR_IDS, resolveSettings, type Settings } from '../src/settings.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
 import { buildFile } from './build-file.js';
+import { formatTimings } from './timings.js';
 import { readGridInput } from './files.js';
 import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
@@ -66,6 +67,7 @@ function runBuild(
   }
   const { report, warnings, exitCode } = built;
   for (const w of warnings) io.stderr(`rhoform: warning: ${w}\n`);
+  if (args.cli.timings) io.stderr(formatTimings(report.timings ?? {}, built.after, report.peakMemory, performance.now()));
   if (args.cli.json) io.stdout(formatJson(report));
   else if (!args.cli.quiet) io.stdout(formatText(report, { color: useColor(args.cli.color, io) }));
   return exitCode;

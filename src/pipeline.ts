@@ -38,8 +38,12 @@ export interface BuildResult {
   readonly warnings: string[];
   /** Full contour + smooth passes the volume search needed (1 for --level). */
   readonly builds: number;
-  /** Milliseconds spent per stage (read, prepare, threshold = search + contour + smooth). */
-  readonly timings: Readonly<Record<string, number>>;
+  /**
+   * Milliseconds spent per stage, in the order they ran (read, prepare, threshold = the level search alone,
+   * contour, smooth, passive, structure, checks, repair, write, report). The same object is the report's `timings`: a caller
+   * that renders outputs may add its own entries (the CLI adds dxf, svg, html) before it formats the report.
+   */
+  readonly timings: Record<string, number>;
   /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
   dxf(): string;
   /** `<name>.notes.dxf` (`--annotations`): the annotation layers alone, not plotting, always R2000. */
@@ -150,6 +154,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     lap('checks');
   }
   const structure = fe !== null && feFinal !== null ? structureStage(fe, feBefore, feFinal, final) : null;
+  if (structure !== null) lap('structure');
   const warnings = [...field.warnings, ...threshold.warnings, ...(structure?.warnings ?? [])];
   const files = writeStage(
     { polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], checks: checks.results, repair, passive: field.passive, raw: threshold.raw },
@@ -171,6 +176,8 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     warnings,
     structure,
   });
+  lap('report');
+  report.timings = timings;
   const { grid, domain } = field;
   const finalChecks = checks;
   // The local-thickness picture: from the checks' engine when they built one; else, on grids small enough, from

@@ -246,6 +246,15 @@ export interface Report {
   /** Non-fatal remarks of the run (also printed on stderr). Additive. */
   warnings: string[];
   cautions: string[];
+  /**
+   * Milliseconds per stage of this run (additive; volatile: differs between runs of the same input). Keys in
+   * the order the stages ran: read, prepare, threshold (the level search alone), contour, smooth, passive,
+   * structure, checks, repair, write, report, and the renderings the CLI made before the report was written
+   * (dxf, svg, notes, stl, 3mf, html).
+   */
+  timings?: Record<string, number>;
+  /** Bytes: the process's peak resident set when the report was written (additive, volatile; set by the CLI). */
+  peakMemory?: number;
 }
 
 /** What `--arcs` did (report `geometry.arcFit`, additive). Lengths in mm. */
