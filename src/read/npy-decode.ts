@@ -7,7 +7,8 @@
  *
  * Two paths give identical results: a typed-array path for little-endian data on a little-endian host
  * (rows copied with `TypedArray.set`, which converts element types natively; f8 C-order rows are plain
- * byte copies, so any data offset works) and a general DataView path for everything else.
+ * byte copies, so any data offset works; aligned f8 C-order data stored bottom row first is returned as a
+ * view of `bytes`, without a copy) and a general DataView path for everything else.
  * Non-finite values are kept as they are (NaN, ±Infinity); booleans become 0/1; 64-bit integers are
  * rounded to the nearest float64 (exact below 2^53).
  */
@@ -63,8 +64,12 @@ function ctorOf(dtype: NpyDtype): TypedCtor {
 function decodeTyped(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean): Float64Array {
   const { dtype, dataOffset, rows, cols, fortranOrder } = layout;
   const n = rows * cols;
-  const out = new Float64Array(n);
   const size = dtype.size;
+  const abs = bytes.byteOffset + dataOffset;
+  // f8 in C order, bottom row first, 8-byte aligned: the file's bytes are already the grid — a view, no copy.
+  // The values then share memory with `bytes`; no stage writes into a grid's values (prepare writes a new array).
+  if (dtype.kind === 'f' && size === 8 && !fortranOrder && !topDown && abs % 8 === 0) return new Float64Array(bytes.buffer as ArrayBuffer, abs, n);
+  const out = new Float64Array(n);
   if (dtype.kind === 'f' && size === 8 && !fortranOrder) {
     // byte copies: no alignment needed, no per-element work
     const outBytes = new Uint8Array(out.buffer);
@@ -77,7 +82,6 @@ function decodeTyped(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean)
     return out;
   }
   const Ctor = ctorOf(dtype);
-  const abs = bytes.byteOffset + dataOffset;
   let view: InstanceType<TypedCtor>;
   if (abs % size === 0) view = new Ctor(bytes.buffer as ArrayBuffer, abs, n);
   else {
