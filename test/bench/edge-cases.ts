@@ -43,8 +43,8 @@ export const EDGE_CASES: readonly EdgeCase[] = [
 ];
 
 /** Runs every case through `timeCli` (median of `repeat`) and returns Markdown table rows. */
-export function edgeCaseRows(dir: string, out: string, timeCli: (args: string[]) => number, repeat: number): string[] {
-  const rows = ['| edge case (default outputs: DXF, SVG, JSON, HTML) | whole process (median wall) |', '|---|---|'];
+export function edgeCaseRows(dir: string, out: string, timeCli: (args: string[]) => number, repeat: number, what = 'whole process (median wall)'): string[] {
+  const rows = [`| edge case (default outputs: DXF, SVG, JSON, HTML) | ${what} |`, '|---|---|'];
   EDGE_CASES.forEach((c, k) => {
     const file = join(dir, `edge-${k}.csv`);
     writeFileSync(file, c.text);

@@ -1,23 +1,32 @@
 /**
  * `npm run bench`: time each stage and the whole process, and the peak memory, on generated grids
- * (docs/performance.md; targets in the issues). Prints a Markdown table; nothing here runs in the unit tests.
+ * (docs/performance.md; targets in the issues). Prints Markdown tables; nothing here runs in the unit tests.
  *
- * For each size, the whole CLI (`build` → DXF + SVG + JSON) runs in a fresh Node process several times;
- * the median wall time is reported with that process's peak RSS, and a second child prints the stage times.
+ * First the table of issue 15: the whole CLI in a fresh Node process on the plate field, against the floor
+ * (a fresh process that reads the same file and touches every value once), runs interleaved, medians of
+ * BENCH_REPEAT (5): wall time, CPU time (user + system, from GNU time) and peak RSS, and the ratios to the
+ * floor. Then the linear-time table (constant, checkerboard, noise, a part touching every edge, the plate at
+ * two sizes), then the stage times in-process (child.ts), the checks and the edge cases.
+ * BENCH_ONLY=issue,linear,stages,checks,edge picks sections.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { npyFloat64 } from './npy-write.js';
+import { npyFloat32, npyFloat64 } from './npy-write.js';
 import { plateCsv, platePattern } from './plate.js';
 import { edgeCaseRows } from './edge-cases.js';
+import { field, type FieldKind } from './fields.js';
+import { measure, median, type Measured } from './measure.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = resolve(here, '../../..'); // dist/test/bench → package root
-const mainJs = join(root, 'dist/cli/main.js');
+/** BENCH_CLI: another compiled CLI to measure (an older build, for before/after figures). */
+const mainJs = process.env.BENCH_CLI ?? join(root, 'dist/cli/main.js');
 const childJs = join(here, 'child.js');
+const floorJs = join(here, 'floor.js');
+const ONLY = new Set((process.env.BENCH_ONLY ?? 'issue,linear,stages,checks,edge').split(','));
 
 const SIZES: [number, number][] = [
   [500, 250],
@@ -27,10 +36,6 @@ const SIZES: [number, number][] = [
 ];
 const REPEAT = Number(process.env.BENCH_REPEAT ?? 5);
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)];
-}
 
 interface ChildOut {
   timings: Record<string, number>;
@@ -57,10 +62,70 @@ const dir = mkdtempSync(join(tmpdir(), 'rhoform-bench-'));
 const out = join(dir, 'out');
 mkdirSync(out);
 const rows: string[] = [];
-rows.push('| grid | cells | read | prepare | threshold search | contour | smooth | DXF | SVG | whole process (median wall) | peak RSS |');
-rows.push('|---|---|---|---|---|---|---|---|---|---|---|');
+const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+const mb = (b: number) => `${(b / 2 ** 20).toFixed(0)} MB`;
+
+/** Issue 15's table: each case and the floor on its file, interleaved, medians of `n`. */
+function issueTable(): string[] {
+  const table = ['| grid | what | wall (median) | CPU (median) | peak RSS | floor wall | floor CPU | wall / floor | CPU / floor | target |', '|---|---|---|---|---|---|---|---|---|---|'];
+  const p2 = join(dir, 'issue-plate-2000x1000-f8.npy');
+  const p4 = join(dir, 'issue-plate-4000x2000-f4.npy');
+  writeFileSync(p2, npyFloat64(platePattern(2000, 1000), 1000, 2000));
+  writeFileSync(p4, npyFloat32(platePattern(4000, 2000), 2000, 4000));
+  const base = ['--out-dir', out, '--force', '--quiet'];
+  const cases: [string, string, string, string[], string][] = [
+    ['2000×1000 f8', 'DXF + SVG + JSON', p2, ['--formats', 'dxf,svg,json'], '≤ 0.6 s, ≤ 3× floor'],
+    ['4000×2000 f4', 'DXF + SVG + JSON', p4, ['--formats', 'dxf,svg,json'], '≤ 1.8 s, ≤ 1 GB'],
+    ['4000×2000 f4', '+ `--min-member 3 --min-hole 3 --tool-radius 1` + HTML', p4, ['--formats', 'dxf,svg,json,html', '--min-member', '3', '--min-hole', '3', '--tool-radius', '1'], '≤ 3 s, ≤ 1.2 GB'],
+  ];
+  for (const [grid, what, file, flags, target] of cases) {
+    const runs: Measured[] = [];
+    const floors: Measured[] = [];
+    for (let k = 0; k < REPEAT; k++) {
+      const m = measure([mainJs, 'build', file, ...base, ...flags]);
+      if (m.status !== 0 && m.status !== 1) throw new Error(`rhoform failed: ${m.stderr}`);
+      runs.push(m);
+      floors.push(measure([floorJs, file]));
+    }
+    const w = median(runs.map((m) => m.wallMs)), c = median(runs.map((m) => m.cpuMs));
+    const fw = median(floors.map((m) => m.wallMs)), fc = median(floors.map((m) => m.cpuMs));
+    table.push(`| ${grid} | ${what} | ${s(w)} | **${s(c)}** | ${mb(median(runs.map((m) => m.maxRss)))} | ${s(fw)} | ${s(fc)} | ${(w / fw).toFixed(1)}× | ${(c / fc).toFixed(1)}× | ${target} |`);
+    console.error(`done issue case: ${grid} ${what}`);
+  }
+  return table;
+}
+
+/**
+ * Linear time whatever the content: each field at two sizes (4× the cells), the whole CLI with the default outputs
+ * (DXF, SVG, JSON and the HTML report), CPU medians of 3. A ratio near 4 or below is linear (start-up is shared).
+ */
+function linearTable(): string[] {
+  const table = ['| field | CPU 250×125 | CPU 500×250 | ratio (4× cells) | CPU 1000×500 | ratio (4× cells) |', '|---|---|---|---|---|---|'];
+  const kinds: FieldKind[] = ['constant', 'checkerboard', 'noise', 'edges', 'plate'];
+  for (const kind of kinds) {
+    const cpu: number[] = [];
+    for (const [cols, rws] of [[250, 125], [500, 250], [1000, 500]] as const) {
+      const file = join(dir, `linear-${kind}-${cols}.npy`);
+      writeFileSync(file, npyFloat64(kind === 'plate' ? platePattern(cols, rws) : field(kind, cols, rws), rws, cols));
+      const runs: number[] = [];
+      for (let k = 0; k < 3; k++) {
+        const m = measure([mainJs, 'build', file, '--out-dir', out, '--force', '--quiet']);
+        if (m.status !== 0 && m.status !== 1) throw new Error(`rhoform failed on ${kind}: ${m.stderr}`);
+        runs.push(m.cpuMs);
+      }
+      cpu.push(median(runs));
+      console.error(`done linear: ${kind} ${cols}×${rws}`);
+    }
+    table.push(`| ${kind} | ${s(cpu[0])} | ${s(cpu[1])} | ${(cpu[1] / cpu[0]).toFixed(1)} | ${s(cpu[2])} | ${(cpu[2] / cpu[1]).toFixed(1)} |`);
+  }
+  return table;
+}
+
 try {
-  for (const [cols, rws] of SIZES) {
+  if (ONLY.has('issue')) rows.push('Issue 15 (whole process; CPU = user + system from GNU time; wall depends on the machine\'s load):', '', ...issueTable(), '');
+  if (ONLY.has('linear')) rows.push(...linearTable(), '');
+  if (ONLY.has('stages')) rows.push('| grid | cells | read | prepare | threshold search | contour | smooth | DXF | SVG | whole process (median wall) | peak RSS |', '|---|---|---|---|---|---|---|---|---|---|---|');
+  for (const [cols, rws] of ONLY.has('stages') ? SIZES : []) {
     const file = join(dir, `plate-${cols}x${rws}.npy`);
     writeFileSync(file, npyFloat64(platePattern(cols, rws), rws, cols));
     const args = ['build', file, '--out-dir', out, '--force', '--formats', 'dxf,svg,json', '--quiet'];
@@ -77,6 +142,7 @@ try {
   }
   // CSV parse of the 2000×1000 field.
   const [cols, rws] = [2000, 1000];
+  if (ONLY.has('stages')) {
   const csvFile = join(dir, `plate-${cols}x${rws}.csv`);
   writeFileSync(csvFile, plateCsv(platePattern(cols, rws), cols, rws));
   const reads: number[] = [];
@@ -90,7 +156,10 @@ try {
   rows.push(
     `| CSV ${cols}×${rws} | ${(cols * rws / 1e6).toFixed(2)} M | **${median(reads).toFixed(0)} ms** | ${last?.timings.prepare.toFixed(0)} ms | ${last?.timings.threshold.toFixed(0)} ms | ${last?.timings.contour.toFixed(0)} ms | ${last?.timings.smooth.toFixed(0)} ms | ${last?.timings.dxf.toFixed(0)} ms | ${last?.timings.svg.toFixed(0)} ms | ${median(walls).toFixed(0)} ms | ${last?.maxRssMb.toFixed(0)} MB |`,
   );
+  }
   // Checks on the 2000×1000 field: the checks stage in-process, and the whole process with and without limits.
+  if (ONLY.has('checks')) {
+  writeFileSync(join(dir, 'plate-2000x1000.npy'), npyFloat64(platePattern(2000, 1000), 1000, 2000));
   const checkRows: string[] = ['| 2000×1000 NPY | limits | checks stage (median) | whole process (median wall) | findings |', '|---|---|---|---|---|'];
   const plate = join(dir, 'plate-2000x1000.npy');
   const variants: [string, Record<string, number>, string[]][] = [
@@ -112,7 +181,8 @@ try {
     console.error(`done checks: ${label}`);
   }
   rows.push('', ...checkRows);
-  rows.push('', ...edgeCaseRows(dir, out, timeCli, 3));
+  }
+  if (ONLY.has('edge')) rows.push('', ...edgeCaseRows(dir, out, (args) => measure([mainJs, ...args]).cpuMs, 3, 'CPU (median, user + system)'));
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }
