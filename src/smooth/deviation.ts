@@ -145,6 +145,10 @@ export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRing
   let span = new Float64Array(256);
   let stack = new Float64Array(600);
   const near = new Near();
+  // the first pass's distance of each vertex and the raw segment nearest to it, reused by the second
+  const nf = start[start.length - 1];
+  const vertexDist = new Float64Array(nf);
+  const vertexNear = new Int32Array(nf);
   for (let pass = 0; pass < 2; pass++) {
     for (let r = 0; r + 1 < start.length; r++) {
       const a = start[r], b = start[r + 1];
@@ -158,25 +162,32 @@ export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRing
         if (gap === 0) gap = n;
         const count = Math.min(gap + 2, n); // raw segments of the span, one extra on either side
         if (span.length < 2 * (count + 1)) span = new Float64Array(4 * (count + 1));
+        let i = ia === 0 ? n - 1 : ia - 1; // raw vertex of the span's first segment, relative to s0
         for (let j = 0; j <= count; j++) {
-          const i = s0 + ((((ia - 1 + j) % n) + n) % n);
-          span[2 * j] = R[2 * i];
-          span[2 * j + 1] = R[2 * i + 1];
+          span[2 * j] = R[2 * (s0 + i)];
+          span[2 * j + 1] = R[2 * (s0 + i) + 1];
+          if (++i === n) i = 0;
         }
         near.reset(span, count);
-        const da = near.dist(ax, ay);
-        if (da > worst) worst = da;
-        if (pass === 0) continue; // vertices first: a good lower bound prunes most of the sampling
-        const ja = near.at;
+        if (pass === 0) {
+          // vertices first: a good lower bound prunes most of the sampling
+          const d = near.dist(ax, ay);
+          if (d > worst) worst = d;
+          vertexDist[f] = d;
+          vertexNear[f] = near.at;
+          continue;
+        }
+        const da = vertexDist[f];
+        const ja = vertexNear[f];
+        near.at = ja;
         const db = near.dist(bx, by);
         const jb = near.at;
         const L = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
+        // a stack of pieces (t0, t1, d0, d1, j0, j1), six floats each; written inline (a closure per segment
+        // was a fifth of this function's time, most of it allocation)
         let top = 0;
-        const push = (t0: number, t1: number, d0: number, d1: number, j0: number, j1: number): void => {
-          if (top + 6 > stack.length) { const g2 = new Float64Array(stack.length * 2); g2.set(stack); stack = g2; }
-          stack[top++] = t0; stack[top++] = t1; stack[top++] = d0; stack[top++] = d1; stack[top++] = j0; stack[top++] = j1;
-        };
-        push(0, 1, da, db, ja, jb);
+        stack[0] = 0; stack[1] = 1; stack[2] = da; stack[3] = db; stack[4] = ja; stack[5] = jb;
+        top = 6;
         while (top > 0) {
           top -= 6;
           const t0 = stack[top], t1 = stack[top + 1], d0 = stack[top + 2], d1 = stack[top + 3];
@@ -191,8 +202,10 @@ export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRing
           const dm = near.dist(ax + (bx - ax) * tm, ay + (by - ay) * tm);
           const jm = near.at;
           if (dm > worst) worst = dm;
-          push(tm, t1, dm, d1, jm, j1);
-          push(t0, tm, d0, dm, j0, jm);
+          if (top + 12 > stack.length) { const g2 = new Float64Array(stack.length * 2); g2.set(stack); stack = g2; }
+          stack[top] = tm; stack[top + 1] = t1; stack[top + 2] = dm; stack[top + 3] = d1; stack[top + 4] = jm; stack[top + 5] = j1;
+          stack[top + 6] = t0; stack[top + 7] = tm; stack[top + 8] = d0; stack[top + 9] = dm; stack[top + 10] = j0; stack[top + 11] = jm;
+          top += 12;
         }
       }
     }
