@@ -5,8 +5,7 @@
  * runs the same `build` as the CLI and offers the same files (docs/preview.md, DESIGN §13).
  */
 import { existsSync, readFileSync } from 'node:fs';
-import { basename, dirname, extname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { basename, extname, join, resolve } from 'node:path';
 import { deflateSync } from 'node:zlib';
 import { RhoformError, UsageError } from '../src/errors.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
@@ -17,6 +16,7 @@ import type { Embedded } from '../web/shared/protocol.js';
 import type { ParsedArgs } from './args.js';
 import { readGridInput, readInput, writeOutputsAtomically } from './files.js';
 import { displayPath, type Io } from './io.js';
+import { packageRoot } from './package-root.js';
 
 /**
  * Largest grid a page embeds unless --max-cells says otherwise: 2000 × 1000 samples. The page holds the file
@@ -25,16 +25,6 @@ import { displayPath, type Io } from './io.js';
  */
 export const PREVIEW_MAX_CELLS = 2_000_000;
 
-const here = dirname(fileURLToPath(import.meta.url));
-
-/** The package root, from the sources (cli/) or the compiled dist/cli/. */
-function packageRoot(): string {
-  for (const up of ['..', '../..']) {
-    const root = resolve(here, up);
-    if (existsSync(join(root, 'package.json'))) return root;
-  }
-  return resolve(here, '..');
-}
 
 /** The two browser bundles, as text. */
 function bundles(): { worker: string; page: string } {

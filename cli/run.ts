@@ -2,9 +2,7 @@
  * The commands. Returns an exit code and never calls process.exit (cli/main.ts sets process.exitCode).
  * stdout carries only the product (summary or JSON); warnings and errors go to stderr.
  */
-import { existsSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join, resolve } from 'node:path';
 import { UsageError } from '../src/errors.js';
 import { inspect, prepareBuild } from '../src/pipeline.js';
 import { formatJson } from '../src/report/json.js';
@@ -20,16 +18,8 @@ import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
 import { runPreview } from './preview.js';
+import { packageRoot } from './package-root.js';
 
-const here = dirname(fileURLToPath(import.meta.url));
-/** The package root, from src (cli/) or from the compiled dist/cli/. */
-function packageRoot(): string {
-  for (const up of ['..', '../..']) {
-    const root = resolve(here, up);
-    if (existsSync(join(root, 'package.json'))) return root;
-  }
-  return resolve(here, '..');
-}
 
 /**
  * The bundled demo: a grid of our own scenario and the settings it is meant to be built with — 2 mm cells, and

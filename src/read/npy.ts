@@ -10,6 +10,7 @@ import type { DensityGrid } from '../types.js';
 import { decodeNpyData, type NpyDecodePath } from './npy-decode.js';
 import { parseNpyDtype } from './npy-dtype.js';
 import { parseNpyHeader } from './npy-header.js';
+import { checkReadOptions } from './options.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
 
 /**
@@ -37,7 +38,7 @@ export function readNpy(bytes: Uint8Array, options: ReadOptions): ReadResult {
 
 /** readNpy with a choice of decoding path; 'general' forces the DataView path (used by tests). */
 export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDecodePath): ReadResult {
-  const { hx, hy, topDown } = checkOptions(options);
+  const { hx, hy, topDown } = checkReadOptions(options);
   const header = parseNpyHeader(bytes);
   const dtype = parseNpyDtype(header.descr, { byteOffset: header.descrOffset });
   const warnings: string[] = [];
@@ -87,20 +88,6 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
   return { grid, format: 'npy', layout: 'grid', locate, warnings };
 }
 
-function checkOptions(options: ReadOptions): { hx: number; hy: number; topDown: boolean } {
-  const [hx, hy] = options.cellSize;
-  if (!(hx > 0 && hy > 0 && hx < Infinity && hy < Infinity)) {
-    throw new UsageError(`cell size: expected two positive finite lengths in mm, found ${hx}, ${hy}`);
-  }
-  if (options.rowOrder !== 'top-down' && options.rowOrder !== 'bottom-up') {
-    throw new UsageError(`row order: expected 'top-down' or 'bottom-up', found ${String(options.rowOrder)}`);
-  }
-  if (options.values !== 'cells' && options.values !== 'nodes') {
-    throw new UsageError(`values: expected 'cells' or 'nodes', found ${String(options.values)}`);
-  }
-  if (!(options.maxCells > 0)) throw new UsageError(`max cells: expected a positive number, found ${options.maxCells}`);
-  return { hx, hy, topDown: options.rowOrder === 'top-down' };
-}
 
 /** (rows, cols) of a 2-D array, or of a 3-D array squeezed along its one unit axis. */
 function gridShape(shape: readonly number[], byteOffset: number, warnings: string[]): { rows: number; cols: number } {
