@@ -15,7 +15,7 @@ import { entryLabel, resolveLoadCase, type ResolvedLoadCase } from '../loads/res
 import type { LoadsSpec } from '../loads/types.js';
 import type { PolygonSet } from '../types.js';
 import type { SolverStats } from './cg.js';
-import { coverage } from './coverage.js';
+import { coverage, type CoverageGrid } from './coverage.js';
 import { coarsenCells } from './resample.js';
 import { freeRigidModes } from './rigid.js';
 import { solveElastic, type SolveOptions } from './solve.js';
@@ -33,16 +33,8 @@ export type FeDesign =
   | { readonly kind: 'coverage'; readonly values: Float64Array }
   | { readonly kind: 'geometry'; readonly polygons: PolygonSet };
 
-export interface FeGridSpec {
-  /** Cells along x and y, and their size in mm. */
-  readonly nx: number;
-  readonly ny: number;
-  readonly hx: number;
-  readonly hy: number;
-  /** Lower-left corner, mm (default 0, 0). */
-  readonly x0?: number;
-  readonly y0?: number;
-}
+/** The analysis grid: cells along x and y, their size (mm) and lower-left corner (mm) — the coverage grid. */
+export type FeGridSpec = CoverageGrid;
 
 export interface FeOptions extends SolveOptions {
   /** Largest number of elements before coarsening (default FE_MAX_ELEMENTS). */
