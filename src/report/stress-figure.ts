@@ -164,7 +164,7 @@ function loadArrows(rec: StructureRecord, a: FeAnalysis, f: PlanFrame): string {
     const vertical = Math.abs(dx) < 0.5;
     const lx = vertical ? at[k][0] : bx - (dx >= 0 ? 0.3 : -0.3) * f.font;
     // labels of a group stack away from the arrows so they never overlap
-    const ly = vertical ? by + (dy > 0 ? -0.35 - 0.95 * group[k] : 1.05 + 0.95 * group[k]) * f.font : by + (0.3 + 0.95 * group[k]) * f.font;
+    const ly = vertical ? by + (dy > 0 ? -0.35 - 1.25 * group[k] : 1.05 + 1.25 * group[k]) * f.font : by + (0.3 + 1.25 * group[k]) * f.font;
     const anchor = vertical ? 'middle' : dx >= 0 ? 'end' : 'start';
     parts.push(
       `<g><title>${escapeHtml(`L${k + 1} ${entryLabel(ld)}: [${fmt(Fx)}, ${fmt(Fy)}] N on ${a.loadCase.loads[k].nodeIds.length} nodes`)}</title>` +
