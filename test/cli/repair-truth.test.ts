@@ -3,6 +3,10 @@
  * material, so the part written holds more than the target volume. The re-check of `volume-fraction` measures
  * that part and warns (not fails), the text headline and the HTML header show the final fraction beside the
  * achieved one; before repair nothing changes.
+ *
+ * Sources: the measured value is the definition |final − target| / target (DESIGN §4, docs/checks/volume-fraction.md);
+ * the final area it uses is the report's geometry area, which test/write/cad-files.test.ts checks against the DXF
+ * read back by an independent parser (dxf-parser) to 1e-6.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
