@@ -236,10 +236,12 @@ describe('rhoform batch: overwrite guard, out-dir layout, exit codes', () => {
   it('SIGTERM during a batch removes its temp files and ends by that signal', async () => {
     const out = join(work, 'term-out');
     const child = spawn(process.execPath, [mainJs, 'batch', ...GOOD, '--out-dir', out, '--quiet', '--jobs', '1', '--force'], { cwd: root, stdio: 'ignore' });
+    // listen before anything else: on a fast machine the batch may be done before the signal is sent
+    const exited = new Promise<NodeJS.Signals | null>((r) => child.on('exit', (_code, sig) => r(sig)));
     // let the pool start, then stop the batch while it works
     await new Promise((r) => setTimeout(r, 1500));
-    child.kill('SIGTERM');
-    const signal = await new Promise<NodeJS.Signals | null>((r) => child.on('exit', (_code, sig) => r(sig)));
+    if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+    const signal = await exited;
     const leftovers = existsSync(out) ? readdirSync(out, { recursive: true }).filter((f) => String(f).endsWith('.tmp')) : [];
     expect(leftovers).toEqual([]);
     // it finished before the signal, or the signal ended it
