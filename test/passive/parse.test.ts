@@ -174,10 +174,9 @@ describe('parsePassive: bad files name the key path and the position', () => {
     });
     const big = JSON.stringify({ rhoformPassive: 1, regions: [{ role: 'void', polygon: pts }] });
     expect(errorOf(big).detail).toBe('regions[0].polygon: expected at most 10000 points, found 10001');
-    // 10 000 points on a circle: a simple (convex) polygon, accepted in reasonable time by the swept edge test
+    // 10 000 points on a circle: a simple (convex) polygon, accepted (the swept edge test keeps this fast; its
+    // speed is the bench's business, not this test's)
     const ok = JSON.stringify({ rhoformPassive: 1, regions: [{ role: 'void', polygon: pts.slice(0, 10_000) }] });
-    const t = performance.now();
     expect(parsePassive(ok, 'ok.json').regions[0].shape.kind).toBe('polygon');
-    expect(performance.now() - t).toBeLessThan(5000);
   });
 });
