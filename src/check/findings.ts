@@ -1,12 +1,7 @@
-/**
- * Finding numbers shared by every output: the HTML report, the text report and the `finding` layer of the
- * DXF and SVG number the same findings the same way — checks in report order, each check's locations worst
- * first, counted from 1.
- */
+/** Finding numbers shared by the HTML and text reports and the `finding` layer: checks in report order, locations worst first, from 1. */
 import type { CheckResult, Location } from '../types.js';
 
 export interface NumberedFinding {
-  /** 1-based finding number. */
   readonly n: number;
   readonly checkId: string;
   readonly status: 'warn' | 'fail';

@@ -1,7 +1,4 @@
-/**
- * What changed the outline after smoothing (symmetry, passive regions, repair): the area change and how far the
- * final outline lies from the raw iso-contour. Reported, never failed (DESIGN §4). mm, y up.
- */
+/** What changed the outline after smoothing (symmetry, passive regions, repair); reported, never failed (DESIGN §4). mm, y up. */
 import { polygonSetArea, polygonSetPerimeter } from '../geom/area.js';
 import { flattenSet } from '../geom/flat.js';
 import { locatedDeviation } from '../geom/hausdorff.js';
@@ -10,10 +7,7 @@ import { samplingStep } from './outline-fidelity.js';
 
 export type FinishingSummary = NonNullable<Report['finishing']>;
 
-/**
- * The area change (mm²) and fraction change against the smoothed area, and the directed Hausdorff distance (mm)
- * from `final` to `raw`, sampled as outline-fidelity samples. maxDeviation is null without a raw contour.
- */
+/** Area change (mm², fraction of the smoothed area) and directed Hausdorff distance (mm) from `final` to `raw`; null without `raw`. */
 export function measureFinishing(final: PolygonSet, smoothedArea: number, raw: PolygonSet, domainArea: number, tolerance: number): FinishingSummary {
   const area = polygonSetArea(final);
   const step = samplingStep(polygonSetPerimeter(final), tolerance);

@@ -1,7 +1,4 @@
-/**
- * Numbers in check messages and method lines: four significant digits, no float noise
- * (0.38099999999999995 → 0.381), exponent form only for very large or very small values.
- */
+/** Numbers in check messages: four significant digits, no float noise (0.38099999999999995 → 0.381). */
 export function formatValue(x: number, significant = 4): string {
   if (x === 0) return '0';
   if (!Number.isFinite(x)) return String(x);

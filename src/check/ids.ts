@@ -1,7 +1,4 @@
-/**
- * The ids of every registered check, in report order (docs/checks/<id>.md documents each one).
- * Ids are part of the public contract (report JSON, `--severity <id>=…`): never rename one.
- */
+/** Check ids in report order; part of the public contract (report JSON, `--severity`): never rename one. */
 export const CHECK_IDS = [
   'volume-fraction',
   'min-member-size',
@@ -18,7 +15,6 @@ export const CHECK_IDS = [
 
 export type CheckId = (typeof CHECK_IDS)[number];
 
-/** Whether `s` names a registered check. */
 export function isCheckId(s: string): s is CheckId {
   return (CHECK_IDS as readonly string[]).includes(s);
 }

@@ -1,11 +1,4 @@
-/**
- * `islands`: pieces of material not joined to the main body (docs/checks/islands.md). Unit mm²; measured ≤
- * limit passes (an island up to `--min-island-area` is tolerated; 0 makes every extra piece an island).
- *
- * Frame: mm, y up. A piece is one polygon of ctx.polygons (outer ring CCW with its CW holes); polygons never
- * overlap, and material inside a hole is a piece of its own. The main body is the largest piece by net area; a
- * piece touching or overlapping a passive-solid region (ctx.passiveSolid) is joined too.
- */
+/** `islands`: pieces not joined to the main body (docs/checks/islands.md). mm², y up; measured ≤ limit passes. */
 import { polygonArea, ringPerimeter } from '../geom/area.js';
 import { ringBounds, ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
@@ -15,10 +8,8 @@ import { subResolutionNote } from './small-holes.js';
 import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './types.js';
 
 /**
- * Which pieces count as joined (1) rather than islands (0), given their net areas (mm²): the main body, the
- * largest piece (the first of equal largest ones), and every piece that touches or overlaps a passive-solid
- * ring (`passiveSolid`, mm, either orientation; see touchesRing). This is the one place that decides what
- * "joined" means, shared by the `islands` check and the `drop-islands` repair.
+ * 1 for each piece joined to the main body (the largest piece, or one touching a passive-solid ring), 0 for an island.
+ * The one definition of "joined", shared by the `islands` check and the `drop-islands` repair.
  */
 export function joinedPieces(set: PolygonSet, areas: Float64Array, passiveSolid: readonly Ring[] = []): Uint8Array {
   const joined = new Uint8Array(set.polygons.length);
@@ -41,11 +32,7 @@ export function joinedPieces(set: PolygonSet, areas: Float64Array, passiveSolid:
   return joined;
 }
 
-/**
- * Whether piece `p` (outer ring with holes) and the region bounded by `ring` share a point, up to `eps` mm:
- * their boundaries come within eps of each other, or a vertex of one lies inside the other (the ring inside
- * the piece's material, or the piece inside the ring). O(n·m) segment pairs; used on islands only.
- */
+/** Whether piece `p` and the region bounded by `ring` share a point, up to `eps` mm. O(n·m). */
 export function touchesRing(p: Polygon, ring: Ring, eps: number): boolean {
   const e2 = eps * eps;
   const rings = [p.outer, ...p.holes];
@@ -62,27 +49,17 @@ export function touchesRing(p: Polygon, ring: Ring, eps: number): boolean {
       }
     }
   }
-  // no boundary contact: one lies wholly inside the other, or they are apart
   if (ring.length > 0 && ringContains(p.outer, ring[0]) > 0 && !p.holes.some((h) => ringContains(h, ring[0]) >= 0)) return true;
   return p.outer.length > 0 && ringContains(ring, p.outer[0]) > 0;
 }
 
-/** Boundary length (mm) of a piece: its outer ring and its holes. */
 function piecePerimeter(p: Polygon): number {
   let s = ringPerimeter(p.outer);
   for (const h of p.holes) s += ringPerimeter(h);
   return s;
 }
 
-/**
- * Net area (mm², shoelace: outer minus holes) of every piece not joined to the main body (nor to a passive-solid
- * region, ctx.passiveSolid). measured = the area of
- * the largest island; null when there is none. Resolution = that island's perimeter × ctx.tolerance, the area a
- * band of the outline's deviation budget around it can hold — but 0 under the limit 0 ("every extra piece"):
- * whether a piece exists is not uncertain, only how large it is. Locations: one per island whose area is above
- * limit − its own resolution, at a point strictly inside the island (src/geom/interior.ts), measured = its area.
- * O(vertices).
- */
+/** Net area (mm²) of the largest island; resolution = its perimeter × tolerance, 0 under limit 0 (docs/notes/check.md). */
 export function measureIslands(ctx: CheckContext, limit: number): Measurement {
   const polys = ctx.polygons.polygons;
   const areas = new Float64Array(polys.length);

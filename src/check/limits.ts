@@ -1,7 +1,4 @@
-/**
- * The size limits in force: a `--process` preset fills the limits that were not given explicitly; explicit
- * options always win (docs/processes.md). Also returns the preset's values with their sources for the report.
- */
+/** The size limits in force: `--process` fills what was not given; explicit options win (docs/processes.md). */
 import type { Settings } from '../settings.js';
 import { processLimits, processTitle, type PresetValue, type ProcessId } from './process.js';
 import type { ResolvedLimits } from './registry.js';
@@ -12,14 +9,11 @@ export interface ProcessReport {
   readonly title: string;
   /** mm; null when the process needs none. */
   readonly thickness: number | null;
-  /** The preset's own values (before explicit overrides), mm, with their sources. */
+  /** The preset's own values (mm) with their sources. */
   readonly values: { readonly minMember: PresetValue | null; readonly minHole: PresetValue | null; readonly toolRadius: PresetValue | null };
 }
 
-/**
- * `cellSize` (mm), when given, sets the default hole-area limit: SUB_RESOLUTION_CELLS cell areas unless
- * `--min-hole-area` was given (docs/checks/small-holes.md); without it `minHoleArea` is the option as given.
- */
+/** `cellSize` (mm) sets the default hole-area limit when `--min-hole-area` was not given. */
 export function resolveLimits(s: Settings, cellSize?: readonly [number, number]): { limits: ResolvedLimits; process: ProcessReport | null } {
   const minHoleArea = s.minHoleArea ?? (cellSize ? defaultMinHoleArea(cellSize) : null);
   if (s.process === null) return { limits: { minMember: s.minMember, minHole: s.minHole, toolRadius: s.toolRadius, minHoleArea }, process: null };

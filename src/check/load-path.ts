@@ -1,9 +1,4 @@
-/**
- * `load-path`: whether the checked outline still carries the `--loads` load case (docs/checks/load-path.md).
- * Measured: the number of findings — supports and loads whose nodes all sit in void, and pieces of the part
- * that no support holds (src/fe/reach.ts); measured ≤ limit (0) passes. Each finding is located (mm, y up):
- * a support or load at the mean of its nodes, a piece at a point inside it.
- */
+/** `load-path`: supports and loads in void, and pieces no support holds (src/fe/reach.ts); measured ≤ 0 passes. */
 import type { CheckContext, CheckDefinition, Measurement } from './types.js';
 
 export function measureLoadPath(ctx: CheckContext, _limit: number): Measurement {

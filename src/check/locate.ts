@@ -1,12 +1,8 @@
-/**
- * From a point in the report frame (mm, y up) to the grid sample under it, and from there to the 1-based row
- * and column of the input file (through the reader's own `locate`, so row order, nodal grids and long-form CSV
- * are handled in one place).
- */
+/** From a point (mm, y up) to the grid sample under it and to the input file's 1-based row and column. */
 import type { DensityGrid } from '../types.js';
 import type { LocateInFile } from './run.js';
 
-/** Cell grids: the cell containing the point; nodal grids: the nearest node. Points outside are clamped. */
+/** Cell grids: the cell containing the point; nodal grids: the nearest node. Clamped. */
 export function sampleAt(grid: Pick<DensityGrid, 'nx' | 'ny' | 'cellSize' | 'origin' | 'placement'>, x: number, y: number): { i: number; j: number } {
   const [hx, hy] = grid.cellSize;
   const u = (x - grid.origin[0]) / hx;

@@ -1,8 +1,4 @@
-/**
- * `min-hole-size`: the narrowest hole or gap between members, the local width of the void phase
- * (docs/checks/min-hole-size.md). Void that opens to the domain edge is open space, not a hole, unless it is
- * a slot narrower than the limit (docs/checks/README.md).
- */
+/** `min-hole-size`: the local width of the void phase (docs/checks/min-hole-size.md). */
 import { widthMeasurement } from './width.js';
 import type { CheckDefinition } from './types.js';
 

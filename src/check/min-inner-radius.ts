@@ -1,16 +1,8 @@
-/**
- * `min-inner-radius`: concave corners of the solid tighter than the milling tool's radius
- * (docs/checks/min-inner-radius.md). The tool disc sweeps the void; the corners it cannot reach deeper than
- * max(tolerance, 0.05 R) are findings, each with its own radius (docs/checks/README.md; docs/references.md §8.4).
- */
+/** `min-inner-radius`: concave corners tighter than the tool radius (docs/checks/min-inner-radius.md; docs/references.md §8.4). */
 import { formatValue } from './format.js';
 import type { CheckDefinition } from './types.js';
 
-/**
- * How deep (mm) an uncut corner must be to count: max(tolerance, 0.05 R) for a tool of radius R and the outline
- * budget `tolerance` (DESIGN §5): shallower than the outline's own accuracy, or than a twentieth of the tool, is
- * not a corner the tool leaves. The check and the open-corners repair use the same depth.
- */
+/** How deep (mm) an uncut corner must be to count, shared with the open-corners repair (docs/notes/check.md). */
 export function cornerDepth(tolerance: number, toolRadius: number): number {
   return Math.max(tolerance, 0.05 * toolRadius);
 }

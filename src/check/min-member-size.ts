@@ -1,10 +1,4 @@
-/**
- * `min-member-size`: the thinnest local width of the solid (docs/checks/min-member-size.md).
- *
- * Local width at a point = diameter of the largest disc inside the solid containing it, counted on the
- * θ-simplified medial axis so that sharp convex corners of thick parts are not thin (docs/checks/README.md).
- * Outside the domain is open space: a wall between a hole and the domain edge is as thin as it is.
- */
+/** `min-member-size`: the thinnest local width of the solid on the θ-simplified medial axis (docs/checks/min-member-size.md). */
 import { widthMeasurement } from './width.js';
 import type { CheckDefinition } from './types.js';
 

@@ -1,15 +1,7 @@
-/**
- * `peak-stress`: the peak von Mises stress of the checked outline under the `--loads` load case against
- * `--allowable-stress` (docs/checks/peak-stress.md). Unit MPa (an additive value of the report's `unit`).
- * Measured ≤ limit passes.
- *
- * Stress: von Mises at the centre of each element at least half full (docs/structure.md, "Results and the rules
- * behind them"). Locations: each connected region (elements sharing an edge) of such elements above the limit
- * is one finding, at its highest element's centre (mm, y up), measured = that stress.
- */
+/** `peak-stress`: peak von Mises stress (MPa) under `--loads` against `--allowable-stress` (docs/checks/peak-stress.md). */
 import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './types.js';
 
-/** Regions of solid elements (fraction ≥ solid) with stress > limit: one location per region, at its peak. */
+/** One location per edge-connected region of solid elements above `limit` (MPa), at its peak (mm, y up). */
 export function stressRegions(ex: number, ey: number, hx: number, hy: number, x0: number, y0: number, fraction: Float64Array, vm: Float64Array, limit: number, solid = 0.5): RawLocation[] {
   const over = (e: number) => fraction[e] >= solid && vm[e] > limit;
   const seen = new Uint8Array(ex * ey);

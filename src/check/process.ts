@@ -1,16 +1,4 @@
-/**
- * Process presets (`--process <id>`, `--thickness <mm>`): generic default limits for the size checks
- * (minimum member, minimum hole, tool radius) of a manufacturing process. docs/processes.md lists every value
- * with its source.
- *
- * All values are in millimetres. They are rules of thumb from fabricator and vendor design guides, which
- * disagree by up to about ±50 %, or trade practice labelled "common practice, no source": defaults only.
- * The fabricator's limits, local codes and licensed engineering practice govern, and every value is
- * overridden by `--min-member`, `--min-hole` and `--tool-radius`.
- *
- * Additive category names follow ISO/ASTM 52900 (material extrusion, vat photopolymerization, powder bed
- * fusion); no trademarked process names.
- */
+/** Process presets: generic default size limits, mm, defaults only; docs/processes.md gives each value's source. */
 import { UsageError, show } from '../errors.js';
 
 export const PROCESS_IDS = [
@@ -25,19 +13,16 @@ export const PROCESS_IDS = [
 
 export type ProcessId = (typeof PROCESS_IDS)[number];
 
-/** One preset limit: the value (mm) and where it comes from (a short citation, or "common practice, no source"). */
+/** A preset limit (mm) and its source. */
 export interface PresetValue {
   readonly value: number;
   readonly source: string;
 }
 
-/** The size limits a process preset sets; null where the preset sets none (the check stays off unless asked for). */
+/** The sizes a preset sets, mm with sources; null where it sets none (the check stays off unless asked for). */
 export interface ProcessLimits {
-  /** Smallest allowed local width of the solid, mm (`min-member-size`). */
   readonly minMember: PresetValue | null;
-  /** Smallest allowed hole or gap width, mm (`min-hole-size`). */
   readonly minHole: PresetValue | null;
-  /** Radius of the cutting tool, mm (`min-inner-radius`). */
   readonly toolRadius: PresetValue | null;
 }
 
@@ -51,7 +36,6 @@ const TITLES: Record<ProcessId, string> = {
   'pbf-metal': 'Powder bed fusion, metal (PBF-LB/M)',
 };
 
-/** The processes that cut sheet and so need `--thickness`. */
 const SHEET: ReadonlySet<ProcessId> = new Set<ProcessId>(['laser-cut', 'waterjet-cut']);
 
 /** Waterjet kerf, mm: 0.03 in (fabricator design guide). */
@@ -63,17 +47,14 @@ const GUIDE_LASER = 'fabricator design guides for laser cutting';
 const GUIDE_AM = 'vendor design guides for additive manufacturing';
 const COMMON = 'common practice, no source';
 
-/** Whether `s` names a process preset. */
 export function isProcessId(s: string): s is ProcessId {
   return (PROCESS_IDS as readonly string[]).includes(s);
 }
 
-/** Whether the process cuts sheet and needs `--thickness`. */
 export function needsThickness(id: ProcessId): boolean {
   return SHEET.has(id);
 }
 
-/** The human title of a process (ISO/ASTM 52900 category names for the additive ones). */
 export function processTitle(id: ProcessId): string {
   return TITLES[id];
 }
@@ -81,14 +62,8 @@ export function processTitle(id: ProcessId): string {
 const pv = (value: number, source: string): PresetValue => ({ value, source });
 
 /**
- * The default size limits of a process, in mm.
- *
- * `thickness` is the sheet thickness t in mm; the sheet processes (`laser-cut`, `waterjet-cut`) need it and
- * scale with it; the others ignore it. `toolRadius` (optional, mm) is the user's `--tool-radius`: limits the
- * preset derives from the tool (milling: smallest slot or hole = 2 × tool radius) then follow it.
- *
- * @throws UsageError (code E_USAGE) naming `--thickness` when a sheet process lacks a thickness or it is not
- *   a finite length > 0, and naming `--tool-radius` when that is given but not a finite length > 0.
+ * Default size limits (mm) of a process; sheet processes scale with `thickness` (mm), milling with `toolRadius`.
+ * @throws UsageError (E_USAGE) naming `--thickness` or `--tool-radius` when needed but not a length > 0.
  */
 export function processLimits(id: ProcessId, thickness: number | null, toolRadius: number | null = null): ProcessLimits {
   if (toolRadius !== null && !(toolRadius > 0 && Number.isFinite(toolRadius))) {
@@ -106,7 +81,6 @@ export function processLimits(id: ProcessId, thickness: number | null, toolRadiu
   switch (id) {
     case 'laser-cut':
       return {
-        // web/bridge between cuts ≥ t (1–1.5 t preferred); hole Ø ≥ t with a 1 mm floor
         minMember: pv(t, `${GUIDE_LASER}: web between cuts ≥ t (1–1.5 t preferred)`),
         minHole: pv(Math.max(t, 1), `${GUIDE_LASER}: hole Ø ≥ t, at least 1 mm`),
         toolRadius: null,

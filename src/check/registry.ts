@@ -1,8 +1,4 @@
-/**
- * The registry: every check, in report order (src/check/ids.ts), with its default severity, where its limit
- * comes from, and the words of its message. `planChecks` turns resolved settings into the list the runner
- * runs; a check that is off (no limit, or `--severity <id>=off`) is absent from the report (docs/checks/README.md).
- */
+/** Every check in report order with its default severity, limit source and message words (docs/checks/README.md). */
 import type { Settings } from '../settings.js';
 import { greyLevel } from './grey-level.js';
 import type { CheckId } from './ids.js';
@@ -19,23 +15,18 @@ import { smallHoles } from './small-holes.js';
 import type { CheckDefinition } from './types.js';
 import { volumeFraction } from './volume-fraction.js';
 
-/** The size limits in force after `--process` defaults and explicit options (explicit options win). */
 export interface ResolvedLimits {
   readonly minMember: number | null;
   readonly minHole: number | null;
   readonly toolRadius: number | null;
-  /**
-   * mm²: the hole-area limit in force — `--min-hole-area`, else the default of SUB_RESOLUTION_CELLS cell areas
-   * (src/check/small-holes.ts). Absent: `settings.minHoleArea` as given (null = off).
-   */
+  /** mm²; absent: `settings.minHoleArea` as given. */
   readonly minHoleArea?: number | null;
 }
 
-/** What the planner needs besides the settings: the resolved outline tolerance (mm) and the threshold mode. */
 export interface PlanInputs {
   readonly tolerance: number;
   readonly limits: ResolvedLimits;
-  /** With a fixed --level the volume is not enforced, so its check only warns by default. */
+  /** With a fixed --level the volume is not enforced, so its check only warns. */
   readonly mode: 'volume' | 'level' | 'constant';
 }
 
@@ -57,16 +48,13 @@ const ENTRIES: readonly Entry[] = [
   { def: smallHoles, severity: () => 'warn', limit: (s, p) => (p.limits.minHoleArea !== undefined ? p.limits.minHoleArea : s.minHoleArea), label: 'smallest hole area', place: 'small hole', none: 'no hole' },
   { def: outlineFidelity, severity: () => 'fail', limit: (_s, p) => p.tolerance, label: 'largest outline deviation', place: 'place', none: 'no outline' },
   { def: greyLevel, severity: () => 'warn', limit: (s) => s.greyWarn, label: 'grey level M_nd', place: 'place', none: 'no input' },
-  // the structural re-check (docs/structure.md): only with --loads
   { def: stiffnessChange, severity: () => 'warn', limit: (s) => (s.loads === null ? null : s.maxStiffnessLoss), label: 'compliance increase over the input design', place: 'place', none: 'no structural analysis' },
   { def: peakStress, severity: () => 'fail', limit: (s) => (s.loads === null ? null : s.allowableStress), label: 'peak von Mises stress', place: 'stressed region', none: 'no element at least half full' },
   { def: loadPath, severity: () => 'fail', limit: (s) => (s.loads === null ? null : 0), label: 'supports, loads or pieces cut off', place: 'cut-off place', none: 'no structural analysis' },
 ];
 
-/** Every registered check definition, in report order. */
 export const CHECKS: readonly CheckDefinition[] = ENTRIES.map((e) => e.def);
 
-/** The checks to run for these settings, with limits and severities resolved. */
 export function planChecks(s: Settings, p: PlanInputs): PlannedCheck[] {
   const out: PlannedCheck[] = [];
   for (const e of ENTRIES) {

@@ -1,33 +1,22 @@
-/**
- * The check runner (docs/checks/README.md): measures each planned check, applies its limit, the resolution band and its
- * severity, sorts its locations worst first, and maps them to 1-based file rows and columns.
- *
- * Verdict for one check with measured m, limit l, resolution r and severity s:
- * - m null (nothing to measure) → pass;
- * - |m − l| ≤ r with r > 0 → warn (too close to call either way);
- * - m breaks the limit (m < l for '>=', m > l for '<=') → s (warn or fail);
- * - otherwise → pass. Limits are inclusive: m = l passes when r = 0.
- */
+/** The check runner: applies limit, resolution band and severity (verdict rules: docs/notes/check.md). */
 import type { CheckResult, Location, Report, Status } from '../types.js';
 import { formatValue } from './format.js';
 import type { CheckContext, CheckDefinition, RawLocation } from './types.js';
 
-/** At most this many locations per check go into the report (docs/report-schema.md). */
+/** Locations per check in the report (docs/report-schema.md). */
 export const MAX_LOCATIONS = 100;
 
-/** One check to run: its definition, the limit in its unit, and the status it gets when the limit is broken. */
 export interface PlannedCheck {
   readonly def: CheckDefinition;
   readonly limit: number;
   readonly severity: 'warn' | 'fail';
-  /** Words for the message: what the measured value is ("thinnest member") and what one location is ("thin place"). */
+  /** Message words: the measured value ("thinnest member"), one location ("thin place"), nothing ("no island"). */
   readonly label: string;
   readonly place: string;
-  /** What the message says when there is nothing to measure ("no island"). */
   readonly none: string;
 }
 
-/** Maps a point (mm, y up) to its 1-based row and column in the input file. */
+/** Point (mm, y up) → 1-based row and column of the input file. */
 export type LocateInFile = (x: number, y: number) => { fileRow: number; fileCol: number };
 
 export function verdict(measured: number | null, limit: number, resolution: number, comparison: '>=' | '<=', severity: 'warn' | 'fail'): Status {
@@ -40,10 +29,6 @@ export function verdict(measured: number | null, limit: number, resolution: numb
 
 const UNIT_TEXT: Record<CheckResult['unit'], string> = { mm: ' mm', mm2: ' mm²', '%': ' %', '1': '', MPa: ' MPa' };
 
-/**
- * One line for people. The measured value and the limit are fields of their own (and columns of the text
- * and HTML tables), so the message says what the value is and what the verdict rests on.
- */
 function message(p: PlannedCheck, status: Status, measured: number | null, resolution: number, total: number): string {
   if (measured === null) return `nothing to measure: ${p.none}`;
   const u = UNIT_TEXT[p.def.unit];
@@ -57,7 +42,7 @@ function message(p: PlannedCheck, status: Status, measured: number | null, resol
   return total > 0 ? `${places} ${side} the limit` : `${p.label} ${side} the limit`;
 }
 
-/** Runs every planned check in order; a check's exception propagates (it is a bug, not a verdict). */
+/** A check's exception propagates: it is a bug, not a verdict. */
 export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, locate: LocateInFile): CheckResult[] {
   return planned.map((p) => {
     const m = p.def.measure(ctx, p.limit);
@@ -81,7 +66,6 @@ export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, l
   });
 }
 
-/** The report's summary of a list of results. With no checks the run passes. */
 export function summarize(results: readonly CheckResult[]): Report['summary'] {
   let pass = 0;
   let warn = 0;

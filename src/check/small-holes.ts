@@ -1,30 +1,17 @@
-/**
- * `small-holes`: the area of the smallest hole of the part (docs/checks/small-holes.md). Unit mm²; measured ≥
- * limit passes (`--min-hole-area`, default 4 cell areas: holes below the grid's resolution).
- *
- * Frame: mm, y up. A hole is a hole ring of a polygon (clockwise, enclosed by its outer ring); void open to the
- * domain edge is not a hole. Its area is the area its ring encloses (shoelace).
- */
+/** `small-holes`: the area (mm², shoelace) of the smallest hole ring; measured ≥ limit passes (docs/checks/small-holes.md). */
 import { ringArea, ringPerimeter } from '../geom/area.js';
 import { interiorPoint } from '../geom/interior.js';
 import { formatValue } from './format.js';
 import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './types.js';
 
-/**
- * Holes and islands smaller than this many cell areas are below the grid's resolution: the volume-preserving
- * level can open a hole of one or two cells where the field dips a little below it, or leave a speck where it
- * rises a little above it — artefacts of the threshold, not design (docs/checks/small-holes.md). A hole of four
- * cell areas is a disc about 2.3 cells across, the smallest feature a density filter of radius ≥ 1.5 cells lets
- * an optimizer draw on purpose (common practice, no source).
- */
+/** Holes and islands below this many cell areas are threshold artefacts (common practice, no source; docs/notes/check.md). */
 export const SUB_RESOLUTION_CELLS = 4;
 
-/** The default `--min-hole-area`, mm²: SUB_RESOLUTION_CELLS cell areas of a grid with cells hx × hy mm. */
 export function defaultMinHoleArea(cellSize: readonly [number, number]): number {
   return SUB_RESOLUTION_CELLS * cellSize[0] * cellSize[1];
 }
 
-/** "2 of them below 4 cell areas (25 mm²): …" when some of `areas` (mm²) lie below the grid's resolution. */
+/** "2 of them below 4 cell areas (25 mm²): …" when some `areas` (mm²) lie below the grid's resolution. */
 export function subResolutionNote(areas: readonly number[], cellSize: readonly [number, number], what: string, repair: string): string | undefined {
   const floor = defaultMinHoleArea(cellSize);
   const n = areas.filter((a) => a < floor).length;
@@ -32,12 +19,7 @@ export function subResolutionNote(areas: readonly number[], cellSize: readonly [
   return `${n} ${n === 1 ? 'is' : 'are'} below ${SUB_RESOLUTION_CELLS} cell areas (${formatValue(floor)} mm²): ${what} of the threshold at the grid's resolution, not design; --repair ${repair}`;
 }
 
-/**
- * measured = the smallest hole area (mm²), null when the part has no hole. Resolution = that hole's perimeter ×
- * ctx.tolerance (the area a band of the outline's deviation budget along the hole can hold). Locations: every
- * hole whose area is below limit + its own resolution, at a point strictly inside the hole ring
- * (src/geom/interior.ts), measured = its area. O(vertices).
- */
+/** Smallest hole area (mm²); resolution = its perimeter × tolerance; located at a point inside each small hole. */
 export function measureSmallHoles(ctx: CheckContext, limit: number): Measurement {
   const tol = ctx.tolerance > 0 ? ctx.tolerance : 0;
   let smallest = Infinity;

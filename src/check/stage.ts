@@ -1,10 +1,4 @@
-/**
- * The check stage (docs/checks/README.md): which checks run with which limits (`planChecks`), then the checks on
- * one outline. Checks see the geometry and the records they need, never the report. One morphology engine per
- * outline, built on first use and shared by the size checks.
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
- */
+/** The check stage: plan the checks, then run them on one outline (mm, y up); checks never see the report. */
 import { UsageError } from '../errors.js';
 import { buildMorphology, choosePixel } from '../morph/index.js';
 import type { Morphology } from '../morph/types.js';
@@ -17,19 +11,15 @@ import { planChecks, type ResolvedLimits } from './registry.js';
 import { runChecks, type LocateInFile, type PlannedCheck } from './run.js';
 import type { CheckContext, StructureCheckInput } from './types.js';
 
-/** Which checks run, with which limits, and how findings are placed. */
 export interface CheckPlan {
   readonly limits: ResolvedLimits;
-  /** The process preset's values with their sources (report `process`); null without `--process`. */
   readonly process: ProcessReport | null;
   readonly planned: readonly PlannedCheck[];
-  /** Morphology raster pixel, mm (choosePixel). */
+  /** Morphology raster pixel, mm. */
   readonly pixel: number;
-  /** Maps a point (mm) to its 1-based file row and column. */
   readonly locate: LocateInFile;
 }
 
-/** What the plan needs of the prepared field. */
 export interface PlanInput {
   readonly grid: DensityGrid;
   readonly locate: (i: number, j: number) => SamplePosition;
@@ -37,12 +27,11 @@ export interface PlanInput {
   readonly tolerance: number;
 }
 
-/** Plan the checks. Throws RhoformError on limits that cannot be used (a preset without its thickness, …). */
+/** Throws RhoformError on limits that cannot be used (a preset without its thickness, …). */
 export function planStage(field: PlanInput, mode: ThresholdSummary['mode'], s: Settings): CheckPlan {
   const { limits, process } = resolveLimits(s, field.grid.cellSize);
   const { domain } = field;
-  // A tool wider than the part cannot mill any pocket of it, and its open-space margin would need a raster
-  // many times the grid: refuse it as a usage error rather than spend the memory.
+  // a tool wider than the part mills no pocket and would need a huge raster: refuse it
   const span = Math.max(domain[2] - domain[0], domain[3] - domain[1]);
   if (limits.toolRadius !== null && !(limits.toolRadius <= span)) {
     throw new UsageError(`--tool-radius: expected a radius up to the larger side of the domain (${span} mm), found ${limits.toolRadius} mm`);
@@ -56,34 +45,26 @@ export function planStage(field: PlanInput, mode: ThresholdSummary['mode'], s: S
   };
 }
 
-/** Everything the checks look at besides the outline itself. */
 export interface CheckInput {
-  /** The raw iso-contour, mm. */
   readonly raw: PolygonSet;
-  /** The smoothed outline and the smoothing stage's own deviation measure (mm). */
+  /** mm. */
   readonly smoothed: { readonly polygons: PolygonSet; readonly maxDeviation: number; readonly deviationResolution: number };
   readonly grid: DensityGrid;
   readonly domain: Domain;
   readonly tolerance: number;
   readonly threshold: ThresholdSummary;
-  /** M_nd of the input, %. */
+  /** %. */
   readonly greyLevel: number;
-  /** True for the re-check after `--repair`: the outline judged is the one written (CheckContext.repaired). */
   readonly repaired?: boolean;
-  /** With `repaired`: the area the files hold, mm² (true circles, cleaned rings; CheckContext.writtenArea). */
+  /** mm²; see CheckContext. */
   readonly writtenArea?: number;
 }
 
 export interface CheckRecord {
   readonly results: CheckResult[];
-  /** The morphology engine of this outline when a check built one (the HTML picture reuses it). */
   morphology(): Morphology | undefined;
 }
 
-/**
- * Run the planned checks on `polygons` (the outline to judge), with the passive-solid rings of the exact passive
- * step (`islands` counts a piece touching one as joined).
- */
 export function checkStage(
   polygons: PolygonSet,
   passiveSolid: readonly Ring[] | null,

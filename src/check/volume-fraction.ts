@@ -1,39 +1,22 @@
-/**
- * `volume-fraction`: relative error of the part's area against the target volume fraction (docs/threshold.md;
- * docs/checks/volume-fraction.md). Unit '1' (a ratio); measured ≤ limit passes.
- *
- * Before repair it reads ctx.threshold: `achievedFraction` (smoothed polygon area / domain area, before passive
- * regions and repair) and `targetFraction`. After `--repair` (ctx.repaired) it measures the outline written:
- * final = its polygon area / domain area; when the threshold met the target and the repair moved the area beyond
- * the limit, the check warns (at most) and says so — the change is reported, not failed (DESIGN §4). No
- * locations: the error belongs to the whole part.
- */
+/** `volume-fraction`: relative area error against the target fraction (docs/checks/volume-fraction.md; docs/notes/check.md). */
 import { polygonArea } from '../geom/area.js';
 import type { CheckContext, CheckDefinition, Measurement } from './types.js';
 
-/**
- * Rounding allowance of the measured ratio: the shoelace sum over up to ~10⁶ vertices carries a relative
- * rounding error of about n·2⁻⁵³ ≈ 10⁻¹⁰; 10⁻⁹ covers it with margin.
- */
+/** Rounding allowance of the ratio (docs/notes/check.md). */
 export const VOLUME_RESOLUTION = 1e-9;
 
-/**
- * |achieved − target| / target for a target > 0. For a target of 0 (an empty part asked for) a relative
- * error is undefined: the absolute error |achieved − 0| (a share of the domain area) is returned instead, 0 for
- * the empty part the tool then builds. Null when either fraction is not a finite number.
- */
+/** |achieved − target| / target; for target 0 the absolute error; null unless both are finite. */
 export function volumeError(targetFraction: number, achievedFraction: number): number | null {
   if (!Number.isFinite(targetFraction) || !Number.isFinite(achievedFraction)) return null;
   const err = Math.abs(achievedFraction - targetFraction);
   return targetFraction > 0 ? err / targetFraction : err;
 }
 
-/** A fraction as a percentage with two decimals: 0.39881 → "39.88 %". */
 function percent(f: number): string {
   return `${(100 * f).toFixed(2)} %`;
 }
 
-/** Solid area written (ctx.writtenArea, else the polygon area of `ctx.polygons`) over the domain area; 0 for an empty domain. */
+/** Written solid area over the domain area; 0 for an empty domain. */
 export function writtenFraction(ctx: Pick<CheckContext, 'polygons' | 'domain' | 'writtenArea'>): number {
   const [x0, y0, x1, y1] = ctx.domain;
   const domainArea = (x1 - x0) * (y1 - y0);
@@ -42,10 +25,6 @@ export function writtenFraction(ctx: Pick<CheckContext, 'polygons' | 'domain' | 
   return domainArea > 0 ? area / domainArea : 0;
 }
 
-/**
- * Measures the relative volume error (see {@link volumeError}): of the smoothed outline before repair, of the
- * outline written after it (ctx.repaired).
- */
 export function measureVolumeFraction(ctx: CheckContext, limit: number): Measurement {
   const { targetFraction, achievedFraction, mode } = ctx.threshold;
   const why = mode === 'level' ? ' (fixed --level: the volume was not searched)' : mode === 'constant' ? ' (constant field: no search)' : '';

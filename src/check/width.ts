@@ -1,9 +1,4 @@
-/**
- * Shared measurement of the two local-width checks (member and hole): the survey of one phase becomes a
- * Measurement — the thinnest width anywhere, and one location per connected place thinner than the limit.
- * When the thinnest width lies within the resolution above the limit, its place is listed too, so the
- * warning the runner gives (docs/checks/README.md) is located.
- */
+/** The two local-width checks' shared measurement; a width just above the limit is located too, so its warning has a place. */
 import type { Morphology, Phase } from '../morph/types.js';
 import { formatValue } from './format.js';
 import type { Measurement, RawLocation } from './types.js';
