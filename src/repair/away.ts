@@ -1,16 +1,7 @@
-/**
- * Disc centres kept clear of passive voids: a thickening disc that would reach into a passive-void region (a
- * bolt hole the caller fixed) is moved away from it, so that the member grows on its other side instead of
- * being cut back by the void on every round.
- *
- * Frame: millimetres, y up. Rings: passive-void regions, either orientation (non-zero fill of one ring).
- */
+/** Disc centres kept clear of passive voids (docs/notes/repair.md). mm, y up; void rings of either orientation. */
 import { ringBounds, ringContains } from '../geom/contains.js';
 import type { Point, Ring } from '../types.js';
 
-/**
- * The nearest point of ring `r`'s boundary to (x, y) (mm) and its distance. O(vertices).
- */
 function nearestOnRing(r: Ring, x: number, y: number): { px: number; py: number; d: number } {
   let best = Infinity, bx = x, by = y;
   for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
@@ -25,13 +16,7 @@ function nearestOnRing(r: Ring, x: number, y: number): { px: number; py: number;
   return { px: bx, py: by, d: Math.sqrt(best) };
 }
 
-/**
- * `c` moved so that the disc of radius `rho` (mm) around it stays out of every ring of `voids`: when the disc
- * reaches into a void (the centre closer than rho to its boundary, or inside it), the centre moves along the
- * line from the nearest boundary point through the centre to distance rho outside. A few passes settle a
- * centre between two voids as well as it can be (it may still touch one when they are closer than 2·rho).
- * Returns `c` itself when no void is near.
- */
+/** `c` moved so that the disc of radius `rho` (mm) around it stays out of every void; `c` itself when none is near. */
 export function clearOfVoids(c: Point, rho: number, voids: readonly Ring[], boxes: readonly [number, number, number, number][]): Point {
   let x = c[0], y = c[1];
   for (let pass = 0; pass < 3; pass++) {
@@ -56,7 +41,6 @@ export function clearOfVoids(c: Point, rho: number, voids: readonly Ring[], boxe
   return x === c[0] && y === c[1] ? c : [x, y];
 }
 
-/** Bounding boxes of the rings, for clearOfVoids. */
 export function boxesOf(voids: readonly Ring[]): [number, number, number, number][] {
   return voids.map((r) => ringBounds(r));
 }

@@ -1,7 +1,4 @@
-/**
- * One number per square cell (i, j) of a hash grid, for Map and Set keys: i·2²² + j. Distinct and exact in a
- * double for |i|, |j| < 2²² (products below 2⁴⁴ ≪ 2⁵³).
- */
+/** Hash-grid key of square cell (i, j): i·2²² + j, exact in a double for |i|, |j| < 2²². */
 export function cellKey(i: number, j: number): number {
   return i * 4_194_304 + j;
 }

@@ -1,27 +1,10 @@
-/**
- * Filling the narrow void places the hole check reports directly: the maximal inscribed discs at the thin void
- * medial samples, each enlarged by a margin, and the convex hulls of the discs of neighbouring samples (tapered
- * capsules), so that a neck fills as a band with no sliver between two discs.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid. Rings are counter-clockwise.
- *
- * Why: the closing by a disc of radius ρ (common.ts `closing`) fills only the void a disc of radius ρ cannot
- * enter. A neck between a sharp convex corner of the solid and a wall is narrower than the limit, yet a disc of
- * radius ρ passes beside the corner and covers the neck's medial samples, so the closing leaves it. The inscribed
- * disc at a sample touches the walls at its two feet (θ-simplified medial axis, Foskey, Lin & Manocha,
- * "Efficient computation of a simplified medial axis", Proc. 8th ACM Symposium on Solid Modeling and
- * Applications, 2003, DOI 10.1145/781606.781623 — DOI from memory); enlarged by δ it crosses both walls, so the
- * neck is bridged there.
- */
+/** Inscribed discs at thin void samples, bridged by convex hulls: fills the necks a closing leaves (docs/notes/repair.md). mm, y up. */
 import type { Point, Ring } from '../types.js';
 import { cellKey } from './cell-key.js';
 
 /**
- * The regions to add for the samples (x[k], y[k]) with disc radii r[k] (mm; the caller adds its margin): one
- * ring per pair of neighbouring samples (the convex hull of their two discs) and one per lone sample (its disc).
- * Neighbours: samples in 8-neighbouring squares of side `cell` mm (squares anchored at (ox, oy)); the caller
- * keeps at most one sample per square. Discs are polygons with vertices on the circle, at most `arcTol` mm from
- * it (at least 12 vertices). O(n) with a hash of square keys.
+ * One ring per pair of neighbouring samples (hull of their discs of radii r[k], mm) and one per lone sample;
+ * neighbours share 8-neighbouring squares of side `cell` mm anchored at (ox, oy). Chords within `arcTol` mm. O(n).
  */
 export function discHulls(
   x: ArrayLike<number>,
@@ -56,9 +39,8 @@ export function discHulls(
   return rings;
 }
 
-/** Vertices of a regular polygon on the circle of centre (cx, cy) and radius R (mm), counter-clockwise, chords within `arcTol` mm of the circle. */
 function discPoints(cx: number, cy: number, R: number, arcTol: number): Point[] {
-  // sagitta of a chord turning by 2π/m: R(1 − cos(π/m)) ≤ arcTol
+  // sagitta R(1 − cos(π/m)) ≤ arcTol
   const c = 1 - Math.min(arcTol, R) / R;
   const m = Math.max(12, Math.min(720, Math.ceil(Math.PI / Math.acos(Math.max(-1, Math.min(1, c))))));
   const pts: Point[] = [];
@@ -69,7 +51,7 @@ function discPoints(cx: number, cy: number, R: number, arcTol: number): Point[] 
   return pts;
 }
 
-/** Convex hull, counter-clockwise (A.M. Andrew, "Another efficient algorithm for convex hulls in two dimensions", Information Processing Letters 9(5):216–219, 1979, DOI 10.1016/0020-0190(79)90072-3 — DOI from memory). */
+/** Convex hull, CCW (A.M. Andrew, "Another efficient algorithm for convex hulls in two dimensions", IPL 9(5):216–219, 1979, DOI 10.1016/0020-0190(79)90072-3, from memory). */
 function convexHull(points: Point[]): Ring {
   const p = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   const cross = (o: Point, a: Point, b: Point): number => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);

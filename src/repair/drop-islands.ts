@@ -1,17 +1,10 @@
-/**
- * `drop-islands` (→ `islands`, docs/repair.md): pieces not joined to the main body (the largest piece) nor to a
- * passive-solid region, with net area above `--min-island-area` (0: every such piece), are removed whole.
- *
- * Frame: millimetres, y up. "Joined" is decided in one place, src/check/islands.ts joinedPieces, shared with the
- * check, so the check and the repair agree. Only whole pieces go: nothing is cut, so no piece is split.
- */
+/** `drop-islands` (→ `islands`): removes whole the pieces src/check/islands.ts `joinedPieces` calls islands. */
 import { joinedPieces } from '../check/islands.js';
 import { polygonArea } from '../geom/area.js';
 import { interiorPoint } from '../geom/interior.js';
 import type { Polygon, PolygonSet } from '../types.js';
 import type { RepairInput, StepResult } from './types.js';
 
-/** Removes the islands of `set` larger than the island limit. */
 export function dropIslands(set: PolygonSet, input: RepairInput): StepResult {
   const polys = set.polygons;
   const areas = new Float64Array(polys.length);

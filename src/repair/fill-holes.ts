@@ -1,28 +1,4 @@
-/**
- * `fill-holes` (→ `min-hole-size`, `small-holes`, docs/repair.md): holes and gaps narrower than the hole limit
- * are filled, and holes whose area is below the hole-area limit (`--min-hole-area`, default 4 cell areas) are filled whole.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid.
- *
- * By width (limit L): the void the disc of radius ρ = L/2 + δ cannot enter is the closing of the solid by that
- * disc minus the solid (common.ts `closing`; outside the domain is open space). Of that region, only the
- * connected parts that hold a counted thin void sample (θ-simplified medial axis, the check's own samples with
- * local width < L + pixel/2, the check's "too close to call" band included — Foskey, Lin & Manocha 2003, DOI 10.1145/781606.781623) are added: a small round hole (its
- * medial axis is its centre) fills whole, a narrow slot fills along its length with round ends of radius ρ where
- * it opens into wider void, and the 90° corners elsewhere (θ = 90°, not thin) are left alone. Filling the whole
- * unreachable part, rather than only the discs at the samples, leaves the remaining void a union of discs of
- * radius ρ there: no sliver wedge where a disc would cross a wall at a grazing angle.
- *
- * Then the thin samples the closing left alone — a neck between a sharp convex corner and a wall, where a disc of
- * radius ρ passes beside the corner — get their own inscribed disc, enlarged by δ, and the convex hull of the
- * discs of neighbouring samples (discs.ts); samples within ρ + pixel of a part the closing filled are left to
- * the next round, which measures the changed walls afresh. A disc that reaches past the domain edge is clipped
- * there (a neck between the part and the domain edge fills up to the edge).
- *
- * By area (limit A): every hole ring enclosing less than A mm² (shoelace) is filled (after the width step).
- *
- * Never fills a passive-void region, and does not count its area (addMaterial subtracts them).
- */
+/** `fill-holes` (→ `min-hole-size`, `small-holes`): by width, then by area (method: docs/notes/repair.md). mm, y up. */
 import { ringArea } from '../geom/area.js';
 import { ringBounds } from '../geom/contains.js';
 import { booleanOp, ringsOf } from '../geom/clipper.js';
@@ -34,11 +10,7 @@ import { discHulls } from './discs.js';
 import { thinOut } from './thicken.js';
 import type { RepairInput, StepResult } from './types.js';
 
-/**
- * `(x, y) → whether some piece lies within d mm` (nearPiece), through a bucket grid of the pieces' bounding
- * boxes grown by d, so that n samples against k pieces cost about n + k box tests rather than n·k ring walks
- * (a plate with thousands of filled holes).
- */
+/** Whether some piece lies within d mm of (x, y), through a bucket grid of the pieces' grown boxes. */
 function nearIndex(pieces: readonly Polygon[], d: number): (x: number, y: number) => boolean {
   if (pieces.length === 0) return () => false;
   const boxes = pieces.map((p) => {
@@ -50,7 +22,7 @@ function nearIndex(pieces: readonly Polygon[], d: number): (x: number, y: number
     minX = Math.min(minX, b[0]); minY = Math.min(minY, b[1]); maxX = Math.max(maxX, b[2]); maxY = Math.max(maxY, b[3]);
     sum += Math.max(b[2] - b[0], b[3] - b[1]);
   }
-  // cells about the size of an average box: each box lands in a few cells, each cell holds a few boxes
+  // cells about the size of an average box
   const cell = Math.max(sum / boxes.length, ((maxX - minX) + (maxY - minY)) / 4096, 1e-9);
   const cols = Math.max(1, Math.ceil((maxX - minX) / cell));
   const rows = Math.max(1, Math.ceil((maxY - minY) / cell));
@@ -84,7 +56,7 @@ function nearIndex(pieces: readonly Polygon[], d: number): (x: number, y: number
   };
 }
 
-/** Fills the narrow and the small holes of `set`; `morph` is the morphology of `set`. */
+/** `morph` is the morphology of `set`. */
 export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
   const { minHole: L, minHoleArea: A } = input.limits;
   if (L === null && A === null) {
@@ -95,7 +67,7 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
   const changed: Polygon[] = [];
   const locations: { x: number; y: number; measured: number }[] = [];
   if (L !== null) {
-    // the check warns within its resolution (pixel/2) of the limit: gaps in that band are filled too
+    // the check's "too close to call" band is filled too
     const below = L + 0.5 * morph.pixel;
     const pts = morph.medial('void', below);
     if (pts.count > 0) {
@@ -113,10 +85,7 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
         area += added.area;
         changed.push(...added.changed.polygons);
       }
-      // the samples the closing left alone (a neck beside a sharp convex corner, which a disc of radius ρ passes):
-      // their own inscribed discs, enlarged by δ, with the hulls of neighbouring discs (discs.ts). A sample within
-      // ρ of a filled part is not taken: the fill changed the walls there (the samples of a wedge between its
-      // new fillet and the disc that made it are no longer thin), and the next round measures it afresh.
+      // necks beside a sharp convex corner; samples near a part just filled wait for the next round
       const reach = rho + input.pixel;
       const near = nearIndex(chosen, reach);
       const left = order.filter((k) => !near(pts.x[k], pts.y[k]));
@@ -150,7 +119,7 @@ export function fillHoles(set: PolygonSet, input: RepairInput, morph: Morphology
     }
     if (small.length > 0) {
       const quantum = quantumOf(input.domain, 0);
-      // a hole ring is clockwise: reversed it bounds the hole's own region (non-zero fill either way)
+      // a reversed hole ring bounds the hole's own region
       const added = addMaterial(current, small.map((h) => [...h].reverse()), input, quantum);
       if (added.polygons !== current) {
         current = added.polygons;

@@ -1,24 +1,4 @@
-/**
- * `open-corners` (→ `min-inner-radius`, docs/repair.md): concave corners tighter than the tool radius R are
- * opened to R — the geometry becomes what a tool of radius R actually cuts.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid.
- *
- * Method: the void is opened by the disc of radius ρ = R + δ, i.e. the solid is closed by it (offset +ρ then −ρ
- * with round joins, common.ts `closing`; Serra 1982, textbook definition) in the plane — outside the domain is
- * open space the tool may come from — and the result is clipped to the domain rectangle. This adds the uncut
- * material in each tight corner (a fillet of radius ρ; in a 90° corner its area is (1 − π/4)ρ², analytic) and
- * fills slots narrower than 2ρ. δ (common.ts marginOf) makes the re-check's own radius come out at least R
- * despite the polygonised arcs. Runs only when the check's survey finds a corner (the same depth allowance
- * max(tolerance, 0.05 R) as the check), so an outline that passes is left exactly as it is.
- *
- * Only around those corners: each corner the survey finds gets a window (a square of half side WINDOW·ρ around
- * it, overlapping windows merged); the closing of the solid clipped to the window grown by 2ρ is exact inside the
- * window (the closing at a point depends only on the solid within 2ρ of it), and only its part inside the
- * window is added. The fine fillet arcs (sagitta pixel/1600, for the inner-radius check) are then cut only
- * there, not at every slightly concave vertex of the whole outline, so the vertex count stays near the
- * input's. An uncut region longer than its window (a long slot) is finished by the next round's survey.
- */
+/** `open-corners` (→ `min-inner-radius`): tight corners closed by a disc of radius R + δ, window by window (docs/notes/repair.md). mm, y up. */
 import { cornerDepth } from '../check/min-inner-radius.js';
 import type { Morphology } from '../morph/types.js';
 import type { PolygonSet, Ring } from '../types.js';
@@ -31,7 +11,6 @@ export const WINDOW = 5;
 
 type Box = [number, number, number, number];
 
-/** Opens the tight corners of `set`; `morph` is the morphology of `set`. */
 export function openCorners(set: PolygonSet, input: RepairInput, morph: Morphology): StepResult {
   const R = input.limits.toolRadius;
   if (R === null) return { polygons: set, area: 0, locations: [], changed: { polygons: [] }, skipped: 'no tool radius (--tool-radius or --process)' };
@@ -59,7 +38,7 @@ function boxRing(b: Box): Ring {
   return [[b[0], b[1]], [b[2], b[1]], [b[2], b[3]], [b[0], b[3]]];
 }
 
-/** Boxes merged until none overlap (the bounding box of overlapping ones). O(n²) passes; corners are few. */
+/** Boxes merged until none overlap. O(n²) passes; corners are few. */
 function mergeBoxes(boxes: Box[]): Box[] {
   const out = boxes.map((b) => [...b] as Box);
   let merged = true;

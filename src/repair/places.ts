@@ -1,21 +1,10 @@
-/**
- * One location per place a repair acted on: the places each round measured (one per connected thin place,
- * narrow place, corner or island of that round's geometry) are merged by the connected region of material the
- * repair changed over all its rounds, keeping the worst value measured there.
- *
- * Frame: millimetres, y up.
- */
+/** One location per region a repair changed, over all its rounds, keeping the worst value. mm, y up. */
 import { ringBounds } from '../geom/contains.js';
 import type { PolygonSet } from '../types.js';
 
 type Loc = { x: number; y: number; measured: number };
 
-/**
- * Merges `locs` (worst = smallest `measured` first, except islands: `larger` = true keeps the largest) by the
- * piece of `changed` whose bounding box grown by `reach` mm holds them (the first such piece; a thin member's
- * medial point lies beside the band added to it, not in it). Locations near no piece stay, one per pixel-free
- * position (exact duplicates merged). Sorted worst first.
- */
+/** Merges `locs` (worst first; `larger`: largest first) by the piece of `changed` whose box grown by `reach` mm holds them. */
 export function clusterLocations(locs: readonly Loc[], changed: PolygonSet, reach: number, larger = false): Loc[] {
   if (locs.length <= 1) return [...locs];
   const worse = (a: Loc, b: Loc): boolean => (larger ? a.measured > b.measured : a.measured < b.measured);

@@ -1,16 +1,4 @@
-/**
- * The repair engine (`--repair[=list]`, docs/repair.md): runs the asked repairs in their fixed order
- * (REPAIR_IDS: thicken, fill-holes, open-corners, drop-islands) on a fresh morphology of the current geometry,
- * for up to MAX_ROUNDS rounds.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid. Inputs are not modified.
- *
- * Rounds: one repair can leave work for an earlier one (thickening narrows a gap that fill-holes then fills;
- * filling a slot can leave a corner for open-corners, whose fillet can meet a member thickened before). So when a
- * round changed the geometry, the repairs run again on the result, at most MAX_ROUNDS times in all; a round that
- * changes nothing ends it. Every repair but drop-islands only adds material, and drop-islands removes whole
- * pieces, so the number of pieces never grows.
- */
+/** The repair rounds: asked repairs in REPAIR_IDS order until nothing changes (docs/notes/repair.md). mm, y up; inputs unchanged. */
 import { booleanOp, ringsOf } from '../geom/clipper.js';
 import { buildMorphology } from '../morph/index.js';
 import type { Morphology } from '../morph/types.js';
@@ -25,10 +13,7 @@ import { clusterLocations } from './places.js';
 import { unresolvedOf } from './unresolved.js';
 import { REPAIR_CHECKS, type RepairAction, type RepairInput, type StepResult } from './types.js';
 
-/**
- * At most this many rounds of all asked repairs. Measured on the random parts of test/repair/property.test.ts
- * and the demo: every part that converges does so within four rounds; six leave room for a chain of two more.
- */
+/** Rounds at most: converging parts settle within four (test/repair/property.test.ts, the demo); six leave room for two more. */
 export const MAX_ROUNDS = 6;
 
 function step(id: RepairName, set: PolygonSet, input: RepairInput, morph: () => Morphology): StepResult {
@@ -44,14 +29,7 @@ function step(id: RepairName, set: PolygonSet, input: RepairInput, morph: () => 
   }
 }
 
-/**
- * Runs the repairs `ids` (any order and repeats; they run in REPAIR_IDS order) on `input.polygons` and returns
- * the repaired outline (outer rings CCW, holes CW, mm) and one action per asked repair, in that order.
- * A repair whose limit is off reports `skipped` and does nothing; an action's `area`, `locations` and `changed`
- * gather all its rounds (locations are measured on the geometry each round started from, then merged to one per
- * connected region the repair changed, with the worst value measured there: places.ts). `unresolved` says what
- * its check would still find on the result, and why (unresolved.ts), or null.
- */
+/** Repaired outline (mm, outer CCW, holes CW) and one action per asked repair, all rounds gathered. */
 export function runRepairs(ids: readonly RepairName[], input: RepairInput): { polygons: PolygonSet; actions: RepairAction[] } {
   if (!(input.pixel > 0) || !Number.isFinite(input.pixel)) throw new RangeError(`runRepairs: expected pixel > 0 mm, found ${input.pixel}`);
   if (!(input.tolerance >= 0)) throw new RangeError(`runRepairs: expected tolerance ≥ 0 mm, found ${input.tolerance}`);
@@ -94,14 +72,13 @@ export function runRepairs(ids: readonly RepairName[], input: RepairInput): { po
   return { polygons: current, actions };
 }
 
-/** How far (mm) from the material a repair added the place it measured can lie: its disc radius and a pixel. */
+/** How far (mm) from the added material the place a repair measured can lie: its disc radius and a pixel. */
 function reachOf(id: RepairName, input: RepairInput): number {
   const L = input.limits;
   const r = id === 'thicken' ? (L.minMember ?? 0) / 2 : id === 'fill-holes' ? (L.minHole ?? 0) / 2 : id === 'open-corners' ? (L.toolRadius ?? 0) : 0;
   return r + input.pixel;
 }
 
-/** The changed regions of several rounds as one set (a union for added material; removed pieces are disjoint). */
 function merge(sets: readonly PolygonSet[], id: RepairName, input: RepairInput): PolygonSet {
   if (sets.length === 0) return { polygons: [] };
   if (sets.length === 1) return sets[0];

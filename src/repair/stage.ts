@@ -1,11 +1,4 @@
-/**
- * The repair stage (`--repair[=list]`, docs/repair.md): run the requested repairs on the checked outline, then
- * apply the design's fixed parts again (symmetry, passive regions): they win over any repair, so a thickened
- * member never closes a bolt hole. A repair whose checks are off is recorded as skipped. The pipeline re-runs
- * the checks on the result.
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
- */
+/** The repair stage: the repairs, then the fixed parts again so they win (docs/repair.md). mm, y up. */
 import type { CheckId } from '../check/ids.js';
 import { MAX_LOCATIONS, type PlannedCheck } from '../check/run.js';
 import type { MirrorPlane } from '../geom/symmetry.js';
@@ -21,7 +14,7 @@ import { quantumOf } from './common.js';
 import { simplifySet } from '../smooth/simplify-set.js';
 import { REPAIR_CHECKS, type RepairAction } from './types.js';
 
-/** Why a repair does nothing because the check it answers is off or has no limit; null when it can run. */
+/** Why a repair cannot run (its check is off or has no limit); null when it can. */
 function offReason(id: RepairName, planned: ReadonlySet<CheckId>): string | null {
   const checks = REPAIR_CHECKS[id];
   if (checks.some((c) => planned.has(c))) return null;
@@ -31,35 +24,27 @@ function offReason(id: RepairName, planned: ReadonlySet<CheckId>): string | null
 export interface RepairStageInput {
   readonly polygons: PolygonSet;
   readonly settings: Pick<Settings, 'repair' | 'minIslandArea' | 'minHoleArea'>;
-  /** The limits in force (ResolvedLimits); `minHoleArea` absent: `settings.minHoleArea`. */
   readonly limits: { readonly minMember: number | null; readonly minHole: number | null; readonly toolRadius: number | null; readonly minHoleArea?: number | null };
   readonly planned: readonly PlannedCheck[];
   readonly planes: readonly MirrorPlane[];
   readonly passive: PassiveRegions | null;
-  /** The passive-solid primitives as rings, as the exact passive step drew them (PassiveExactResult.solidRings). */
   readonly passiveSolid: readonly Ring[];
   readonly domain: Domain;
   readonly tolerance: number;
-  /**
-   * mm: the outline budget the smoothing left (tolerance − its measured deviation); the repaired outline is
-   * simplified within it before the passive regions are applied again (src/smooth/simplify-set.ts). 0 = none.
-   */
+  /** mm: the outline budget the smoothing left; the repaired outline is simplified within it. 0 = none. */
   readonly simplify?: number;
-  /** Morphology raster pixel, mm (choosePixel). */
+  /** Morphology raster pixel, mm. */
   readonly pixel: number;
-  /** Maps a point (mm) to its 1-based file row and column (the check locator). */
   readonly locate: (x: number, y: number) => Pick<Location, 'fileRow' | 'fileCol'>;
 }
 
 export interface RepairStageRecord {
-  /** The repaired outline, symmetric again and with the passive regions applied again. */
+  /** Symmetric again, passive regions applied again. */
   readonly polygons: PolygonSet;
   readonly passive: PassiveExactResult | null;
-  /** One record per requested repair, in REPAIR_IDS order (report `repairs`). */
+  /** In REPAIR_IDS order (report `repairs`). */
   readonly records: readonly RepairRecord[];
-  /** The outline the repairs started from. */
   readonly before: PolygonSet;
-  /** The material added or removed, for the `repair` layer and the HTML figure. */
   readonly changed: PolygonSet;
 }
 
@@ -99,7 +84,6 @@ export function repairStage(input: RepairStageInput): RepairStageRecord {
       unresolved: a.unresolved,
     };
   });
-  // the repairs' booleans and offsets leave near-coincident vertices: simplify within the budget left
   const repaired = input.simplify ? simplifySet(run.polygons, input.simplify, { quantum: quantumOf(input.domain, 0) }) : run.polygons;
   const fixed = applyFixedParts(repaired, input.planes, input.passive, input.domain, input.tolerance);
   const changed: PolygonSet = { polygons: run.actions.flatMap((a) => a.changed.polygons) };

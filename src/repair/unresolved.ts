@@ -1,10 +1,4 @@
-/**
- * What the repairs could not settle: after the last round, each asked repair's own survey runs once more on the
- * result (the same measures as its check), and what is left is said in words — how many places, the worst one,
- * where, and the likely reason.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid.
- */
+/** What the repairs could not settle: each repair's survey once more on the result, said in words. mm, y up. */
 import { joinedPieces } from '../check/islands.js';
 import { cornerDepth } from '../check/min-inner-radius.js';
 import { polygonArea, ringArea } from '../geom/area.js';
@@ -16,7 +10,6 @@ import type { RepairInput } from './types.js';
 
 const fmt = (v: number): string => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(2));
 
-/** Distance (mm) from (x, y) to the nearest passive-void ring's boundary (Infinity without any). */
 function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
   let best = Infinity;
   for (const r of voids) {
@@ -32,20 +25,13 @@ function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
   return best;
 }
 
-/**
- * The likely reason a place of size limit `limit` (mm) at (x, y) stayed. `settled`: the last round changed
- * nothing (the repair found nothing to do there), else the rounds ran out.
- */
+/** The likely reason a place stayed; `settled`: the last round changed nothing. */
 function why(x: number, y: number, limit: number, input: RepairInput, rounds: number, settled: boolean): string {
   if (nearVoid(x, y, input.passiveVoid) < limit) return 'beside a passive-void region, which the repairs never fill';
   if (settled) return 'the repair finds nothing to add there (its discs there changed nothing, or met a passive region or the domain edge)';
   return `the repairs of neighbouring places still undid each other after ${rounds} rounds`;
 }
 
-/**
- * The unresolved text of repair `id` on the final outline `set` (its morphology `morph`), or null when its
- * survey finds nothing left. `rounds`: how many rounds ran; `settled`: whether the last one changed nothing.
- */
 export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput, morph: Morphology, rounds: number, settled: boolean): string | null {
   const L = input.limits;
   if (id === 'thicken' && L.minMember !== null) {
