@@ -1,21 +1,8 @@
 /**
- * Circular arcs and straight lines through the vertices of a closed ring, within a tolerance (`--arcs`).
- *
- * Method: the arc/line segmentation of a polygonal curve with break points at its vertices, each piece within
- * a tolerance region of the curve, as formulated by R. L. S. Drysdale, G. Rote and A. Sturm, "Approximation of
- * an open polygonal curve with a minimum number of circular arcs and biarcs", Computational Geometry: Theory and
- * Applications 41(1–2):31–47, 2008, doi:10.1016/j.comgeo.2007.10.009 (from memory). They find the fewest pieces
- * by a shortest path over every feasible arc (O(n² log n)); we take the greedy path instead — from each break
- * point the longest feasible piece, found by doubling and bisection — which costs O(n log n) and a few more
- * pieces (docs/arcs.md). The arc of a run i … j is the circle through its end points and its middle vertex.
- *
- * The tolerance region is the one the outline answers to: the raw iso-contour. A piece is feasible when
- * (1) every point of it lies within `tolerance` of the raw contour — certified by samples: the distance is
- * 1-Lipschitz along the piece, so after a sample at distance d the next one is tolerance − d further on
- * (at least tolerance/16, taken only from a sample within 15/16 of the tolerance); (2) every vertex it
- * replaces lies within `tolerance` of it (no feature of the polygon is skipped); (3) for an arc, the vertices
- * advance around its centre in one direction inside a sweep of at most 180° (|bulge| ≤ 1); (4) `allowed(box)`
- * accepts the piece's bounding box (the caller keeps arcs inside the domain). Lengths in mm, y up.
+ * Circular arcs and lines through a ring's vertices within `tolerance` mm of the raw contour (`--arcs`), greedy
+ * on the segmentation of R. L. S. Drysdale, G. Rote and A. Sturm, "Approximation of an open polygonal curve with
+ * a minimum number of circular arcs and biarcs", CGTA 41(1–2):31–47, 2008, doi:10.1016/j.comgeo.2007.10.009
+ * (from memory). Feasibility rules: docs/notes/geom.md. mm, y up.
  */
 import { extendByArc } from './bulge.js';
 
@@ -23,15 +10,13 @@ import { extendByArc } from './bulge.js';
 const MIN_ARC_EDGES = 3;
 
 export interface ArcRingFit {
-  /** Indices of the ring's vertices kept as break points, increasing. */
   readonly keep: Int32Array;
-  /** bulge[m]: bulge of the piece from keep[m] to keep[m + 1] (mod), 0 for a line. */
+  /** bulge[m]: of the piece keep[m] → keep[m + 1] (mod), 0 for a line. */
   readonly bulge: Float64Array;
-  /** Largest sampled distance (mm) of the fitted pieces from the raw contour (0 when nothing was fitted); every point of them is within the tolerance. */
+  /** Largest sampled distance (mm) of the pieces from the raw contour. */
   readonly maxDeviation: number;
 }
 
-/** Circle through three points, or null when they are (nearly) collinear. */
 function circle3(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): [number, number, number] | null {
   const d = 2 * (ax * (by - cy) + bx * (cy - ay) + cx * (ay - by));
   const scale = Math.max(Math.abs(bx - ax), Math.abs(by - ay), Math.abs(cx - ax), Math.abs(cy - ay));
@@ -45,10 +30,8 @@ function circle3(ax: number, ay: number, bx: number, by: number, cx: number, cy:
 }
 
 /**
- * Fits the closed ring `xy` (flat, mm, n ≥ 3 points, implicitly closed) within `tolerance` mm of the raw contour
- * (`rawDistance(x, y)`: distance in mm, or Infinity beyond the tolerance). `label[i]` groups vertices: a piece
- * spans only vertices of one label (callers give vertices on a passive boundary or the domain edge their own
- * label, so such a boundary is never smoothed across). `allowed` vets an arc's bounding box.
+ * Fits the closed flat ring `xy` (mm); `rawDistance` is mm, Infinity beyond the tolerance. A piece spans one
+ * `label` only (passive boundaries, the domain edge); `allowed` vets an arc's bounding box.
  */
 export function fitRingArcs(
   xy: Float64Array,
@@ -57,11 +40,7 @@ export function fitRingArcs(
   label: Int32Array | null,
   allowed: (box: readonly number[]) => boolean,
 ): ArcRingFit {
-  /**
-   * Sampling along a piece: the distance to the raw contour is 1-Lipschitz along it, so from a sample at
-   * distance d every point within tolerance − d of it is within the tolerance; the next sample is that far
-   * on, and at least `minStep` — which a sample may take only when d ≤ tolerance − minStep.
-   */
+  // 1-Lipschitz sampling (docs/notes/geom.md): the next sample is tolerance − d on, at least minStep
   const minStep = tolerance / 16;
   const limit = tolerance - minStep;
   const n = xy.length >> 1;
@@ -70,14 +49,9 @@ export function fitRingArcs(
   const L = (k: number) => (label ? label[k % n] : 0);
   let worst = 0;
 
-  /** Scratch point of a piece, written by the `at` callbacks (no allocation per sample). */
   let px = 0;
   let py = 0;
-  /**
-   * Samples a piece of `length` mm whose point at arc-length fraction u the callback `at(u)` writes to
-   * (px, py): the largest sampled distance to the raw contour (every point of the piece is then within the
-   * tolerance, see `minStep`), or Infinity when a sample is too far.
-   */
+  /** Largest sampled distance of the piece `at(u)` writes to (px, py), or Infinity when a sample is too far. */
   const sampled = (at: (u: number) => void, length: number): number => {
     let dev = 0;
     let run = 0;
@@ -92,7 +66,6 @@ export function fitRingArcs(
     return dev;
   };
 
-  /** Deviation of the line s → e, or Infinity when infeasible. */
   const lineDev = (s: number, e: number): number => {
     const ax = X(s), ay = Y(s), bx = X(e), by = Y(e);
     const dx = bx - ax, dy = by - ay;
@@ -109,13 +82,11 @@ export function fitRingArcs(
     }, Math.sqrt(len2));
   };
 
-  /** Bulge and deviation of the arc s → e through the middle vertex, or null when infeasible. */
   const arcFit = (s: number, e: number): { bulge: number; dev: number } | null => {
     const m = (s + e) >> 1;
     const c = circle3(X(s), Y(s), X(m), Y(m), X(e), Y(e));
     if (!c) return null;
     const [ux, uy, r] = c;
-    // direction: the sign of the turn s → m → e (counter-clockwise arc for a left turn)
     const turn = (X(m) - X(s)) * (Y(e) - Y(s)) - (Y(m) - Y(s)) * (X(e) - X(s));
     const dir = turn > 0 ? 1 : -1;
     const a0 = Math.atan2(Y(s) - uy, X(s) - ux);
@@ -155,7 +126,7 @@ export function fitRingArcs(
     return arcFit(s, e);
   };
 
-  // Start at a vertex where the label changes (or 0), so a run never straddles the ring's start.
+  // start where the label changes, so a run never straddles the ring's start
   let start = 0;
   if (label) for (let k = 0; k < n; k++) if (L(k) !== L(k + n - 1)) { start = k; break; }
   const keep: number[] = [];
@@ -163,7 +134,6 @@ export function fitRingArcs(
   let s = start;
   const end = start + n;
   while (s < end) {
-    // longest feasible piece from s: double the reach while feasible, then bisect
     let good = s + 1;
     let goodFit = { bulge: 0, dev: 0 };
     let step = MIN_ARC_EDGES;
@@ -200,7 +170,6 @@ export function fitRingArcs(
     if (goodFit.dev > worst) worst = goodFit.dev;
     s = good;
   }
-  // break points in ring order (the walk started at `start`)
   const order = keep.map((k, i) => [k, bulge[i]] as const).sort((a, b) => a[0] - b[0]);
   return { keep: Int32Array.from(order.map((o) => o[0])), bulge: Float64Array.from(order.map((o) => o[1])), maxDeviation: worst };
 }

@@ -1,15 +1,10 @@
-/**
- * Signed area and perimeter of rings (shoelace formula). Coordinates in mm, y up.
- * Counter-clockwise rings (outer boundaries) have positive area, clockwise rings (holes) negative,
- * so the area of a polygon is the plain sum over its outer ring and its holes.
- */
+/** Signed area (shoelace) and perimeter of rings, mm, y up: CCW positive, CW (holes) negative. */
 import type { Polygon, PolygonSet, Ring } from '../types.js';
 
-/** Signed area in mm² of an implicitly closed ring: > 0 counter-clockwise, < 0 clockwise. */
 export function ringArea(ring: Ring): number {
   const n = ring.length;
   if (n < 3) return 0;
-  // shoelace, with coordinates taken relative to the first vertex to limit cancellation far from the origin
+  // relative to the first vertex, against cancellation far from the origin
   const [x0, y0] = ring[0];
   let s = 0;
   let px = ring[1][0] - x0;
@@ -24,11 +19,7 @@ export function ringArea(ring: Ring): number {
   return 0.5 * s;
 }
 
-/**
- * Signed area (mm², shoelace) of one flat ring — vertices `from` … `to − 1` of interleaved x, y in `xy` (the
- * smoothing stage's form): positive when counter-clockwise. Summed about the origin, unlike ringArea, so the
- * smoothing stage's areas stay what they were measured as.
- */
+/** Signed area (mm²) of vertices `from` … `to − 1` of flat `xy`; summed about the origin, as the smoothing stage measured it. */
 export function flatRingArea(xy: Float64Array, from = 0, to = xy.length >> 1): number {
   let a = 0;
   if (to - from < 3) return 0;
@@ -41,7 +32,6 @@ export function flatRingArea(xy: Float64Array, from = 0, to = xy.length >> 1): n
   return a / 2;
 }
 
-/** Length in mm of an implicitly closed ring, closing edge included. */
 export function ringPerimeter(ring: Ring): number {
   const n = ring.length;
   if (n < 2) return 0;
@@ -56,21 +46,18 @@ export function ringPerimeter(ring: Ring): number {
   return s;
 }
 
-/** Net area in mm² of a polygon: its outer ring minus its holes (assuming the documented orientations). */
 export function polygonArea(p: Polygon): number {
   let a = ringArea(p.outer);
   for (const h of p.holes) a += ringArea(h);
   return a;
 }
 
-/** Net area in mm² of every polygon of a set. */
 export function polygonSetArea(set: PolygonSet): number {
   let a = 0;
   for (const p of set.polygons) a += polygonArea(p);
   return a;
 }
 
-/** Total boundary length in mm (outer rings and holes) of a set. */
 export function polygonSetPerimeter(set: PolygonSet): number {
   let s = 0;
   for (const p of set.polygons) {

@@ -1,40 +1,26 @@
-/**
- * A ring as a file holds it: every coordinate rounded to the written decimals in the output unit, and no
- * segment shorter than a minimum length, so that no written segment is zero-length or below a micrometre
- * (DESIGN §8). Coordinates: the model's mm (y up) divided by `div` (1 for mm, 25.4 for inches).
- */
+/** A ring as a file holds it: rounded to the written decimals in the output unit, no segment below a minimum (DESIGN §8). */
 import type { Ring } from '../types.js';
 
-/**
- * The shortest segment written, in mm: 1 µm. A segment shorter than that carries no shape a cutting or milling
- * machine can follow (their positioning resolution is of the order of 1–10 µm: common practice, no source), is
- * a thousand rounding steps of the 6-decimal DXF in mm (so rounding can never make it zero-length), and is what
- * makes a CAD program's face-building slow on a repaired outline full of booleans' slivers.
- */
+/** Shortest segment written, mm (reasons: docs/notes/geom.md). */
 export const MIN_SEGMENT_MM = 0.001;
 
-/** A cleaned ring in output units: n ≥ 3 points (flat x, y) and, when arcs are written, one bulge per edge. */
+/** In output units: flat x, y (n ≥ 3) and, with arcs, one bulge per edge i → i + 1. */
 export interface CleanRing {
   readonly xy: Float64Array;
-  /** bulge[i] belongs to the edge from point i to point i + 1 (mod n); null when every edge is straight. */
   readonly bulge: Float64Array | null;
 }
 
 const SCALES = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6] as const;
 
-/** Rounds half away from zero to `scale` steps, as src/write/number.ts formats numbers. */
+/** Half away from zero, as src/write/number.ts formats. */
 function roundTo(v: number, scale: number): number {
   const k = Math.round(Math.abs(v) * scale);
   return (v < 0 ? -k : k) / scale;
 }
 
 /**
- * Cleans an implicitly closed ring (mm, y up; a repeated closing point is allowed): divides by `div`, rounds to
- * `decimals` (0…6), then walks the ring keeping a point only when it lies at least `minSegment` (output units)
- * from the last kept one, and finally drops kept points at the end that lie that close to the first. Measured on
- * the rounded values, so every written segment is at least `minSegment` long. A dropped point's edge bulge is
- * lost, the next edge's bulge moves to the kept start point (its arc shifts by under `minSegment`).
- * Returns null when fewer than 3 points remain (the ring encloses no area worth writing). Pure.
+ * Divides the ring (mm) by `div`, rounds to `decimals`, drops points within `minSegment` (output units) of the
+ * last kept one; a dropped point's bulge passes on. Null when fewer than 3 points remain.
  */
 export function cleanRing(
   ring: Ring,
@@ -59,7 +45,6 @@ export function cleanRing(
       const dx = x - xs[m - 1];
       const dy = y - ys[m - 1];
       if (dx * dx + dy * dy < sq || (dx === 0 && dy === 0)) {
-        // the edge from the kept point now ends where this point's edge ends: it takes that edge's bulge
         if (bs) bs[m - 1] = bulges![i];
         continue;
       }
@@ -74,7 +59,6 @@ export function cleanRing(
     const dy = ys[m - 1] - ys[0];
     if (!(dx * dx + dy * dy < sq || (dx === 0 && dy === 0))) break;
     m--;
-    // the closing edge now starts at the previous kept point and takes the dropped point's closing bulge
     if (bs && m > 0) bs[m - 1] = bs[m];
   }
   if (m < 3) return null;

@@ -1,23 +1,7 @@
 /**
- * Exact polygon booleans and offsets in mm: the one wrapper around js-angusj-clipper (a WebAssembly build of
- * Angus Johnson's Clipper 6, which implements Vatti's clipping algorithm — B. R. Vatti, "A generic solution to
- * polygon clipping", Communications of the ACM 35(7):56–63, 1992, doi:10.1145/129902.129906 — and offsets by
- * Minkowski sums with a disc, square or miter joins).
- *
- * Clipper works on integers. Every call scales its coordinates by a power-of-two quantum q (mm), chosen from the
- * largest |coordinate| so that scaled values stay below 2^30 (Clipper's fast 64-bit range), and rounds to the
- * nearest integer: results are exact multiples of q, q ≤ max|x| · 2^-29 (for a 250 mm part, q ≈ 2.4e-7 mm).
- * Because q is a power of two, binary-exact coordinates (cell edges of cells such as 0.5, 1, 2 mm) map exactly.
- *
- * Frame: mm, y up. Input rings may have either orientation; they are combined with the non-zero fill rule, so
- * the usual outer-CCW / hole-CW polygons mean what they say. Output: outer rings counter-clockwise, holes
- * clockwise, each hole under its outer ring, material inside a hole as a separate polygon (DESIGN §3), no
- * repeated closing vertex.
- *
- * The WASM module is loaded on demand, once, by `loadBooleanEngine()`; callers await src/pipeline.ts
- * `prepareBuild(settings)`, which loads it exactly when the settings need booleans (passive regions, --mirror,
- * --repair) — about 35 ms of start-up the other runs do not pay. A call before it is loaded throws a RhoformError
- * that says so.
+ * Exact polygon booleans and offsets in mm: the one wrapper of js-angusj-clipper (Clipper 6; B. R. Vatti, "A
+ * generic solution to polygon clipping", CACM 35(7):56–63, 1992, doi:10.1145/129902.129906). Power-of-two
+ * quantum and orientation rules: docs/notes/geom.md. Output: outer rings CCW, holes CW (DESIGN §3).
  */
 import * as clipperLib from 'js-angusj-clipper';
 import { RhoformError } from '../errors.js';
@@ -26,7 +10,7 @@ import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 let loaded: clipperLib.ClipperLibWrapper | null = null;
 let loading: Promise<void> | null = null;
 
-/** Loads the boolean engine (WebAssembly) once; later calls return at once. Safe to call concurrently. */
+/** Loads the WebAssembly engine once (src/pipeline.ts `prepareBuild`); safe to call concurrently. */
 export function loadBooleanEngine(): Promise<void> {
   loading ??= clipperLib.loadNativeClipperLibInstanceAsync(clipperLib.NativeClipperLibRequestedFormat.WasmWithAsmJsFallback).then((l) => {
     loaded = l;
@@ -44,7 +28,7 @@ function engine(): clipperLib.ClipperLibWrapper {
   return loaded;
 }
 
-/** Scaled coordinates stay below this (Clipper's 'loRange', 2^30 − 1, where it needs no 128-bit products). */
+/** Clipper's 'loRange' (2^30 − 1): no 128-bit products below it. */
 const RANGE = 0x3fffffff;
 
 type IntPath = { x: number; y: number }[];
@@ -64,7 +48,7 @@ const JOIN: Record<JoinKind, clipperLib.JoinType> = {
   square: clipperLib.JoinType.Square,
 };
 
-/** The largest |coordinate| over some groups of rings or polylines (mm); 0 when there are none. */
+/** Largest |coordinate|, mm; 0 for none. */
 export function extentOf(groups: readonly (readonly (readonly Point[])[])[]): number {
   let m = 0;
   for (const rings of groups) {
@@ -80,10 +64,7 @@ export function extentOf(groups: readonly (readonly (readonly Point[])[])[]): nu
   return m;
 }
 
-/**
- * The power-of-two quantum (mm) for coordinates up to `extent` mm (plus `margin` mm of growth from an offset):
- * the smallest 2^k with (extent + margin) / 2^k ≤ 2^29, so that sums and offsets stay within Clipper's fast range.
- */
+/** The smallest 2^k mm with (extent + margin) / 2^k ≤ 2^29. */
 export function quantumFor(extent: number, margin = 0): number {
   const m = Math.max(extent + Math.abs(margin), 1e-9);
   if (!Number.isFinite(m)) throw new RhoformError('E_INTERNAL', `polygon coordinates are not finite (${m})`);
@@ -103,8 +84,7 @@ function toInt(rings: readonly (readonly Point[])[], q: number, dropFlat = false
       }
       path[k] = { x, y };
     }
-    // dropFlat (booleans): a ring thinner than the quantum rounds to no area; Clipper refuses such a path
-    // ("invalid paths"), and at this resolution it holds no material anyway.
+    // a ring thinner than the quantum holds no material, and Clipper refuses it
     let twiceArea = 0;
     for (let k = 0, m = path.length - 1; k < path.length; m = k++) twiceArea += path[m].x * path[k].y - path[k].x * path[m].y;
     if (twiceArea !== 0 || !dropFlat) out.push(path);
@@ -118,7 +98,6 @@ function ringFromInt(path: readonly { x: number; y: number }[], q: number): Poin
   return ring;
 }
 
-/** A Clipper PolyTree as our PolygonSet: outer nodes become polygons, their hole children their holes. */
 function setFromTree(tree: clipperLib.PolyTree, q: number): PolygonSet {
   const polygons: Polygon[] = [];
   const visitOuter = (node: clipperLib.PolyNode): void => {
@@ -134,7 +113,7 @@ function setFromTree(tree: clipperLib.PolyTree, q: number): PolygonSet {
   return { polygons };
 }
 
-/** Run a Clipper call, turning its bare numeric or empty-message throws into a RhoformError. */
+/** Turns Clipper's bare numeric or empty-message throws into a RhoformError. */
 function guarded<T>(what: string, f: () => T): T {
   try {
     return f();
@@ -145,7 +124,7 @@ function guarded<T>(what: string, f: () => T): T {
   }
 }
 
-/** All rings of a polygon set, outer rings and holes (orientation kept, so non-zero fill reproduces the set). */
+/** Outer rings and holes, orientation kept (non-zero fill reproduces the set). */
 export function ringsOf(set: PolygonSet | readonly Polygon[]): Ring[] {
   const polys = 'polygons' in set ? set.polygons : set;
   const out: Ring[] = [];
@@ -156,10 +135,7 @@ export function ringsOf(set: PolygonSet | readonly Polygon[]): Ring[] {
   return out;
 }
 
-/**
- * A boolean operation of two ring sets (non-zero fill each; `fill: 'positive'` for the subject): union, intersection, difference (subject minus
- * clip) or xor. `quantum` (mm) overrides the automatic one (pass the same to several calls that must agree).
- */
+/** `fill: 'positive'` for the subject, else non-zero; pass one `quantum` (mm) to calls that must agree. */
 export function booleanOp(
   op: BooleanOp,
   subject: readonly Ring[],
@@ -171,7 +147,6 @@ export function booleanOp(
   let c = toInt(clip, q, true);
   let clipType = op;
   if (s.length === 0) {
-    // Nothing minus or times anything is nothing; nothing plus (or xor) the clip is the clip alone.
     if (op === 'intersection' || op === 'difference' || c.length === 0) return { polygons: [] };
     [s, c, clipType] = [c, [], 'union'];
   }
@@ -180,8 +155,7 @@ export function booleanOp(
       clipType: CLIP[clipType],
       subjectInputs: [{ data: s, closed: true }],
       clipInputs: c.length ? [{ data: c }] : [],
-      // positive: counter-clockwise outers (+1) and clockwise holes (−1) reproduce the set even where a hole
-      // strays past its outer ring (the stray part has winding −1 and stays void)
+      // positive fill: a hole straying past its outer ring (winding −1) stays void
       subjectFillType: opts.fill === 'positive' ? clipperLib.PolyFillType.Positive : clipperLib.PolyFillType.NonZero,
       clipFillType: clipperLib.PolyFillType.NonZero,
     });
@@ -189,15 +163,11 @@ export function booleanOp(
   });
 }
 
-/** The union of ring sets (non-zero fill): overlapping and touching material merges. */
 export function unionRings(rings: readonly Ring[], opts: { quantum?: number } = {}): PolygonSet {
   return booleanOp('union', rings, [], opts);
 }
 
-/**
- * Offset (Minkowski sum with a disc of radius `delta` mm for round joins; negative = inward) of the region
- * the closed rings bound. `arcTolerance` (mm) is the largest distance of a polygonised arc from the true arc.
- */
+/** Offset by `delta` mm (negative = inward); arcs within `arcTolerance` mm. */
 export function offsetRings(
   rings: readonly Ring[],
   delta: number,
@@ -206,13 +176,10 @@ export function offsetRings(
   return offsetPaths(rings, delta, clipperLib.EndType.ClosedPolygon, opts);
 }
 
-/**
- * The region within `radius` mm of open polylines (each a run of points; a single point gives a disc):
- * round joins and round ends — a union of capsules. `arcTolerance` as in offsetRings.
- */
+/** The region within `radius` mm of open polylines (a lone point gives a disc): a union of capsules. */
 export function bufferPolylines(lines: readonly (readonly Point[])[], radius: number, opts: { arcTolerance: number; quantum?: number }): PolygonSet {
   if (!(radius > 0)) return { polygons: [] };
-  // Clipper drops 1-point paths: give a lone point a second, coincident-in-mm but distinct-in-integers vertex.
+  // Clipper drops 1-point paths: a second vertex one quantum away
   const q = opts.quantum ?? quantumFor(extentOf([lines]), radius);
   const padded = lines.map((l) => (l.length === 1 ? [l[0], [l[0][0] + q, l[0][1]] as Point] : l));
   return offsetPaths(padded, radius, clipperLib.EndType.OpenRound, { ...opts, join: 'round', quantum: q });

@@ -1,18 +1,6 @@
 /**
- * The part as a solid: the final outline extruded along z from 0 to the thickness t (mm), as a closed
- * triangle mesh — what a printer's slicer takes (`--formats stl|3mf`, DESIGN §14).
- *
- * - Rings: true circles and arcs are polygonised within `tolerance / 4` (a hole circle circumscribed, so its
- *   void stays void; an outer circle and arcs inscribed); rings are cleaned like the DXF's, with a shortest edge
- *   that also survives single-precision coordinates (STL stores float32); vertices in line with their
- *   neighbours are dropped, so no face triangle can be degenerate.
- * - Faces: each polygon (outer ring and holes) is triangulated by earcut (ear clipping with hole bridges;
- *   earcut 3.2.4, ISC, github.com/mapbox/earcut), refined by its Lawson flips toward the constrained Delaunay
- *   triangulation (fewer slivers); the top face (z = t) counter-clockwise seen from +z, the bottom reversed.
- * - Walls: two triangles per ring edge, wound so their normals point out of the material (outer rings are
- *   counter-clockwise and holes clockwise, so the right-hand side of every edge is outside).
- * Every edge of the mesh is then shared by exactly two triangles running it in opposite directions (closed,
- * consistently outward), and the volume is the face area × t. Frame: mm, y up, z up; the part sits on z = 0.
+ * The part as a closed triangle mesh extruded along z from 0 to the thickness (mm), for STL/3MF (DESIGN §14);
+ * faces by earcut 3.2.4 (ISC) with its Lawson flips. Mesh rules: docs/notes/geom.md. mm, y up, z up.
  */
 import earcut, { refine } from 'earcut';
 import { bulgeCentre, bulgeAngle, bulgeRadius } from './bulge.js';
@@ -29,17 +17,17 @@ export interface SolidInput {
   readonly arcs?: RingBulges;
   /** mm, > 0. */
   readonly thickness: number;
-  /** mm: the outline tolerance; circles and arcs are polygonised within a quarter of it. */
+  /** mm; circles and arcs are polygonised within a quarter of it. */
   readonly tolerance: number;
 }
 
-/** A triangle mesh: vertex coordinates (x, y, z per vertex, mm) and triangles (three vertex indices each). */
+/** Vertices (x, y, z, mm) and triangles (three vertex indices each). */
 export interface Mesh {
   readonly vertices: Float64Array;
   readonly triangles: Uint32Array;
 }
 
-/** Points of an arc of bulge b from a to b (a excluded, end excluded), inscribed within `tol` mm. */
+/** Points of an arc (ends excluded), inscribed within `tol` mm. */
 function arcPoints(ax: number, ay: number, bx: number, by: number, b: number, tol: number, out: Point[]): void {
   const c = Math.hypot(bx - ax, by - ay);
   const r = bulgeRadius(c, b);
@@ -55,7 +43,6 @@ function arcPoints(ax: number, ay: number, bx: number, by: number, b: number, to
   }
 }
 
-/** Drops vertices in line with their neighbours (twice the triangle area below 1e-9 × the span²); typed arrays. */
 function dropCollinear(xy: Float64Array): Float64Array {
   let cur = xy;
   for (let pass = 0; pass < 4; pass++) {
@@ -83,7 +70,6 @@ function dropCollinear(xy: Float64Array): Float64Array {
   return cur;
 }
 
-/** One ring as the solid uses it (flat xy, mm), or null when nothing of area is left. */
 function solidRing(ring: Ring, k: number, circle: RingCircle | undefined, bulges: readonly number[] | null | undefined, tol: number, minSeg: number): Float64Array | null {
   let pts: Ring = ring;
   if (circle) {
@@ -106,17 +92,14 @@ function solidRing(ring: Ring, k: number, circle: RingCircle | undefined, bulges
   return xy.length >= 6 ? xy : null;
 }
 
-/**
- * Extrudes the part (see the header). Throws RhoformError E_INTERNAL for a thickness that is not > 0 (the CLI
- * asks for `--thickness` first). Pure.
- */
+/** Throws RhoformError E_INTERNAL for a thickness that is not > 0. */
 export function extrude(input: SolidInput): Mesh {
   const t = input.thickness;
   if (!(t > 0 && Number.isFinite(t))) throw new RhoformError('E_INTERNAL', `expected a thickness > 0 mm, found ${String(t)}`);
   const tol = input.tolerance > 0 ? input.tolerance / 4 : 0.01;
   let maxAbs = 1;
   for (const p of input.polygons.polygons) for (const [x, y] of p.outer) maxAbs = Math.max(maxAbs, Math.abs(x), Math.abs(y));
-  // float32 keeps 24 bits: an edge must span several of its steps at the largest coordinate to stay an edge
+  // float32 keeps 24 bits: an edge must span several of its steps to stay an edge
   const minSeg = Math.max(MIN_SEGMENT_MM, 16 * 2 ** (Math.floor(Math.log2(maxAbs)) - 23));
   const circles = new Map((input.ringCircles ?? []).map((c) => [`${c.polygon}:${c.ring}`, c]));
   const verts: number[] = [];
@@ -149,7 +132,6 @@ export function extrude(input: SolidInput): Mesh {
       tris.push(base + n + a, base + n + b, base + n + c); // top, counter-clockwise from +z
       tris.push(base + a, base + c, base + b); // bottom, reversed
     }
-    // walls: ring edge a → b; the outside is on its right
     let start = 0;
     for (const r of rings) {
       const m = r.length / 2;

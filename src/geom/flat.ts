@@ -1,11 +1,7 @@
-/**
- * From nested polygons to flat rings ({@link FlatRings}): each outer ring followed by its holes, coordinates
- * copied as they are (mm, y up; orientation kept; implicitly closed, no repeated end vertex expected).
- */
+/** Nested polygons to flat rings: each outer ring then its holes, coordinates as they are (mm, y up). */
 import type { PolygonSet } from '../types.js';
 import type { FlatRings } from './segments.js';
 
-/** Packs every ring of the set (outer, then its holes, polygon by polygon) into one typed array. O(vertices). */
 export function flattenSet(set: PolygonSet): FlatRings {
   let rings = 0, vertices = 0;
   for (const p of set.polygons) {

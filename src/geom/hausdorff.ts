@@ -1,13 +1,6 @@
-/**
- * Located directed Hausdorff distance between two sets of closed polylines: how far the rings A stray from
- * the rings B, where, and every stretch of A that is farther than a given distance.
- *
- * Lengths in mm, y up; rings flat ({@link FlatRings}), implicitly closed, any orientation. Distances are to
- * the nearest point of any segment of B (all rings), found through a uniform grid ({@link SegmentGrid}).
- */
+/** Located directed Hausdorff distance between flat closed rings (mm, y up); method: docs/notes/geom.md. */
 import { type FlatRings, SegmentGrid, sqSegDist } from './segments.js';
 
-/** A point of A (mm) and its distance to B (mm). */
 export interface DeviationPlace {
   readonly x: number;
   readonly y: number;
@@ -15,41 +8,17 @@ export interface DeviationPlace {
 }
 
 export interface LocatedDeviation {
-  /**
-   * Largest sampled distance (mm) from A to B: a lower bound of the directed Hausdorff distance h(A, B), and
-   * h(A, B) ≤ max + step/2. 0 when A is empty; Infinity when A has points and B has none.
-   */
+  /** Largest sampled distance, mm: max ≤ h(A, B) ≤ upper ≤ max + step/2; Infinity when B is empty. */
   readonly max: number;
-  /**
-   * A certified upper bound of h(A, B) (mm): the largest bound of every piece the search left unsplit, so
-   * max ≤ h(A, B) ≤ upper ≤ max + step/2.
-   */
   readonly upper: number;
-  /** Where `max` was found; null when A is empty. */
   readonly at: DeviationPlace | null;
-  /**
-   * One entry per run of A farther than `above` from B (a maximal stretch of consecutive samples along a ring),
-   * at the run's farthest sample; in ring order.
-   */
+  /** One per stretch of A farther than `above`, at its farthest sample, in ring order. */
   readonly places: readonly DeviationPlace[];
-  /** The sampling step used (mm). */
+  /** mm. */
   readonly step: number;
 }
 
-/**
- * Directed Hausdorff distance h(A, B) = max over points a of A of min over points b of B of |a − b|, located.
- *
- * Every vertex of A is measured exactly. Each segment of A is then refined by branch and bound on the distance
- * function d, which is 1-Lipschitz along the segment: a piece with end values d0, d1 and length L cannot exceed
- * (d0 + d1 + L)/2, nor the larger end distance to the B segment nearest either end (the distance to one segment
- * is convex along a line). A piece is halved while that bound exceeds min(largest value so far, `above`) and it
- * is longer than `step`, so both the maximum and every stretch above `above` are found to within step/2; the
- * largest bound of the pieces left unsplit is returned as a certified upper bound.
- * Nearest segments come from a uniform grid over B searched outward ring by ring, warm-started from the
- * previous sample's nearest segment. Cost about O((|A| + |B|) · k) with k the cells searched per query.
- *
- * `step` (mm) > 0; `above` (mm) is the distance beyond which stretches are reported (Infinity: none).
- */
+/** h(A, B) by branch and bound along A's segments, to within step/2 (`step`, `above` in mm). */
 export function locatedDeviation(a: FlatRings, b: FlatRings, step: number, above: number): LocatedDeviation {
   if (!(step > 0)) throw new RangeError(`locatedDeviation: step must be > 0 mm, found ${step}`);
   const na = a.start[a.start.length - 1];
@@ -62,7 +31,6 @@ export function locatedDeviation(a: FlatRings, b: FlatRings, step: number, above
   const { xy, start } = a;
   let worst = -1, wx = 0, wy = 0, upper = 0;
   const places: DeviationPlace[] = [];
-  // distances of the vertices of A and the nearest B segment of each
   const dv = new Float64Array(na);
   const sv = new Int32Array(na);
   for (let i = 0; i < na; i++) {
@@ -80,7 +48,7 @@ export function locatedDeviation(a: FlatRings, b: FlatRings, step: number, above
   for (let r = 0; r + 1 < start.length; r++) {
     const s0 = start[r], s1 = start[r + 1];
     if (s1 <= s0) continue;
-    // run tracking along the ring; a run open at both ends of the ring is one run (rings are closed)
+    // a run open at both ends of a closed ring is one run
     let runD = -1, runX = 0, runY = 0, firstRun = -1;
     let openedAtStart = false;
     const sample = (x: number, y: number, d: number, isFirst: boolean): void => {
@@ -131,7 +99,6 @@ export function locatedDeviation(a: FlatRings, b: FlatRings, step: number, above
       }
     }
     if (runD >= 0) {
-      // still open at the end of the ring: it continues into the run the ring started with, if any
       if (openedAtStart && firstRun >= 0) {
         const f = places[firstRun];
         if (runD > f.distance) places[firstRun] = { x: runX, y: runY, distance: runD };
@@ -143,7 +110,7 @@ export function locatedDeviation(a: FlatRings, b: FlatRings, step: number, above
   return { max: worst, upper: Math.max(upper, worst), at: { x: wx, y: wy, distance: worst }, places, step };
 }
 
-/** A uniform grid over the segments of the rings, cells about twice the mean segment length. */
+/** Cells about twice the mean segment length. */
 function segmentGrid(rings: FlatRings): SegmentGrid {
   const { xy, start } = rings;
   const n = start[start.length - 1];
@@ -160,25 +127,22 @@ function segmentGrid(rings: FlatRings): SegmentGrid {
   return new SegmentGrid(x0, y0, x1, y1, Math.max((2 * len) / n, 1e-9));
 }
 
-/** Nearest segment of a {@link SegmentGrid}, searched outward from the query's cell. */
 class Nearest {
-  /** The nearest segment of the last query; also the warm start of the next one. */
+  /** Nearest segment of the last query, the warm start of the next. */
   seg = 0;
   constructor(private readonly g: SegmentGrid) {}
 
-  /** Distance (mm) from a point to segment s. */
   to(s: number, px: number, py: number): number {
     const g = this.g;
     return Math.sqrt(sqSegDist(px, py, g.x0[s], g.y0[s], g.x1[s], g.y1[s]));
   }
 
-  /** Distance (mm) from a point to the nearest segment; sets `seg`. */
   dist(px: number, py: number): number {
     const g = this.g, cs = g.cs;
     let bestSq = sqSegDist(px, py, g.x0[this.seg], g.y0[this.seg], g.x1[this.seg], g.y1[this.seg]);
     let best = Math.sqrt(bestSq);
     const c0 = Math.floor((px - g.minX) / cs), r0 = Math.floor((py - g.minY) / cs);
-    // rings of cells at Chebyshev distance k from the query's cell lie at least (k − 1)·cs away
+    // cells at Chebyshev distance k lie at least (k − 1)·cs away
     const kMax = Math.max(g.cols, g.rows) + Math.abs(c0) + Math.abs(r0) + 1;
     for (let k = 0; k <= kMax && (k - 1) * cs <= best; k++) {
       const rLo = Math.max(0, r0 - k), rHi = Math.min(g.rows - 1, r0 + k);

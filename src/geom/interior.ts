@@ -1,22 +1,9 @@
-/**
- * A point strictly inside a polygon with holes, for placing a finding on a piece or a hole.
- *
- * Coordinates in mm, y up; rings implicitly closed, either orientation (the even–odd rule decides what is
- * inside, so an outer ring with its holes inside it gives the material between them).
- */
+/** A point strictly inside a polygon with holes, for placing a finding. mm, y up; even–odd rule. */
 import type { Point, Ring } from '../types.js';
 import { ringArea } from './area.js';
 import { ringContains } from './contains.js';
 
-/**
- * A point strictly inside the region bounded by `outer` and `holes` (even–odd rule).
- *
- * The area centroid is used when it is strictly inside (convex and near-convex shapes get their centre);
- * otherwise horizontal scanlines through the centroid and at 1/4, 1/2 and 3/4 of the bounding-box height are
- * cut with every edge, and the midpoint of the widest inside interval is returned. Crossings use the half-open
- * rule on y of the crossing-number test, so a scanline through a vertex is counted once. O(k · n) for n
- * vertices. A ring of zero area has no inside: its first vertex is returned.
- */
+/** The centroid when strictly inside, else the middle of the widest inside interval on a few scanlines; O(n). */
 export function interiorPoint(outer: Ring, holes: readonly Ring[] = []): Point {
   const n = outer.length;
   if (n === 0) return [NaN, NaN];
@@ -49,13 +36,12 @@ export function interiorPoint(outer: Ring, holes: readonly Ring[] = []): Point {
   return best;
 }
 
-/** Area centroid (mm) of the region outer minus holes; null when its area is 0 or not finite. */
+/** Area centroid (mm) of outer minus holes; null when the area is 0 or not finite. */
 function centroid(outer: Ring, holes: readonly Ring[]): Point | null {
   const [x0, y0] = outer[0];
   let a = 0, sx = 0, sy = 0;
   const add = (ring: Ring, sign: number): void => {
     const n = ring.length;
-    // signed sums relative to (x0, y0) against cancellation; each ring counted with the orientation wanted
     const s = Math.sign(ringArea(ring)) * sign;
     if (s === 0) return;
     for (let i = 0; i < n; i++) {
@@ -80,7 +66,7 @@ function strictlyInside(outer: Ring, holes: readonly Ring[], p: Point): boolean 
   return true;
 }
 
-/** Appends the x of every crossing of the horizontal line at y with the ring's edges (half-open on y). */
+/** Half-open on y, as ringContains. */
 function crossings(ring: Ring, y: number, out: number[]): void {
   const n = ring.length;
   for (let i = 0, j = n - 1; i < n; j = i++) {

@@ -1,14 +1,7 @@
-/**
- * Distance queries to a set of closed polylines within a cap: "how far is this point from the raw contour, if
- * it is closer than d?" through a uniform grid of segments (src/geom/segments.ts). mm, y up.
- */
+/** Capped distance queries to closed polylines through a segment grid. mm, y up. */
 import { type FlatRings, SegmentGrid, sqSegDist } from './segments.js';
 
-/**
- * Returns a function giving the distance (mm) from (x, y) to the nearest segment of `rings`, or Infinity beyond
- * `cap`. With `enough` > 0 the search stops at the first segment within `enough` mm and returns that segment's
- * distance: an upper bound of the nearest distance, and exact whenever it is over `enough`.
- */
+/** Distance (mm) to the nearest segment, Infinity beyond `cap`; with `enough` > 0, the first segment within it (an upper bound). */
 export function nearDistance(rings: FlatRings, cap: number, enough = 0): (x: number, y: number) => number {
   const { xy, start } = rings;
   const n = start[start.length - 1];
@@ -32,7 +25,6 @@ export function nearDistance(rings: FlatRings, cap: number, enough = 0): (x: num
     const cc = grid.col(x), rc = grid.row(y);
     let best = cap2;
     let found = false;
-    // the point's own cell first, then the others
     for (let pass = 0; pass < 2; pass++) {
       for (let r = pass === 0 ? rc : r0; r <= (pass === 0 ? rc : r1); r++) {
         for (let c = pass === 0 ? cc : c0; c <= (pass === 0 ? cc : c1); c++) {

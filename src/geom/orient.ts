@@ -1,24 +1,17 @@
-/**
- * Ring orientation in the y-up frame: counter-clockwise = positive signed area (outer rings),
- * clockwise = negative (holes), as in the right-hand rule of RFC 7946.
- */
+/** Ring orientation, y up: CCW = positive area (outer rings), CW = negative (holes), as RFC 7946. */
 import type { Ring } from '../types.js';
 import { ringArea } from './area.js';
 
-/** True when the ring turns counter-clockwise (signed area > 0). Degenerate rings (area 0) are neither. */
+/** Area-0 rings are neither. */
 export function isCounterClockwise(ring: Ring): boolean {
   return ringArea(ring) > 0;
 }
 
-/** True when the ring turns clockwise (signed area < 0). */
 export function isClockwise(ring: Ring): boolean {
   return ringArea(ring) < 0;
 }
 
-/**
- * The ring turning the requested way: the input itself when it already does, otherwise a reversed copy
- * (the first vertex stays first). Degenerate rings (area 0) are returned unchanged. Never mutates the input.
- */
+/** The ring itself, or a reversed copy with the same first vertex; area-0 rings unchanged. */
 export function orientRing(ring: Ring, want: 'ccw' | 'cw'): Ring {
   const a = ringArea(ring);
   if (a === 0 || (a > 0) === (want === 'ccw')) return ring;

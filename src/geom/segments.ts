@@ -1,20 +1,13 @@
-/**
- * Flat ring storage, segment predicates and a uniform grid of segments.
- *
- * All coordinates are in mm, y up, origin at the lower-left corner of the grid. Rings are implicitly closed:
- * ring r owns vertices start[r] … start[r+1]−1 of `xy` (x at 2·i, y at 2·i+1), and its segments join each
- * vertex to the next, the last one to the first. Orientation is the caller's business (outer CCW, holes CW).
- */
+/** Flat ring storage, segment predicates and a uniform grid of segments. mm, y up; rings implicitly closed. */
 
-/** Rings packed into one typed array. */
 export interface FlatRings {
-  /** Interleaved coordinates, mm: x0, y0, x1, y1, … */
+  /** Interleaved x, y, mm. */
   readonly xy: Float64Array;
   /** Ring r uses vertices start[r] … start[r+1]−1; length = rings + 1. */
   readonly start: Int32Array;
 }
 
-/** Squared distance (mm²) from point (px, py) to the closed segment (ax, ay)–(bx, by). */
+/** mm². */
 export function sqSegDist(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
   let dx = bx - ax;
   let dy = by - ay;
@@ -35,7 +28,7 @@ export function sqSegDist(px: number, py: number, ax: number, ay: number, bx: nu
   return dx * dx + dy * dy;
 }
 
-/** Twice the signed area of triangle a, b, c (positive when counter-clockwise). */
+/** Twice the signed area of triangle a, b, c (> 0 counter-clockwise). */
 export function orient(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): number {
   return (bx - ax) * (cy - ay) - (by - ay) * (cx - ax);
 }
@@ -46,11 +39,7 @@ function onSegment(ax: number, ay: number, bx: number, by: number, px: number, p
   );
 }
 
-/**
- * True when the closed segments p1–p2 and q1–q2 share at least one point (proper crossing, touching at an
- * end point, or collinear overlap). Plain floating-point orientation tests; exact for the axis-aligned and
- * lattice-derived coordinates this tool produces, and conservative (reports touching) at zero.
- */
+/** Whether the closed segments share a point; plain float orientation tests, conservative at zero. */
 export function segmentsIntersect(
   p1x: number, p1y: number, p2x: number, p2y: number,
   q1x: number, q1y: number, q2x: number, q2y: number,
@@ -69,11 +58,7 @@ export function segmentsIntersect(
   return false;
 }
 
-/**
- * Uniform grid over segments (a bucket grid; each segment is listed in every cell its line passes through,
- * conservatively). Built in O(segments + cells) with counting sort into compressed rows.
- * Segment s joins (x0[s], y0[s]) to (x1[s], y1[s]); `cellStart`/`items` list the segments of each cell.
- */
+/** Bucket grid: each segment in every cell its line passes, counting-sorted into rows, O(segments + cells). */
 export class SegmentGrid {
   readonly minX: number;
   readonly minY: number;
@@ -98,7 +83,7 @@ export class SegmentGrid {
     if (n === 0) { minX = minY = 0; maxX = maxY = 1; }
     let cs = cellSize > 0 && Number.isFinite(cellSize) ? cellSize : 1;
     const w = Math.max(maxX - minX, 1e-12), h = Math.max(maxY - minY, 1e-12);
-    // keep the cell count near the segment count so memory stays O(segments)
+    // cell count near the segment count: memory O(segments)
     const maxCells = 4 * n + 1024;
     if ((w / cs + 1) * (h / cs + 1) > maxCells) cs = Math.sqrt((w * h) / maxCells) * 1.05 + 1e-12;
     this.minX = minX; this.minY = minY; this.cs = cs;
@@ -114,19 +99,16 @@ export class SegmentGrid {
     this.items = items;
   }
 
-  /** Column of x (clamped). */
   col(x: number): number {
     const c = Math.floor((x - this.minX) / this.cs);
     return c < 0 ? 0 : c >= this.cols ? this.cols - 1 : c;
   }
 
-  /** Row of y (clamped). */
   row(y: number): number {
     const r = Math.floor((y - this.minY) / this.cs);
     return r < 0 ? 0 : r >= this.rows ? this.rows - 1 : r;
   }
 
-  /** Calls fn(cell, segment) for every cell each segment passes through (column by column). */
   private visit(fn: (cell: number, s: number) => void, n: number): void {
     const { x0, y0, x1, y1, cs, minX } = this;
     const pad = cs * 1e-9;
