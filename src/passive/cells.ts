@@ -1,13 +1,4 @@
-/**
- * Passive regions on the grid (the first of their two steps, right after prepare): every sample whose position
- * lies inside a solid primitive is set to 1, inside a void primitive to 0, so that the threshold and the contours
- * see them. Void wins where both overlap (a bolt hole through a pad).
- *
- * Sample positions (docs/conventions.md): cell grids (`placement: 'cells'`) at cell centres,
- * (ox + (i + ½)·hx, oy + (j + ½)·hy); nodal grids at cell corners, (ox + i·hx, oy + j·hy); mm, y up. "Inside" is
- * closed: a sample exactly on a primitive's boundary counts as inside (for polygons up to the rounding of the
- * crossing abscissa on slanted edges).
- */
+/** Passive regions on the grid, their first step: samples inside a solid primitive set to 1, inside a void to 0; void wins (docs/notes/passive.md). */
 import { offsetRings } from '../geom/clipper.js';
 import type { DensityGrid } from '../types.js';
 import type { PassiveRegions, PassiveShape } from './types.js';
@@ -26,14 +17,14 @@ interface SampleLattice {
   readonly s: number;
 }
 
-/** Index range [lo, hi] (clamped to 0..n−1, one wider than the float estimate) of samples inside [a, b]. */
+/** Sample index range [lo, hi] inside [a, b], clamped, one wider than the float estimate. */
 function span(a: number, b: number, o: number, h: number, s: number, n: number): [number, number] {
   const lo = Math.max(0, Math.ceil((a - o) / h - s) - 1);
   const hi = Math.min(n - 1, Math.floor((b - o) / h - s) + 1);
   return [lo, hi];
 }
 
-/** Calls mark(k) for every sample index k inside `shape` (closed), looping over its bounding box only. */
+/** mark(k) for every sample inside `shape` (closed), over its bounding box only. */
 function forEachInside(shape: PassiveShape, f: SampleLattice, mark: (k: number) => void): void {
   const { nx, ny, ox, oy, hx, hy, s } = f;
   const X = (i: number): number => ox + (i + s) * hx;
@@ -67,10 +58,7 @@ function forEachInside(shape: PassiveShape, f: SampleLattice, mark: (k: number) 
     }
     return;
   }
-  // polygon: scanline. Each row collects the abscissae where the edges cross its height, sorts them and marks the
-  // samples between pairs (even–odd). Two half-open crossing rules, one counting an edge's lower end and one its
-  // upper end, are both applied on rows that pass through a vertex, so horizontal edges and extreme vertices on a
-  // sample row are inside as well (a closed set); elsewhere the rules agree.
+  // polygon: even–odd scanline, both half-open rules on vertex rows so the set is closed (docs/notes/passive.md)
   const pts = shape.points;
   const n = pts.length;
   const xs = new Float64Array(n);
@@ -117,11 +105,7 @@ function forEachInside(shape: PassiveShape, f: SampleLattice, mark: (k: number) 
   }
 }
 
-/**
- * The primitive shrunk by `inset` mm (its points at least `inset` from its boundary): a smaller circle or
- * rectangle, or the inward offset of a polygon (possibly several pieces; src/geom/clipper.ts). Empty when
- * nothing is left.
- */
+/** The primitive shrunk by `inset` mm (a polygon's inward offset may have several pieces); empty when nothing is left. */
 export function insetShape(shape: PassiveShape, inset: number): PassiveShape[] {
   if (!(inset > 0)) return [shape];
   if (shape.kind === 'circle') return shape.r > inset ? [{ ...shape, r: shape.r - inset }] : [];
@@ -134,15 +118,8 @@ export function insetShape(shape: PassiveShape, inset: number): PassiveShape[] {
 }
 
 /**
- * A new grid (the input is never modified) with the passive regions applied: samples inside a solid primitive
- * set to 1, inside a void primitive to 0, void winning over solid. Returns the counts of samples that ended up
- * solid by a passive region and that lie in a void one. Cost O(samples in the primitives' bounding boxes), plus
- * rows × edges for polygons; one byte per sample of scratch.
- *
- * `inset` (mm, default 0): only samples at least this far inside a primitive are set. The pipeline passes about
- * a cell diagonal plus the outline tolerance, so that the contour of the set samples stays inside the primitive
- * and the exact booleans after smoothing (src/passive/exact.ts) alone draw its edge: a void circle in material
- * then comes out as exactly that circle, not the union of the circle and a contoured approximation of it.
+ * A new grid with the passive regions applied, and the counts of samples set solid and lying in a void. Only
+ * samples at least `inset` mm inside are set (the pipeline's choice: docs/notes/passive.md).
  */
 export function applyPassiveToGrid(
   grid: DensityGrid,
@@ -156,8 +133,7 @@ export function applyPassiveToGrid(
   const f: SampleLattice = { nx: grid.nx, ny: grid.ny, ox: grid.origin[0], oy: grid.origin[1], hx, hy, s: grid.placement === 'nodes' ? 0 : 0.5 };
   const role = new Uint8Array(values.length);
   for (const r of regions.regions) if (r.role === 'solid') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = SOLID));
-  // Void wins: a sample anywhere in a void primitive is never set solid, deep or not (with an inset, the
-  // samples near its edge keep their own value rather than the pad's 1).
+  // void wins: a sample anywhere in a void primitive is never set solid
   const BLOCKED = 3;
   if (inset > 0) for (const r of regions.regions) if (r.role === 'void') forEachInside(r.shape, f, (k) => (role[k] = role[k] === SOLID ? BLOCKED : role[k]));
   for (const r of regions.regions) if (r.role === 'void') for (const sh of insetShape(r.shape, inset)) forEachInside(sh, f, (k) => (role[k] = VOID));

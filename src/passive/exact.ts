@@ -1,51 +1,24 @@
 /**
- * Passive regions applied exactly to the smoothed outline (the second of their two steps, after smoothing and
- * before the checks and the repair):
- *
- *   final = ((set ∪ solid primitives) − void primitives) ∩ domain rectangle
- *
- * by polygon booleans (src/geom/clipper.ts: Vatti's algorithm, B. R. Vatti, "A generic solution to polygon
- * clipping", Communications of the ACM 35(7):56–63, 1992, doi:10.1145/129902.129906), all three calls on one
- * power-of-two quantum so their results agree to the last bit.
- *
- * - Void wins over solid: a void primitive inside a solid one (a bolt hole in a boss) stays a hole.
- * - Primitives reaching outside the domain are clipped to it; the domain edge stays a hard edge.
- * - Circles are polygonised as circumscribed regular polygons (edges touching the circle, vertices within
- *   `tolerance / 16` mm outside it, passiveCircleTolerance), so the polygon contains the disc: a void circle is void exactly and a solid
- *   circle solid exactly, whatever else the booleans meet there (a repair that grew material around a
- *   pass-through never leaves a sliver inside it). A circle that survives whole as a ring of the result (a bolt
- *   hole surrounded by material) is reported as a RingCircle, so the writers draw the true circle (DXF CIRCLE on
- *   the ring's own layer — `hole` for a hole — and SVG arcs). A circle cut by the outline or the domain edge
- *   (partly outside the material) stays polygonal, its vertices outside the disc.
- *
- * Frame: mm, y up, origin at the lower-left corner of the grid. Output orientation as DESIGN §3: outer rings
- * counter-clockwise, holes clockwise.
+ * Passive regions applied exactly to the smoothed outline, their second step:
+ * final = ((set ∪ solid) − void) ∩ domain, by booleans on one quantum (docs/notes/passive.md). mm, y up.
  */
 import { arcSagitta, circumscribedRadius, circumscribedSegments } from '../geom/circle.js';
 import { booleanOp, extentOf, quantumFor, ringsOf } from '../geom/clipper.js';
 import { RhoformError } from '../errors.js';
-import type { Point, PolygonSet, Ring } from '../types.js';
+import type { Domain, Point, PolygonSet, Ring } from '../types.js';
 import type { RingCircle } from '../geom/circle.js';
 import { shapeRing } from './rings.js';
 import type { PassiveRegions } from './types.js';
 
-/** What applyPassiveExact returns. */
 export interface PassiveExactResult {
-  /** The part with the passive regions applied, inside the domain rectangle. */
   readonly polygons: PolygonSet;
-  /** Rings of `polygons` that are whole passive circles (written on the ring's own layer), at most one per ring. */
+  /** Rings that are whole passive circles, at most one per ring. */
   readonly ringCircles: RingCircle[];
-  /** The solid primitives as counter-clockwise rings (mm, not clipped to the domain), as used in the union. */
+  /** The solid primitives as CCW rings (mm, not clipped to the domain). */
   readonly solidRings: Ring[];
 }
 
-/**
- * How far (mm) the vertices of a passive circle's circumscribed polygon may lie outside the circle: a quarter
- * of the arc sagitta (arcSagitta), tolerance/16. The polygon contains the disc, so a void circle removes that
- * much more than the disc at its vertices; kept this small, the walls around a bolt hole lose at most a few
- * hundredths of a millimetre to it, within the size checks' resolution (the demo's bosses measured 8.17 mm
- * before with the inscribed polygon, 8.05 with a tolerance/4 circumscribed one, a warning at the 8 mm limit).
- */
+/** How far (mm) a passive circle's circumscribed polygon may lie outside it: tolerance/16 (docs/notes/passive.md). */
 export function passiveCircleTolerance(tolerance: number): number {
   return arcSagitta(tolerance) / 4;
 }
@@ -54,31 +27,21 @@ interface CircleRef {
   readonly cx: number;
   readonly cy: number;
   readonly r: number;
-  /** Vertices of its polygon. */
   readonly n: number;
-  /** Radius of those vertices (mm): the circumscribed polygon's, r / cos(π/n). */
+  /** Vertex radius (mm): r / cos(π/n). */
   readonly R: number;
 }
 
-/** True when every vertex of `ring` lies within `eps` mm of the circle. */
 function onCircle(ring: Ring, c: CircleRef, eps: number): boolean {
   for (const [x, y] of ring) if (!(Math.abs(Math.hypot(x - c.cx, y - c.cy) - c.R) <= eps)) return false;
   return true;
 }
 
-/**
- * Apply passive regions exactly to a smoothed polygon set (mm, y up; outer rings CCW, holes CW), within the
- * domain rectangle [minX, minY, maxX, maxY] (mm). `tolerance` (mm, > 0) is the outline tolerance; circles are
- * polygonised as circumscribed polygons within passiveCircleTolerance (tolerance / 16). Never mutates its inputs. With no regions the set is returned as it is.
- *
- * ringCircles: every ring of the result all of whose vertices lie on one passive circle's circumscribed polygon (within 4 quanta +
- * 1e-9·r) and whose vertex count equals that circle's polygon — the circle survived whole. Void circles (bolt
- * holes) are the usual case; a solid circle that survived whole (a free-standing boss) is listed too.
- */
+/** `tolerance` (mm, > 0): the outline's. Inputs unchanged; no regions: the set itself. */
 export function applyPassiveExact(
   set: PolygonSet,
   regions: PassiveRegions,
-  domain: readonly [minX: number, minY: number, maxX: number, maxY: number],
+  domain: Domain,
   tolerance: number,
 ): PassiveExactResult {
   if (!(tolerance > 0)) throw new RhoformError('E_INTERNAL', `passive tolerance must be > 0 mm, found ${tolerance}`);

@@ -1,25 +1,15 @@
-/**
- * The design's fixed parts applied exactly to an outline: mirror symmetry about the `--mirror` planes
- * (src/geom/symmetry.ts), then the passive regions by exact booleans (src/passive/exact.ts) — their second act,
- * which makes a bolt hole a true circle. The passive stage runs it on the smoothed outline and the repair stage
- * again on the repaired one, so the fixed parts always win.
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
- */
+/** The design's fixed parts: symmetry, then the passive regions by exact booleans; run after smoothing and again after repair. mm, y up. */
 import { symmetrize, type MirrorPlane } from '../geom/symmetry.js';
 import type { Domain, PolygonSet } from '../types.js';
 import { applyPassiveExact, type PassiveExactResult } from './exact.js';
 import type { PassiveRegions } from './types.js';
 
-/** The outline after symmetry and passive regions, with what the passive step produced. */
 export interface FixedPartsResult {
   readonly polygons: PolygonSet;
   readonly passive: PassiveExactResult | null;
 }
 
-/**
- * `domain` is the (unfolded) grid's; `tolerance` the outline budget (mm). No planes and no regions: `set` itself.
- */
+/** `domain`: the unfolded grid's; `tolerance`: mm. No planes and no regions: `set` itself. */
 export function applyFixedParts(
   set: PolygonSet,
   planes: readonly MirrorPlane[],

@@ -1,4 +1,3 @@
-/** Passive regions (docs/passive.md): re-exports only. */
 export type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
 export { parsePassive, MAX_COORDINATE, MAX_POLYGON_POINTS } from './parse.js';
 export { passiveRings, shapeRing } from './rings.js';

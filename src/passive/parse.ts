@@ -1,14 +1,6 @@
 /**
- * The passive-region file (docs/passive.md): strict JSON of our own design.
- *
- *   { "rhoformPassive": 1, "units": "mm", "regions": [ { "role": "void", "circle": { "center": [x, y], "radius": r } }, … ] }
- *
- * Each region has a role ("solid" | "void"), exactly one of `circle` / `rect` / `polygon`, and optionally a
- * `name`. Coordinates are mm in the report frame: y up, origin at the lower-left corner of the input grid
- * (docs/conventions.md). Unknown and repeated keys are errors. An empty `regions` list is allowed.
- *
- * Errors: invalid JSON → RhoformError E_PASSIVE_JSON at the line/column of the syntax error; schema errors →
- * E_PASSIVE_FORMAT `<key path>: expected …, found …` at the line/column of the offending key or value.
+ * The passive-region file (docs/passive.md): strict JSON, mm, y up. Errors: E_PASSIVE_JSON at the syntax error,
+ * E_PASSIVE_FORMAT `<key path>: expected …, found …` at the key or value.
  */
 import { RhoformError, show, type Where } from '../errors.js';
 import type { Point } from '../types.js';
@@ -18,14 +10,11 @@ import { elementPath, lineCol, memberPath, type JsonSpot } from '../json/scan.js
 import { absArea, allCollinear, dropRepeats, firstSelfIntersection } from './polygon-check.js';
 import type { PassiveRegion, PassiveRegions, PassiveRole, PassiveShape } from './types.js';
 
-/** Largest number of points of one polygon (the self-intersection test is quadratic in the worst case). */
+/** Points of one polygon at most (the self-intersection test is quadratic in the worst case). */
 export const MAX_POLYGON_POINTS = 10_000;
-/** Largest |coordinate| and radius accepted, mm (1 km: anything beyond is a unit mistake). */
+/** Largest |coordinate| and radius, mm (1 km: beyond is a unit mistake). */
 export const MAX_COORDINATE = 1e6;
-/**
- * Smallest width, height and radius accepted, mm (1 µm: far below any cutting or printing process — common
- * practice, no source). Smaller regions would vanish in the boolean engine's integer grid.
- */
+/** Smallest size and radius, mm (1 µm, common practice, no source): smaller vanishes in the boolean engine's grid. */
 export const MIN_SIZE = 1e-3;
 
 const TOP_KEYS = ['rhoformPassive', 'units', 'regions'] as const;
@@ -45,7 +34,7 @@ class Checker {
     this.spots = spots;
   }
 
-  /** Where the value (or, with `key`, the key) at `path` sits; the nearest enclosing value when it is missing. */
+  /** Where the value (with `key`, the key) at `path` sits, else the nearest enclosing value. */
   where(path: string, key = false): Where {
     let p = path;
     for (;;) {
@@ -87,7 +76,7 @@ class Checker {
     return [this.number(a[0], elementPath(path, 0), 'a number (x, mm)'), this.number(a[1], elementPath(path, 1), 'a number (y, mm)')];
   }
 
-  /** The source text of a number (for values JSON.parse turned into Infinity). */
+  /** The source text of a number (JSON.parse turns overflow into Infinity). */
   private raw(path: string): string | null {
     const spot = this.spots.get(path);
     if (!spot) return null;
@@ -167,10 +156,7 @@ class Checker {
   }
 }
 
-/**
- * Parse a passive-region file from its bytes: UTF-8 (a BOM is allowed), else E_PASSIVE_JSON at the byte
- * offset of the first byte that is not UTF-8. Then as parsePassive.
- */
+/** UTF-8 (BOM allowed), else E_PASSIVE_JSON at the first bad byte; then parsePassive. */
 export function parsePassiveBytes(bytes: Uint8Array, file: string): PassiveRegions {
   let text: string;
   try {
@@ -185,13 +171,7 @@ export function parsePassiveBytes(bytes: Uint8Array, file: string): PassiveRegio
   return parsePassive(text, file);
 }
 
-/** The refusal of arrays or objects nested deeper than the scanner follows. */
-
-/**
- * Parse a passive-region file. `file` names it in messages. Pure: the caller reads the file.
- * Returns regions in mm, y up, origin at the lower-left corner of the input grid, in file order.
- * Throws RhoformError E_PASSIVE_JSON (not JSON) or E_PASSIVE_FORMAT (not the format), with line and column.
- */
+/** Regions in mm, y up, in file order. Pure: the caller reads the file. */
 export function parsePassive(text: string, file: string): PassiveRegions {
   const json = parseStrictJson(text, file, 'E_PASSIVE_JSON', 'E_PASSIVE_FORMAT');
   return new Checker(json.text, file, json.spots).top(json.data);

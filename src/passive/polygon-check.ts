@@ -1,12 +1,9 @@
-/**
- * Validation of a passive polygon: distinct points, non-zero area, no self-intersection. Coordinates in mm,
- * y up; the ring is implicitly closed and may have either orientation.
- */
+/** A passive polygon's validity: distinct points, non-zero area, no self-intersection. mm, y up. */
 import { ringArea } from '../geom/area.js';
 import { orient, segmentsIntersect } from '../geom/segments.js';
 import type { Point } from '../types.js';
 
-/** The points without consecutive repeats (the closing repeat of the first point included), with their indices in the input. */
+/** Without consecutive repeats (the closing one included), with input indices. */
 export function dropRepeats(points: readonly Point[]): { points: Point[]; index: number[] } {
   const out: Point[] = [];
   const index: number[] = [];
@@ -24,10 +21,9 @@ export function dropRepeats(points: readonly Point[]): { points: Point[]; index:
   return { points: out, index };
 }
 
-/** True when every point lies on one line, relative to the size of the point set (area ≤ 1e-12 · span²). */
+/** Collinear relative to the set's size: area ≤ 1e-12 · span². */
 export function allCollinear(points: readonly Point[]): boolean {
   const [x0, y0] = points[0];
-  // the point farthest from the first one fixes the line
   let far = 0;
   let best = -1;
   for (let k = 1; k < points.length; k++) {
@@ -44,16 +40,11 @@ export function allCollinear(points: readonly Point[]): boolean {
   return true;
 }
 
-/**
- * The first pair of edges (edge k joins point k to point k + 1, the last edge closes the ring) that cross, touch or
- * overlap, or null for a simple ring. Adjacent edges may only share their common point: folding back along the
- * same line counts as overlap. Edges are swept in order of their smallest x, so typical rings cost far less than
- * the O(n²) worst case.
- */
+/** The first pair of edges that cross, touch or overlap (folding back counts), or null; swept by smallest x. */
 export function firstSelfIntersection(points: readonly Point[]): [number, number] | null {
   const n = points.length;
   if (n < 3) return null;
-  // adjacent edges k and k+1 meet at point k+1: a spike when they are collinear and turn back
+  // adjacent edges: a spike when collinear and turning back
   for (let k = 0; k < n; k++) {
     const a = points[k];
     const b = points[(k + 1) % n];
@@ -83,7 +74,6 @@ export function firstSelfIntersection(points: readonly Point[]): [number, number
   return null;
 }
 
-/** |signed area| in mm² of the ring (shoelace). */
 export function absArea(points: readonly Point[]): number {
   return Math.abs(ringArea(points));
 }
