@@ -1,14 +1,7 @@
 /**
- * The structural re-check of one design on the grid's own cells (DESIGN §12, docs/structure.md): plane-stress
- * bilinear elements, one per cell, with element modulus
- *   input design (densities ρ):        E·(r + ρᵖ(1 − r))   (modified SIMP; Andreassen et al. 2011)
- *   final geometry (area fractions a): E·(r + a(1 − r))    (ersatz material; Allaire, Jouve & Toader,
- *                                       "Structural optimization using sensitivity analysis and a level-set
- *                                       method", J. Comput. Phys. 194:363–393, 2004, DOI 10.1016/j.jcp.2003.09.032)
- * solved by multigrid-preconditioned CG. Above `maxElements` cells the field is coarsened by the smallest
- * integer factor that fits (area-weighted block means; the factor is reported).
- *
- * Frame: mm, y up; element (i, j) spans [x0 + i·hx, x0 + (i+1)·hx] × [y0 + j·hy, …]; forces N, E MPa.
+ * The structural re-check of one design on the grid's cells (docs/structure.md): bilinear plane-stress elements,
+ * modified SIMP for densities, ersatz material for area fractions (references: docs/notes/fe.md), multigrid-CG.
+ * mm, y up; element (i, j) at [x0 + i·hx, x0 + (i+1)·hx] × [y0 + j·hy, …]; forces N, E MPa.
  */
 import { RhoformError, UsageError } from '../errors.js';
 import { entryLabel, resolveLoadCase, type ResolvedLoadCase } from '../loads/resolve.js';
@@ -21,36 +14,27 @@ import { freeRigidModes } from './rigid.js';
 import { solveElastic, type SolveOptions } from './solve.js';
 import { vonMises } from './stress.js';
 
-/**
- * Default largest number of elements analysed without coarsening. Measured (test/bench/fe.ts,
- * docs/structure.md): 1000 × 500 = 500 000 elements solve well inside 15 s and 1.2 GB on the bench machine.
- */
+/** Elements analysed without coarsening; 1000 × 500 solve well inside 15 s and 1.2 GB (test/bench/fe.ts). */
 export const FE_MAX_ELEMENTS = 500_000;
 
-/** A design on the grid: cell densities, cell area fractions, or the polygons themselves (exact fractions). */
+/** Cell densities, cell area fractions, or the polygons themselves (exact fractions). */
 export type FeDesign =
   | { readonly kind: 'density'; readonly values: Float64Array }
   | { readonly kind: 'coverage'; readonly values: Float64Array }
   | { readonly kind: 'geometry'; readonly polygons: PolygonSet };
 
-/** The analysis grid: cells along x and y, their size (mm) and lower-left corner (mm) — the coverage grid. */
 export type FeGridSpec = CoverageGrid;
 
 export interface FeOptions extends SolveOptions {
-  /** Largest number of elements before coarsening (default FE_MAX_ELEMENTS). */
   maxElements?: number;
-  /** Thickness in mm when the loads file gives none (`--thickness`); a different value from the file's is a usage error. */
+  /** mm, when the loads file gives none (`--thickness`); a different value from the file's is a usage error. */
   thickness?: number;
   /** Elements at least this full count for the peak stress and the largest displacement (default 0.5). */
   solidFraction?: number;
-  /**
-   * Shared by several designs analysed on one grid under one load case (create with `{}`): the load case is
-   * resolved and checked for rigid-body motion once, and the fine stiffness storage is reused.
-   */
+  /** Shared by designs on one grid and load case: resolved once, storage reused. */
   workspace?: FeWorkspace;
 }
 
-/** What consecutive analyses on one grid share (see FeOptions.workspace); filled by `analyse`. */
 export interface FeWorkspace {
   stencil?: Float64Array;
   loadCase?: { readonly key: string; readonly lc: ResolvedLoadCase };
@@ -62,27 +46,24 @@ export interface Located {
   y: number;
 }
 
-/** DESIGN §12 `Analysis`, plus the fields for pictures. */
+/** DESIGN §12 `Analysis`; per-element arrays are indexed ej·ex + ei, nodes n = j·(ex + 1) + i. */
 export interface FeAnalysis {
   /** f·u, N·mm. */
   compliance: number;
-  /** Largest displacement magnitude (mm) over the nodes of elements at least half full, and its node. */
+  /** mm, over the nodes of elements at least half full. */
   maxDisplacement: Located;
-  /** Peak von Mises stress (MPa) at the centre of an element at least half full, or null when none is. */
+  /** MPa, at the centre of an element at least half full; null when none is. */
   peakStress: Located | null;
   solver: SolverStats;
-  /** The grid analysed (after coarsening). */
   elements: [number, number];
   elementSize: [number, number];
-  /** 1 = none; otherwise the integer factor of the coarsening. */
+  /** 1 = none; otherwise the integer coarsening factor. */
   coarsened: number;
-  /** Multigrid levels used. */
   levels: number;
-  /** Material fraction per element (ρ or a), ej·ex + ei. */
   fraction: Float64Array;
-  /** Von Mises stress per element at its centre, MPa (solid-phase stress, every element). */
+  /** MPa, solid-phase stress at each element's centre. */
   vonMises: Float64Array;
-  /** Nodal displacements, mm, [u, v] of node n = j·(ex + 1) + i. */
+  /** mm, [u, v] per node. */
   displacement: Float64Array;
   loadCase: ResolvedLoadCase;
 }
@@ -105,7 +86,7 @@ function thicknessOf(spec: LoadsSpec, opts: FeOptions): number {
   return v;
 }
 
-/** Analyse one design under the load case of `spec`. Throws E_LOADS_CASE for a selector that catches nothing or a load case that leaves the part free to move. */
+/** Throws E_LOADS_CASE for a selector that catches nothing or a load case that leaves the part free to move. */
 export function analyse(grid: FeGridSpec, design: FeDesign, spec: LoadsSpec, opts: FeOptions = {}): FeAnalysis {
   const { nx, ny } = grid;
   if (!(Number.isInteger(nx) && Number.isInteger(ny) && nx >= 1 && ny >= 1)) throw new RangeError(`grid size must be positive integers, found ${nx} × ${ny}`);

@@ -1,8 +1,4 @@
-/**
- * Banded Cholesky factorisation A = L·Lᵀ of a symmetric positive definite matrix given as a node stencil
- * (stencil.ts), for the coarsest multigrid level. Dof d = 2n + c with n = j·nx + i, so the half bandwidth is
- * 2·(nx + 1) + 1. Storage: row d holds L[d, d − w … d] in band[d·(w + 1) + (w − (d − col))].
- */
+/** Banded Cholesky A = L·Lᵀ of a node stencil, for the coarsest multigrid level; half bandwidth 2·(nx + 1) + 1. */
 import type { Stencil } from './stencil.js';
 
 export interface BandedCholesky {
@@ -11,14 +7,13 @@ export interface BandedCholesky {
   readonly band: Float64Array;
 }
 
-/** Factor; throws RangeError('not positive definite at dof d') on a pivot that is not > 0. */
+/** Throws RangeError('not positive definite at dof d') on a pivot that is not > 0. */
 export function factorBanded(A: Stencil): BandedCholesky {
   const { nx, ny, s } = A;
   const n = 2 * nx * ny;
   const w = Math.min(2 * (nx + 1) + 1, n - 1);
   const W = w + 1;
   const band = new Float64Array(n * W);
-  // lower triangle of A into the band
   for (let node = 0; node < nx * ny; node++) {
     const i = node % nx;
     const j = (node - i) / nx;
@@ -56,7 +51,7 @@ export function factorBanded(A: Stencil): BandedCholesky {
   return { n, w, band };
 }
 
-/** Solve L Lᵀ x = b in place (x holds b on entry). */
+/** L Lᵀ x = b in place (x holds b on entry). */
 export function solveBanded(f: BandedCholesky, x: Float64Array): void {
   const { n, w, band } = f;
   const W = w + 1;

@@ -1,9 +1,6 @@
 /**
- * Preconditioned conjugate gradients (Hestenes & Stiefel 1952; M.R. Hestenes, E. Stiefel, "Methods of
- * conjugate gradients for solving linear systems", J. Res. Nat. Bur. Standards 49(6):409–436) for A u = f with
- * A symmetric positive definite. Stops when ‖f − A u‖₂ ≤ tol · ‖f‖₂ or after maxIterations; the caller gets
- * the iterations, the final relative residual (recomputed from A u, not the recurrence) and whether it met
- * the tolerance — a solve that did not converge is data, never a silent number.
+ * Preconditioned conjugate gradients (M.R. Hestenes, E. Stiefel, "Methods of conjugate gradients for solving linear
+ * systems", J. Res. Nat. Bur. Standards 49(6):409–436, 1952). A solve that did not converge is data, never silent.
  */
 import { apply, type Stencil } from './stencil.js';
 
@@ -17,7 +14,6 @@ export interface SolverStats {
 export interface CgOptions {
   /** Relative residual to reach (default 1e-8). */
   tol?: number;
-  /** Iteration cap (default 1000). */
   maxIterations?: number;
 }
 
@@ -27,7 +23,7 @@ function dot(a: Float64Array, b: Float64Array): number {
   return s;
 }
 
-/** Solve A u = f from u = 0; `precondition(r, z)` sets z = M⁻¹ r. Returns u and the statistics. */
+/** A u = f from u = 0; `precondition(r, z)` sets z = M⁻¹ r. The residual is recomputed from A u. */
 export function pcg(
   A: Stencil,
   f: Float64Array,
@@ -47,7 +43,7 @@ export function pcg(
   if (fNorm === 0) return { u, stats: { iterations: 0, relativeResidual: 0, converged: true, seconds: (performance.now() - t0) / 1000 } };
   let it = 0;
   let rel = 1;
-  // restart from the true residual when the recurrence claims convergence the true residual does not confirm
+  // restart from the true residual when the recurrence claims a convergence it does not confirm
   for (let restart = 0; restart < 3; restart++) {
     precondition(r, z);
     p.set(z);

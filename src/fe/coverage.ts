@@ -1,20 +1,7 @@
-/**
- * Exact area fraction of material in each cell of a grid, from a PolygonSet (outer rings counter-clockwise,
- * holes clockwise; mm, y up — docs/conventions.md). O(cells + cells crossed by the boundary).
- *
- * Method (Green's theorem, per column): the area of the set inside cell (i, j) is
- *   −Σ_edges ∫_{edge ∩ column i} clamp(y(x) − Y_j, 0, hy) dx
- * with dx signed along the edge: upper boundaries run towards −x and add the height below them, lower
- * boundaries run towards +x and subtract it. Each edge is cut at the column lines and the row lines; a piece
- * inside row band j adds its exact trapezoid (mean height above Y_j) to cell (i, j) and a full hy·dx to every
- * cell below it, which is recorded once and spread by a running sum down each column. Pieces above the grid
- * count as full for the whole column, pieces below as nothing, pieces left or right of it are dropped — the
- * result is the area of the set clipped to the grid rectangle.
- */
+/** Exact area fraction of material in each cell, by Green's theorem per column (docs/notes/fe.md). mm, y up. */
 import type { PolygonSet, Ring } from '../types.js';
 
 export interface CoverageGrid {
-  /** Cells along x and y. */
   readonly nx: number;
   readonly ny: number;
   /** Cell size, mm. */
@@ -25,7 +12,7 @@ export interface CoverageGrid {
   readonly y0?: number;
 }
 
-/** Fractions in [0, 1], values[j·nx + i] (j up from the bottom row). */
+/** Fractions in [0, 1], values[j·nx + i]. */
 export function coverage(set: PolygonSet, grid: CoverageGrid): Float64Array {
   const { nx, ny, hx, hy } = grid;
   if (!(nx >= 1 && ny >= 1 && Number.isInteger(nx) && Number.isInteger(ny))) throw new RangeError(`grid size must be positive integers, found ${nx} × ${ny}`);
@@ -35,11 +22,10 @@ export function coverage(set: PolygonSet, grid: CoverageGrid): Float64Array {
   const part = new Float64Array(nx * ny); // partial trapezoids, index j·nx + i
   const full = new Float64Array(nx * ny); // "add to every row ≤ j of column i"
 
-  // one straight piece inside column i, from (xa, ya) to (xb, yb), local coordinates (cell units of x, mm of y)
+  // one straight piece inside column i (x in cell units, y in mm)
   const addPiece = (i: number, xa: number, ya: number, xb: number, yb: number): void => {
     const dx = (xb - xa) * hx;
     if (dx === 0) return;
-    // cut at row lines; t runs 0..1 along the piece
     const ra = ya / hy;
     const rb = yb / hy;
     const lo = Math.min(ra, rb);

@@ -1,16 +1,10 @@
 /**
- * The 4-node bilinear plane-stress element on a rectangular cell hx × hy (mm), integrated by 2×2 Gauss
- * quadrature (exact for the rectangle's bilinear stiffness). Local nodes counter-clockwise from the
- * lower-left corner (y up): 0 = (0, 0), 1 = (hx, 0), 2 = (hx, hy), 3 = (0, hy); dofs (u, v) per node, so
- * local dof 2a is u and 2a + 1 is v of node a.
- *
- * Reference: O.C. Zienkiewicz, R.L. Taylor, *The Finite Element Method*, vol. 1, ch. 6 (isoparametric
- * elements), from memory; the matrix for square cells equals the closed form of Andreassen et al.,
- * "Efficient topology optimization in MATLAB using 88 lines of code", SMO 43:1–16, 2011,
- * DOI 10.1007/s00158-010-0594-7 (test/fe/element.test.ts checks it).
+ * The 4-node bilinear plane-stress element on an hx × hy mm cell, 2×2 Gauss; nodes CCW from the lower-left,
+ * dofs (u, v) per node. Zienkiewicz & Taylor, The Finite Element Method vol. 1 ch. 6 (from memory); square cells
+ * match Andreassen et al., SMO 43:1–16, 2011, DOI 10.1007/s00158-010-0594-7 (test/fe/element.test.ts).
  */
 
-/** Plane-stress constitutive matrix D (3×3, row-major) for E = 1: σ = E · D · ε, ε = (εxx, εyy, γxy). */
+/** D (3×3, row-major) for E = 1: σ = E · D · ε, ε = (εxx, εyy, γxy). */
 export function planeStressD(nu: number): Float64Array {
   const c = 1 / (1 - nu * nu);
   return Float64Array.of(c, c * nu, 0, c * nu, c, 0, 0, 0, (c * (1 - nu)) / 2);
@@ -19,7 +13,7 @@ export function planeStressD(nu: number): Float64Array {
 const XI = [-1, 1, 1, -1];
 const ETA = [-1, -1, 1, 1];
 
-/** Strain–displacement matrix B (3×8, row-major) at natural coordinates (ξ, η) ∈ [−1, 1]² of an hx × hy cell. */
+/** B (3×8, row-major) at (ξ, η) ∈ [−1, 1]². */
 export function strainMatrix(hx: number, hy: number, xi: number, eta: number): Float64Array {
   const B = new Float64Array(24);
   for (let a = 0; a < 4; a++) {
@@ -33,10 +27,7 @@ export function strainMatrix(hx: number, hy: number, xi: number, eta: number): F
   return B;
 }
 
-/**
- * Element stiffness (8×8, row-major, N/mm) of an hx × hy cell for E = 1 MPa and thickness 1 mm; scale by
- * E·t. For square cells it does not depend on the cell size.
- */
+/** 8×8, row-major, N/mm, for E = 1 MPa and t = 1 mm; scale by E·t. */
 export function elementStiffness(hx: number, hy: number, nu: number): Float64Array {
   if (!(hx > 0 && hy > 0)) throw new RangeError(`element size must be > 0, found ${hx} × ${hy}`);
   if (!(nu > -1 && nu < 0.5)) throw new RangeError(`Poisson's ratio must lie in (−1, 0.5), found ${nu}`);

@@ -1,19 +1,11 @@
 /**
- * Geometric multigrid on the structured node grid: Galerkin coarse operators A_c = Pᵀ·A·P with bilinear
- * prolongation P, block Gauss–Seidel smoothing (one forward sweep before, one backward sweep after the coarse
- * correction, so the V-cycle is a symmetric preconditioner), and a banded Cholesky solve on the coarsest level.
- * Used as the preconditioner of conjugate gradients, after O. Amir, N. Aage, B.S. Lazarov, "On multigrid-CG
- * for efficient topology optimization", Struct. Multidisc. Optim. 49:815–829, 2014, DOI 10.1007/s00158-013-1015-5.
- *
- * Coarsening: along each axis the coarse nodes are the fine nodes of even index, plus the last node when the
- * number of cells is odd (non-uniform coarsening: the last coarse cell then spans one fine cell, not two).
- * Every other fine node lies halfway between two coarse nodes and takes weights ½, ½ — the bilinear
- * interpolant on the non-uniform coarse grid. An axis of 3 nodes or fewer is no longer coarsened.
+ * Geometric multigrid as the CG preconditioner (O. Amir, N. Aage, B.S. Lazarov, "On multigrid-CG for efficient
+ * topology optimization", SMO 49:815–829, 2014, DOI 10.1007/s00158-013-1015-5); coarsening: docs/notes/fe.md.
  */
 import { factorBanded, solveBanded, type BandedCholesky } from './banded.js';
 import { gaussSeidel, residualAfterForwardSweep, type Stencil } from './stencil.js';
 
-/** The parents of the fine nodes along one axis: fine i takes w0[i] of coarse p0[i] and 1 − w0[i] of p0[i] + 1. */
+/** Fine i takes w0[i] of coarse p0[i] and 1 − w0[i] of p0[i] + 1. */
 interface AxisMap {
   readonly nf: number;
   readonly nc: number;
@@ -50,7 +42,6 @@ function axisMap(nf: number): AxisMap {
 
 interface Level {
   readonly A: Stencil;
-  /** maps from this level to the next coarser one (absent on the coarsest) */
   readonly mx?: AxisMap;
   readonly my?: AxisMap;
   readonly r: Float64Array;
@@ -58,7 +49,7 @@ interface Level {
   readonly x: Float64Array;
 }
 
-/** Parents of every fine index along one axis as flat arrays: up to two (coarse index, weight) pairs per index. */
+/** Up to two (coarse index, weight) pairs per fine index. */
 function parentLists(m: AxisMap): { idx: Int32Array; wt: Float64Array; cnt: Uint8Array } {
   const idx = new Int32Array(2 * m.nf);
   const wt = new Float64Array(2 * m.nf);
@@ -80,7 +71,7 @@ function parentLists(m: AxisMap): { idx: Int32Array; wt: Float64Array; cnt: Uint
   return { idx, wt, cnt };
 }
 
-/** Galerkin product Pᵀ A P for the tensor-product bilinear prolongation given by `mx`, `my`. */
+/** Galerkin product Pᵀ A P for the bilinear prolongation. */
 export function galerkin(A: Stencil, mx: AxisMap, my: AxisMap): Stencil {
   const { nx, ny, s } = A;
   const cx = mx.nc;
@@ -100,7 +91,6 @@ export function galerkin(A: Stencil, mx: AxisMap, my: AxisMap): Stencil {
         const a10 = s[o + 2];
         const a11 = s[o + 3];
         if (a00 === 0 && a01 === 0 && a10 === 0 && a11 === 0) continue;
-        // rows: parents (PI, PJ) of fine node (i, j); columns: parents (QI, QJ) of its neighbour (ii, jj)
         for (let py = 0; py < Y.cnt[j]; py++) {
           const PJ = Y.idx[2 * j + py];
           const wpy = Y.wt[2 * j + py];
@@ -189,13 +179,12 @@ function prolongAdd(mx: AxisMap, my: AxisMap, xc: Float64Array, xf: Float64Array
 export const COARSEST_DOFS = 1500;
 
 export interface Multigrid {
-  /** Number of levels, the fine one included. */
   readonly levels: number;
-  /** z = M⁻¹ r by one V-cycle (z is overwritten). */
+  /** z = M⁻¹ r by one V-cycle. */
   precondition(r: Float64Array, z: Float64Array): void;
 }
 
-/** Build the hierarchy for the fine operator `A` (fixed dofs already eliminated); levels until at most `coarsestDofs` dofs. */
+/** `A` with the fixed dofs eliminated. */
 export function buildMultigrid(A: Stencil, coarsestDofs = COARSEST_DOFS): Multigrid {
   const levels: Level[] = [];
   let cur = A;

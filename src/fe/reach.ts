@@ -1,15 +1,4 @@
-/**
- * Does the final geometry still carry its load case? Two kinds of located findings (docs/checks/load-path.md):
- *
- * - a **support or load the geometry no longer reaches**: none of the nodes its selector caught has an adjacent
- *   element at least half full (the same rule as the peak stress, docs/structure.md) — after thresholding it
- *   acts on void, and the analysis' numbers there mean nothing;
- * - a **piece of the part that no support holds**: a polygon of the outline (an outer ring with its holes) that
- *   contains no reached support node and has none within one cell diagonal of its boundary — it hangs on the
- *   1e-9 stiffness of the void.
- *
- * Frame: mm, y up; nodes n = j·(ex + 1) + i at (x0 + i·hx, y0 + j·hy).
- */
+/** Supports and loads the geometry no longer reaches, and pieces no support holds (docs/checks/load-path.md; docs/notes/fe.md). */
 import { ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
 import { polygonArea } from '../geom/area.js';
@@ -19,14 +8,13 @@ import type { FeAnalysis } from './analyse.js';
 
 export interface ReachFinding {
   readonly kind: 'support' | 'load' | 'piece';
-  /** mm, report frame. */
+  /** mm. */
   readonly x: number;
   readonly y: number;
-  /** What is wrong, in words: `supports[1] ("stop") sits in void`, `a piece of 120 mm² held by no support`. */
+  /** `supports[1] ("stop") sits in void`, `a piece of 120 mm² held by no support`. */
   readonly text: string;
 }
 
-/** Nodes with an adjacent element at least `solid` full. */
 function reachedNodes(a: FeAnalysis, solid: number): Uint8Array {
   const [ex, ey] = a.elements;
   const nxn = ex + 1;
@@ -60,10 +48,7 @@ function nearRing(ring: Ring, x: number, y: number, d2: number): boolean {
   return false;
 }
 
-/**
- * The reach findings of one analysed geometry. `x0`, `y0`: the grid's lower-left corner, mm. `polygons`: the
- * geometry analysed (for the pieces); null for a density design (no pieces to speak of).
- */
+/** `x0`, `y0`: the grid's lower-left corner, mm; `polygons` null for a density design. */
 export function reachFindings(a: FeAnalysis, polygons: PolygonSet | null, x0: number, y0: number, solid = 0.5): ReachFinding[] {
   const [ex] = a.elements;
   const [hx, hy] = a.elementSize;

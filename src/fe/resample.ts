@@ -1,12 +1,7 @@
-/**
- * Coarsening of a cell field for the structural re-check: the area-weighted mean of the fine cells over each
- * coarse cell, the domain unchanged. With an integer factor c the coarse grid has ⌈nx/c⌉ × ⌈ny/c⌉ cells of size
- * (nx·hx/⌈nx/c⌉) × (ny·hy/⌈ny/c⌉); when c divides nx and ny these are plain c × c block means. O(fine cells).
- */
+/** Coarsening a cell field: area-weighted means over ⌈nx/c⌉ × ⌈ny/c⌉ coarse cells, the domain unchanged. O(fine cells). */
 
-/** Overlap lengths of fine cells [i, i+1)·h with coarse cells [I, I+1)·H, as (first fine, weights) per coarse. */
+/** Overlaps of fine cells with coarse cells, as (first fine, weights) per coarse cell. */
 function axisWeights(n: number, m: number): { start: Int32Array; count: Int32Array; w: Float64Array; stride: number } {
-  // lengths in units of the fine cell; coarse cell I spans [I·r, (I+1)·r), r = n/m
   const r = n / m;
   const stride = Math.ceil(r) + 1;
   const start = new Int32Array(m);
@@ -28,7 +23,6 @@ function axisWeights(n: number, m: number): { start: Int32Array; count: Int32Arr
   return { start, count, w, stride };
 }
 
-/** Coarsen `values` (nx × ny, values[j·nx + i]) by the integer factor c ≥ 1. */
 export function coarsenCells(values: Float64Array, nx: number, ny: number, c: number): { values: Float64Array; nx: number; ny: number } {
   if (!(Number.isInteger(c) && c >= 1)) throw new RangeError(`coarsening factor must be an integer ≥ 1, found ${c}`);
   if (c === 1) return { values, nx, ny };
@@ -36,7 +30,6 @@ export function coarsenCells(values: Float64Array, nx: number, ny: number, c: nu
   const my = Math.ceil(ny / c);
   const ax = axisWeights(nx, mx);
   const ay = axisWeights(ny, my);
-  // separable: first along x into a (mx × ny) field, then along y
   const tmp = new Float64Array(mx * ny);
   for (let j = 0; j < ny; j++) {
     for (let I = 0; I < mx; I++) {
@@ -56,11 +49,7 @@ export function coarsenCells(values: Float64Array, nx: number, ny: number, c: nu
   return { values: out, nx: mx, ny: my };
 }
 
-/**
- * Element values of a nodal grid (`--values nodes`: N × M samples on cell corners): the (N − 1) × (M − 1) cells
- * between the samples, each with the mean of its four corners (DESIGN §12) — the mean of the bilinear field
- * over the cell.
- */
+/** Nodal samples → the (N − 1) × (M − 1) cells between them, each the mean of its four corners (DESIGN §12). */
 export function nodalToCells(values: Float64Array, nx: number, ny: number): { values: Float64Array; nx: number; ny: number } {
   if (!(nx >= 2 && ny >= 2)) throw new RangeError(`a nodal grid needs at least 2 × 2 samples, found ${nx} × ${ny}`);
   const ex = nx - 1;

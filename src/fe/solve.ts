@@ -1,8 +1,4 @@
-/**
- * Linear plane-stress solve on a structured grid: assemble the bilinear elements with per-element stiffness,
- * eliminate the fixed dofs, and solve K u = f by conjugate gradients preconditioned with one multigrid V-cycle
- * (multigrid.ts; Amir, Aage & Lazarov 2014).
- */
+/** Plane-stress solve on a structured grid: assemble, eliminate fixed dofs, CG with a multigrid V-cycle. */
 import { pcg, type CgOptions, type SolverStats } from './cg.js';
 import { elementStiffness } from './element.js';
 import { buildMultigrid } from './multigrid.js';
@@ -15,28 +11,24 @@ export interface ElasticProblem {
   readonly hx: number;
   readonly hy: number;
   readonly nu: number;
-  /** E_e · t per element (N/mm), index ej·ex + ei; every value must be > 0. */
+  /** E_e · t per element (N/mm), > 0. */
   readonly stiffness: Float64Array;
-  /** 1 where a dof is fixed; dof 2n (u), 2n + 1 (v) of node n = j·(ex + 1) + i. */
   readonly fixed: Uint8Array;
-  /** Nodal forces, N (ignored on fixed dofs). */
+  /** N. */
   readonly force: Float64Array;
 }
 
 export interface SolveOptions extends CgOptions {
-  /** Coarsen until at most this many dofs are left for the direct solve (default COARSEST_DOFS). */
   coarsestDofs?: number;
-  /** Storage for the fine-level stiffness, reused across solves on one grid (overwritten). */
+  /** Reused across solves on one grid (overwritten). */
   stencilBuffer?: Float64Array;
 }
 
 export interface ElasticSolution {
-  /** Nodal displacements, mm (zero on fixed dofs). */
+  /** mm. */
   readonly u: Float64Array;
   readonly stats: SolverStats;
-  /** Multigrid levels used, the fine one included. */
   readonly levels: number;
-  /** The fine-level stiffness storage used (pass it back as `stencilBuffer` to reuse it). */
   readonly stencil: Float64Array;
 }
 

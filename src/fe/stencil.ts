@@ -1,36 +1,23 @@
 /**
- * A symmetric operator on the nodes of a structured grid, stored as node stencils: each node couples to its
- * 3×3 node neighbourhood with 2×2 dof blocks (u, v). This is the exact sparsity of bilinear elements on the
- * grid's cells and of their Galerkin coarse operators under bilinear prolongation, so one layout serves every
- * multigrid level.
- *
- * Layout: node n = j·nx + i (i along x, j along y, y up); neighbour slot k = (dj + 1)·3 + (di + 1);
- * entry A[2n + a, 2m + b] (m the neighbour) at s[n·36 + k·4 + a·2 + b]. Slot 4 is the diagonal block.
+ * A symmetric operator on grid nodes as 3×3 node stencils of 2×2 dof blocks (every multigrid level). Node
+ * n = j·nx + i; slot k = (dj + 1)·3 + (di + 1); A[2n + a, 2m + b] at s[n·36 + k·4 + a·2 + b]; slot 4 diagonal.
  */
 
 export interface Stencil {
-  /** Nodes along x and y. */
   readonly nx: number;
   readonly ny: number;
-  /** 36 values per node (see the module comment). */
   readonly s: Float64Array;
 }
 
 const LI = [0, 1, 1, 0];
 const LJ = [0, 0, 1, 1];
 
-/**
- * Assemble the global stiffness of an ex × ey grid of equal cells from the unit element matrix `ke`
- * (8×8, E = 1, t = 1; element.ts) scaled per element by `scale[ej·ex + ei]` (E_e · t, N/mm²·mm).
- * Nodes: (ex + 1) × (ey + 1). `into`, when given and of the right length, is cleared and reused as the storage
- * (several designs on one grid share one buffer: it is the largest array of a solve).
- */
+/** Global stiffness of ex × ey cells from the unit `ke` (element.ts) scaled by `scale[ej·ex + ei]` (E_e · t, N/mm); reuses `into`. */
 export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float64Array, into?: Float64Array): Stencil {
   const nx = ex + 1;
   const ny = ey + 1;
   const s = into !== undefined && into.length === nx * ny * 36 ? into.fill(0) : new Float64Array(nx * ny * 36);
-  // for each of the 16 node-pair blocks of one element: its offset in s from the element's first node, and
-  // where the block starts in ke
+  // per node-pair block of one element: its offset in s and its start in ke
   const off = new Int32Array(16);
   const src = new Int32Array(16);
   for (let a = 0; a < 4; a++) {
@@ -56,11 +43,7 @@ export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float6
   return { nx, ny, s };
 }
 
-/**
- * Eliminate fixed dofs in place: their rows and columns become zero except the diagonal, which keeps its value
- * (a decoupled row with a stiffness of the right size, so the coarse levels still see a stiff support).
- * The right-hand side must be zero at those dofs; the solution then is zero there.
- */
+/** Fixed dofs in place: rows and columns zeroed but the diagonal (the coarse levels still see a stiff support); f must be 0 there. */
 export function eliminate(A: Stencil, fixed: Uint8Array): void {
   const { nx, ny, s } = A;
   for (let n = 0; n < nx * ny; n++) {
@@ -86,7 +69,7 @@ export function eliminate(A: Stencil, fixed: Uint8Array): void {
   }
 }
 
-/** Row n of A x into y (generic path, any node: neighbours outside the grid are skipped). */
+/** Row n of A x (neighbours outside the grid skipped). */
 function applyNode(nx: number, ny: number, s: Float64Array, x: Float64Array, y: Float64Array, i: number, j: number): void {
   const n = j * nx + i;
   let yu = 0;
@@ -105,7 +88,7 @@ function applyNode(nx: number, ny: number, s: Float64Array, x: Float64Array, y: 
   y[2 * n + 1] = yv;
 }
 
-/** y = A x. Interior nodes take an unrolled path; the boundary ring the generic one. */
+/** y = A x. */
 export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
   const { nx, ny, s } = A;
   const rowUp = 2 * nx;
@@ -119,7 +102,7 @@ export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
       const n = j * nx + i;
       const o = n * 36;
       const d = 2 * n;
-      // slots 0..8: (−1,−1) (0,−1) (1,−1) (−1,0) (0,0) (1,0) (−1,1) (0,1) (1,1) as (di, dj)
+      // slots 0..8: (di, dj) = (−1,−1) (0,−1) (1,−1) (−1,0) (0,0) (1,0) (−1,1) (0,1) (1,1)
       let m = d - rowUp - 2;
       let yu = s[o] * x[m] + s[o + 1] * x[m + 1];
       let yv = s[o + 2] * x[m] + s[o + 3] * x[m + 1];
@@ -154,7 +137,7 @@ export function apply(A: Stencil, x: Float64Array, y: Float64Array): void {
   }
 }
 
-/** One block Gauss–Seidel update of node (i, j): solve its 2×2 diagonal block against the rest of its row. */
+/** Block Gauss–Seidel update of node (i, j) by its 2×2 diagonal block. */
 function relaxNode(nx: number, ny: number, s: Float64Array, x: Float64Array, b: Float64Array, i: number, j: number): void {
   const n = j * nx + i;
   const o = n * 36;
@@ -207,10 +190,7 @@ function relaxNode(nx: number, ny: number, s: Float64Array, x: Float64Array, b: 
   x[2 * n + 1] = (a * rv - c * ru) / det;
 }
 
-/**
- * One block Gauss–Seidel sweep on A x = b (2×2 node blocks), in place: forward (node 0 first) or backward.
- * A forward sweep before and a backward sweep after the coarse correction keep the V-cycle symmetric.
- */
+/** One block Gauss–Seidel sweep in place; forward before and backward after the coarse correction keeps the V-cycle symmetric. */
 export function gaussSeidel(A: Stencil, x: Float64Array, b: Float64Array, forward: boolean): void {
   const { nx, ny, s } = A;
   if (forward) {
@@ -220,11 +200,7 @@ export function gaussSeidel(A: Stencil, x: Float64Array, b: Float64Array, forwar
   }
 }
 
-/**
- * r = b − A x right after one forward Gauss–Seidel sweep that started from x = 0. The sweep left
- * (D + L) x = b exactly, so r = −U x: only the couplings to the later neighbours ((1, 0), (−1, 1), (0, 1),
- * (1, 1): slots 5…8) are needed — less than half the work of a full product.
- */
+/** r = b − A x after one forward sweep from x = 0: r = −U x, slots 5…8 only. */
 export function residualAfterForwardSweep(A: Stencil, x: Float64Array, r: Float64Array): void {
   const { nx, ny, s } = A;
   for (let j = 0; j < ny; j++) {

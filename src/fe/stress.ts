@@ -1,13 +1,10 @@
 /**
- * Element stresses at the element centre (ξ = η = 0), plane stress: σ = E·D·B(0, 0)·u_e with the modulus of the
- * solid material, i.e. the stress in the material of the element, not the smeared stress of a grey element
- * (the "microscopic" stress of Duysinx & Bendsøe, "Topology optimization of continuum structures with local
- * stress constraints", IJNME 43:1453–1478, 1998). Von Mises in plane stress:
- * σ_vm = √(σx² − σx·σy + σy² + 3τxy²).
+ * Von Mises at the element centre in the solid material (the "microscopic" stress of Duysinx & Bendsøe,
+ * "Topology optimization of continuum structures with local stress constraints", IJNME 43:1453–1478, 1998).
  */
 import { planeStressD, strainMatrix } from './element.js';
 
-/** Von Mises stress per element (MPa), index ej·ex + ei; `u` nodal displacements in mm, E in MPa. */
+/** MPa per element, index ej·ex + ei; `u` in mm, E in MPa. */
 export function vonMises(ex: number, ey: number, hx: number, hy: number, E: number, nu: number, u: Float64Array): Float64Array {
   const B = strainMatrix(hx, hy, 0, 0);
   const D = planeStressD(nu);
