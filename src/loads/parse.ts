@@ -1,13 +1,9 @@
 /**
- * The loads file of the structural re-check (DESIGN §12, docs/structure.md): strict JSON of our own design,
- * read like the passive-region file (docs/passive.md) — unknown and repeated keys are errors, and every message
- * names file:line:col and the key path, what was expected and what was found.
+ * The loads file (docs/structure.md): strict JSON like the passive file. Errors: E_LOADS_JSON, E_LOADS_FORMAT.
  *
  *   { "rhoformLoads": 1, "units": "mm", "material": { "E": 70000, "nu": 0.33 }, "thickness": 8,
  *     "interpolation": { "penal": 3, "minStiffness": 1e-9 },
  *     "supports": [ { "fix": "xy", "edge": "left" } ], "loads": [ { "force": [0, -1200], "point": [224, 30] } ] }
- *
- * Errors: invalid JSON → RhoformError E_LOADS_JSON; schema errors → E_LOADS_FORMAT.
  */
 import { RhoformError, show } from '../errors.js';
 import { describe, parseStrictJson, whereOf, type StrictJson } from '../json/strict.js';
@@ -15,11 +11,11 @@ import { elementPath, memberPath } from '../json/scan.js';
 import type { Point } from '../types.js';
 import type { Edge, Fix, Load, LoadsSpec, Selector, Support } from './types.js';
 
-/** Largest |coordinate| and radius accepted, mm (1 km: anything beyond is a unit mistake). */
+/** Largest |coordinate| and radius, mm (1 km: beyond is a unit mistake). */
 export const MAX_COORDINATE = 1e6;
-/** Largest |force component| accepted, N. */
+/** Largest |force component|, N. */
 export const MAX_FORCE = 1e12;
-/** Defaults of the optimizer's interpolation (modified SIMP; Bendsøe & Sigmund 2003, Andreassen et al. 2011). */
+/** Modified SIMP defaults (Bendsøe & Sigmund 2003, Andreassen et al. 2011). */
 export const DEFAULT_PENAL = 3;
 export const DEFAULT_MIN_STIFFNESS = 1e-9;
 
@@ -50,7 +46,7 @@ class Checker {
     return o;
   }
 
-  /** A finite number; `what` says what it is. JSON.parse turns 1e999 into Infinity: show the source text. */
+  /** JSON.parse turns 1e999 into Infinity: the message shows the source text. */
   number(v: unknown, path: string, what: string, limit = MAX_COORDINATE, unit = 'mm'): number {
     if (typeof v !== 'number') this.fail(path, what, describe(v));
     if (!Number.isFinite(v)) this.fail(path, 'a finite number', this.raw(path) ?? describe(v));
@@ -180,11 +176,7 @@ class Checker {
   }
 }
 
-/**
- * Parse a loads file. `file` names it in messages. Pure: the caller reads the file. Coordinates are mm in the
- * report frame (y up, origin at the lower-left corner of the grid), forces N, E MPa. `thickness` is null when
- * the file has none (then `--thickness` must give it). Throws RhoformError E_LOADS_JSON or E_LOADS_FORMAT.
- */
+/** mm, y up, N, MPa; `thickness` null when the file has none. Pure: the caller reads the file. */
 export function parseLoads(text: string, file: string): LoadsSpec {
   const json = parseStrictJson(text, file, 'E_LOADS_JSON', 'E_LOADS_FORMAT');
   return new Checker(json, file).top(json.data, file);

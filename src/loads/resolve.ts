@@ -1,21 +1,12 @@
 /**
- * The load case on a grid's nodes: which dofs are fixed and the nodal force vector.
- *
- * Nodes are the corners of the grid's cells: node (i, j) at (x0 + i·hx, y0 + j·hy), i = 0…ex, j = 0…ey (mm,
- * y up); dof 2n is u and 2n + 1 is v of node n = j·(ex + 1) + i. "Half a cell" is ½·max(hx, hy).
- *
- * Selectors: `edge` — every node on that domain edge; `point` — the nearest node; `segment` — the nodes within
- * half a cell of the segment; `circle` — the nodes within half a cell of the rim; `rect` — the nodes inside
- * (closed). A load's total force is spread as consistent nodal forces of a uniform line load along an edge, a
- * segment or a rim (each node's share is half the distance between its neighbours along the line — on a grid
- * line the trapezoid weights ½h, h, …, h, ½h of the bilinear element edges), and in equal shares on a rect.
- * A force on a fixed dof goes to the support (it is reported as such, never silently dropped).
+ * The load case on the grid's nodes: fixed dofs and nodal forces. Node (i, j) at (x0 + i·hx, y0 + j·hy), mm, y up;
+ * dof 2n is u, 2n + 1 is v of node n = j·(ex + 1) + i. Selectors and force shares: docs/notes/loads.md.
  */
 import { RhoformError, type Where } from '../errors.js';
 import type { Point } from '../types.js';
 import type { Load, LoadsSpec, Selector, Support } from './types.js';
 
-/** The analysis grid: ex × ey elements of hx × hy mm, lower-left corner at (x0, y0). */
+/** ex × ey elements of hx × hy mm, lower-left corner (x0, y0). */
 export interface FeGrid {
   readonly ex: number;
   readonly ey: number;
@@ -28,18 +19,17 @@ export interface FeGrid {
 export interface ResolvedEntry {
   readonly path: string;
   readonly name: string | null;
-  /** Nodes the selector caught. */
   readonly nodes: number;
-  /** Which nodes (n = j·(ex + 1) + i), for pictures and for whether the final geometry still reaches them. */
+  /** Node ids n = j·(ex + 1) + i. */
   readonly nodeIds: readonly number[];
-  /** For loads: the part of the force (N, [Fx, Fy]) that fell on fixed dofs and goes straight to the support. */
+  /** Loads: the force (N) that fell on fixed dofs and goes to the support. */
   readonly toSupport?: Point;
 }
 
 export interface ResolvedLoadCase {
-  /** 1 where the dof is fixed (length 2·(ex + 1)·(ey + 1)). */
+  /** Length 2·(ex + 1)·(ey + 1). */
   readonly fixed: Uint8Array;
-  /** Nodal forces, N (zero on fixed dofs). */
+  /** N, zero on fixed dofs. */
   readonly force: Float64Array;
   readonly supports: readonly ResolvedEntry[];
   readonly loads: readonly ResolvedEntry[];
@@ -55,13 +45,13 @@ function fail(spec: LoadsSpec, e: Support | Load, detail: string): never {
   throw new RhoformError('E_LOADS_CASE', `${entryLabel(e)}: ${detail}`, where);
 }
 
-/** Caught nodes and each one's share of a uniform line load (weights sum to 1), or equal shares. */
+/** Caught nodes and each one's share of the force (weights sum to 1). */
 interface Caught {
   nodes: number[];
   weights: number[];
 }
 
-/** Hat-function weights of positions s (any order) on a line of length len, lumped ends; they sum to 1. */
+/** Hat-function weights of positions s on a line of length len, lumped ends; they sum to 1. */
 function lineWeights(s: number[], len: number, periodic: boolean): number[] {
   const order = s.map((_, k) => k).sort((a, b) => s[a] - s[b]);
   const n = order.length;
@@ -160,7 +150,7 @@ function select(sel: Selector, g: Required<FeGrid>): Caught {
   }
 }
 
-/** Why a selector lies outside the domain [x0, x0 + ex·hx] × [y0, y0 + ey·hy] (beyond half a cell), or null. */
+/** Why a selector lies outside the domain beyond half a cell, or null. */
 function outside(sel: Selector, g: Required<FeGrid>): string | null {
   const half = 0.5 * Math.max(g.hx, g.hy);
   const X1 = g.x0 + g.ex * g.hx;
@@ -188,11 +178,7 @@ function outside(sel: Selector, g: Required<FeGrid>): string | null {
   }
 }
 
-/**
- * Resolve the supports and loads of `spec` on the grid. Throws RhoformError E_LOADS_CASE naming the entry
- * (key path and name, at its line and column) when a selector lies outside the domain or catches no node.
- * Whether the supports hold the part still is checked by the analysis (fe/rigid.ts).
- */
+/** Throws E_LOADS_CASE naming the entry when a selector lies outside the domain or catches no node. */
 export function resolveLoadCase(spec: LoadsSpec, grid: FeGrid): ResolvedLoadCase {
   const g: Required<FeGrid> = { x0: 0, y0: 0, ...grid };
   const N = (g.ex + 1) * (g.ey + 1);
