@@ -1,31 +1,20 @@
 /**
- * A small strict JSON scanner (RFC 8259 grammar) that records where every value sits in the text, by key path,
- * so that schema errors can name a line and column; it also finds the offset of the first syntax error, for
- * Node versions whose JSON.parse message gives none, and reports repeated keys (JSON.parse keeps the last one
- * silently). It decodes nothing but keys: values come from JSON.parse.
- *
- * Key paths read `regions[2].circle.radius`: members joined by '.', array elements as `[k]`, the top level ''.
+ * A strict JSON scanner (RFC 8259) recording where each value sits by key path (`regions[2].circle.radius`),
+ * the first syntax error's offset and repeated keys. Values come from JSON.parse.
  */
 
-/** Where a value sits: offset of its first character, and of its key when it is an object member. */
+/** Offsets of a value's first character and of its key. */
 export interface JsonSpot {
   readonly value: number;
   readonly key?: number;
 }
 
-/**
- * A failed scan: `offset` of the first syntax error, or (`tooDeep`) of the first array or object opened
- * deeper than MAX_JSON_DEPTH.
- */
+/** A failed scan: `offset` of the first syntax error, or (`tooDeep`) of the first too-deep array or object. */
 export type JsonScan =
   | { readonly ok: true; readonly spots: ReadonlyMap<string, JsonSpot>; readonly duplicate: { path: string; key: number } | null }
   | { readonly ok: false; readonly offset: number; readonly tooDeep: boolean };
 
-/**
- * Deepest nesting of arrays and objects the scanner follows. The passive-region format needs 5 levels
- * (top, regions, a region, its shape, a point); the bound keeps the recursion and the key paths small
- * whatever a file holds.
- */
+/** Deepest nesting followed (the passive format needs 5): keeps the recursion and key paths small. */
 export const MAX_JSON_DEPTH = 64;
 
 class ScanError {
@@ -35,7 +24,7 @@ class ScanError {
   ) {}
 }
 
-/** The text of a JSON.parse error message without the echo of the input Node 20 appends (or is made of). */
+/** A JSON.parse error message without the input echo Node 20 appends. */
 export function jsonParseMessage(e: unknown): string {
   const m = e instanceof Error ? e.message : String(e);
   const cleaned = m
@@ -46,17 +35,15 @@ export function jsonParseMessage(e: unknown): string {
   return cleaned === '' ? 'not valid JSON' : cleaned;
 }
 
-/** Path of member `key` under `parent`. */
 export function memberPath(parent: string, key: string): string {
   return parent === '' ? key : `${parent}.${key}`;
 }
 
-/** Path of element `k` under `parent`. */
 export function elementPath(parent: string, k: number): string {
   return `${parent}[${k}]`;
 }
 
-/** Scan `text` (no BOM). O(length). */
+/** `text` without a BOM. O(length). */
 export function scanJson(text: string): JsonScan {
   const s = text;
   const n = s.length;
@@ -77,7 +64,7 @@ export function scanJson(text: string): JsonScan {
   const isDigit = (c: number): boolean => c >= 0x30 && c <= 0x39;
   const isHex = (c: number): boolean => isDigit(c) || (c >= 0x41 && c <= 0x46) || (c >= 0x61 && c <= 0x66);
 
-  /** Skips a string starting at s[i] === '"'; returns the offset just past the closing quote. */
+  /** Skips the string at s[i] === '"'; returns the offset past its closing quote. */
   const string = (): number => {
     i++;
     for (;;) {
@@ -202,7 +189,7 @@ export function scanJson(text: string): JsonScan {
   return { ok: true, spots, duplicate };
 }
 
-/** 1-based line and column of a 0-based offset; CRLF, LF and lone CR each end a line. Columns count UTF-16 units. */
+/** 1-based line and column; CRLF, LF and lone CR end a line; columns in UTF-16 units. */
 export function lineCol(text: string, offset: number): { line: number; col: number } {
   let line = 1;
   let start = 0;

@@ -1,12 +1,8 @@
-/**
- * Reading a strict JSON input file of our own formats (the passive-region file, the loads file): JSON.parse for
- * the values, the position scanner (json/scan.ts) for where each value sits and for repeated keys, and
- * the wording shared by their messages (`file:line:col: key.path: expected …, found …`).
- */
+/** Strict JSON input files of our own formats: values, positions, repeated keys and shared message wording. */
 import { RhoformError, show, type ErrorCode, type Where } from '../errors.js';
 import { MAX_JSON_DEPTH, jsonParseMessage, lineCol, scanJson, type JsonSpot } from './scan.js';
 
-/** A value as a message shows it: "an object", "an array of 3", numbers and strings as they are. */
+/** "an object", "an array of 3", numbers and strings as they are. */
 export function describe(v: unknown): string {
   if (v === undefined) return 'nothing';
   if (v === null) return 'null';
@@ -15,12 +11,11 @@ export function describe(v: unknown): string {
   return show(v);
 }
 
-/** The text of the message of a JSON.parse error, without its position and without the echo of the input. */
 export function jsonMessage(e: unknown): string {
   return jsonParseMessage(e);
 }
 
-/** The offset of a JSON.parse error, if its message gives one (Node 20: "at position N"; later: "line L column C"). */
+/** Node 20: "at position N"; later: "line L column C". */
 export function jsonOffset(text: string, e: unknown): number | { line: number; col: number } | null {
   const m = e instanceof Error ? e.message : '';
   const pos = /at position (\d+)/.exec(m);
@@ -31,7 +26,7 @@ export function jsonOffset(text: string, e: unknown): number | { line: number; c
   return null;
 }
 
-/** The refusal of arrays or objects nested deeper than the position scanner follows (MAX_JSON_DEPTH). */
+/** The refusal of nesting deeper than MAX_JSON_DEPTH. */
 function tooDeep(src: string, file: string, offset: number, code: ErrorCode): RhoformError {
   return new RhoformError(code, `expected at most ${MAX_JSON_DEPTH} levels of nested arrays and objects, found deeper nesting`, {
     file,
@@ -40,16 +35,13 @@ function tooDeep(src: string, file: string, offset: number, code: ErrorCode): Rh
 }
 
 export interface StrictJson {
-  /** The text without a byte-order mark (positions refer to it). */
+  /** Without a BOM (positions refer to it). */
   readonly text: string;
   readonly data: unknown;
   readonly spots: ReadonlyMap<string, JsonSpot>;
 }
 
-/**
- * Parse `text` as JSON; a syntax error throws `jsonCode` at its line and column, a repeated key throws
- * `formatCode` at the second occurrence of the key. `file` names the file in messages.
- */
+/** Syntax errors throw `jsonCode`, repeated keys `formatCode`, at line and column. */
 export function parseStrictJson(text: string, file: string, jsonCode: ErrorCode, formatCode: ErrorCode): StrictJson {
   const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // a byte-order mark is not JSON; editors add one
   let data: unknown;
@@ -77,7 +69,7 @@ export function parseStrictJson(text: string, file: string, jsonCode: ErrorCode,
   return { text: src, data, spots };
 }
 
-/** Where the value (or, with `key`, the key) at `path` sits; the nearest enclosing value when it is missing. */
+/** Where the value (with `key`, the key) at `path` sits, else the nearest enclosing value. */
 export function whereOf(json: StrictJson, file: string, path: string, key = false): Where {
   let p = path;
   for (;;) {
