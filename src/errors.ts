@@ -1,9 +1,4 @@
-/**
- * Typed errors with stable codes (docs/cli.md lists them). The CLI maps every RhoformError to exit code 2.
- *
- * Messages read `file:line:col: what was expected, what was found`; the position part is built from
- * the optional `where` so that library callers without a file name still get line/column or byte offsets.
- */
+/** Typed errors with stable codes (docs/cli.md); messages read `file:line:col: expected …, found …`; the CLI exits 2. */
 
 export type ErrorCode =
   | 'E_CSV_EMPTY'
@@ -58,7 +53,7 @@ export type ErrorCode =
   | 'E_SUMMARY_FORMAT'
   | 'E_INTERNAL';
 
-/** A position inside an input: text line/column (1-based) or a byte offset (0-based). */
+/** Line/column 1-based, byte offset 0-based. */
 export interface Where {
   file?: string;
   line?: number;
@@ -66,7 +61,7 @@ export interface Where {
   byteOffset?: number;
 }
 
-/** Formats `file:line:col` (or `file:byte N`) for a message prefix; empty when nothing is known. */
+/** `file:line:col` or `file:byte N`; empty when nothing is known. */
 export function formatWhere(where: Where | undefined): string {
   if (!where) return '';
   const file = where.file ?? '<input>';
@@ -77,15 +72,14 @@ export function formatWhere(where: Where | undefined): string {
   return where.file ?? '';
 }
 
-/** Base class of every error the tool reports to a user. */
 export class RhoformError extends Error {
   readonly code: ErrorCode;
   readonly where: Where | undefined;
-  /** The message without the position prefix. */
+  /** Without the position prefix. */
   readonly detail: string;
 
   constructor(code: ErrorCode, detail: string, where?: Where) {
-    // One line, always: whatever a message quotes from an input, control characters arrive escaped.
+    // one line, always: control characters arrive escaped
     detail = escapeControls(detail);
     if (where?.file !== undefined) where = { ...where, file: escapeControls(where.file) };
     const prefix = formatWhere(where);
@@ -96,13 +90,12 @@ export class RhoformError extends Error {
     this.detail = detail;
   }
 
-  /** The same error with the file name filled in (readers are pure and do not know it). */
+  /** Readers are pure and do not know the file name. */
   withFile(file: string): RhoformError {
     return new RhoformError(this.code, this.detail, { ...this.where, file });
   }
 }
 
-/** Bad command-line usage: unknown option, bad option value, missing argument. */
 export class UsageError extends RhoformError {
   constructor(detail: string) {
     super('E_USAGE', detail);
@@ -110,17 +103,10 @@ export class UsageError extends RhoformError {
   }
 }
 
-/**
- * Characters a message must never carry raw: C0 controls (line breaks and ESC included), DEL, C1 controls
- * (0x9b is a one-byte CSI on some terminals), the Unicode line and paragraph separators, and lone surrogates.
- */
+/** C0/C1 controls, DEL, U+2028/2029 and lone surrogates (0x9b is a one-byte CSI on some terminals). */
 const CONTROL = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g;
 
-/**
- * The one escaping helper for text quoted from an input: every control character becomes a visible escape
- * (`\n`, `\r`, `\t`, else `\xHH` or `\uHHHH`), so a message stays one line and cannot drive a terminal.
- * Backslashes are left as they are (messages quote them already).
- */
+/** Every control character as a visible escape, so a message stays one line and cannot drive a terminal; backslashes kept. */
 export function escapeControls(text: string): string {
   return text.replace(CONTROL, (c) => {
     if (c === '\n') return '\\n';
@@ -131,10 +117,7 @@ export function escapeControls(text: string): string {
   });
 }
 
-/**
- * Quotes text from an input for a message: double-quoted, cut to `max` characters (never inside a surrogate
- * pair), with quotes, backslashes and control characters escaped (escapeControls).
- */
+/** Double-quoted, cut to `max` characters (never inside a surrogate pair), escaped. */
 export function quote(text: string, max = 40): string {
   let cut = text;
   if (text.length > max) {
@@ -147,7 +130,6 @@ export function quote(text: string, max = 40): string {
   return `"${body}"${cut.length < text.length ? '…' : ''}`;
 }
 
-/** Shows a value in a message: strings quoted and cut to 40 characters (quote), numbers as they are. */
 export function show(value: unknown): string {
   if (typeof value === 'string') return quote(value);
   return String(value);

@@ -1,7 +1,4 @@
-/**
- * The input side of a run: read and validate a grid file, and describe it (the report's `input` block and
- * `rhoform inspect`). Pure: bytes in, data out.
- */
+/** The read stage: read and validate a grid file, and describe it (the report's `input`, `rhoform inspect`). Pure. */
 import { createHash } from 'node:crypto';
 import { RhoformError } from './errors.js';
 import { fieldStats, histogram, type FieldStats, type Histogram } from './field/stats.js';
@@ -11,9 +8,8 @@ import type { Settings } from './settings.js';
 import type { DensityGrid, Report } from './types.js';
 import { VERSION } from './version.js';
 
-/** One input, as the CLI hands it over. */
 export interface InputFile {
-  /** The name as given by the user (used in messages and the report). */
+  /** As the user gave it (messages, the report). */
   readonly name: string;
   readonly bytes: Uint8Array;
 }
@@ -33,7 +29,6 @@ function readOptions(s: Settings): ReadOptions {
   };
 }
 
-/** Read and validate the grid file; errors carry the file name. */
 export function loadGrid(input: InputFile, s: Settings): ReadResult {
   const read = readGrid(input.bytes, input.name, readOptions(s));
   const g = read.grid;
@@ -50,11 +45,9 @@ export interface InspectResult {
   readonly tool: Report['tool'];
   readonly input: Report['input'];
   readonly histogram: Histogram;
-  /** Share (0..1) of grey samples (0.1 < ρ < 0.9), after range mapping. */
+  /** Share of samples with 0.1 < ρ < 0.9, after range mapping. */
   readonly greyShare: number;
-  /** Layout read ('long' infers the cell size from the coordinates). */
   readonly layout: 'grid' | 'long';
-  /** Where the cell size came from: the options (or the default), or the file (VTK spacing). */
   readonly cellSizeSource: 'options' | 'file';
   readonly warnings: string[];
 }
@@ -63,7 +56,6 @@ function sha256(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
 }
 
-/** Range-map without refusing anything: what `inspect` describes. */
 function mapRange(grid: DensityGrid, [lo, hi]: readonly [number, number]): DensityGrid {
   const out = new Float64Array(grid.values.length);
   const scale = 1 / (hi - lo);
@@ -71,10 +63,7 @@ function mapRange(grid: DensityGrid, [lo, hi]: readonly [number, number]): Densi
   return { ...grid, values: out };
 }
 
-/**
- * The report's `input` block. `known`: statistics already gathered (prepareGrid's inputStats, the same numbers
- * in the same pass as preparing); otherwise they are computed here.
- */
+/** `known`: statistics gathered while preparing; otherwise computed here. */
 export function describeInput(
   input: InputFile,
   read: ReadResult,
@@ -106,7 +95,7 @@ function isIdentity(s: Settings): boolean {
   return s.valueRange[0] === 0 && s.valueRange[1] === 1;
 }
 
-/** `rhoform inspect`: statistics only; never fails on non-finite values. */
+/** Never fails on non-finite values. */
 export function inspect(input: InputFile, s: Settings): InspectResult {
   const read = loadGrid(input, s);
   const d = describeInput(input, read, s);

@@ -1,10 +1,4 @@
-/**
- * The only place that knows the order of the stages (docs/architecture.md):
- * read → prepare → threshold (driving contour + smooth) → passive → checks → repair (and checks again) → write,
- * and the report assembled once from the stages' records. Every stage is a function of typed inputs that returns
- * a readonly record and can be called alone. Pure: bytes and settings in, strings and a report out; the CLI does
- * every file operation.
- */
+/** The only place that knows the order of the stages (docs/architecture.md). Pure: the CLI does every file operation. */
 import { checkStage, planStage, type CheckRecord } from './check/stage.js';
 import { structureDesign, structureStage, structureStart, type StructureDesign, type StructureRecord, type StructureStart } from './fe/stage.js';
 import { levelCurve } from './field/curve.js';
@@ -30,59 +24,48 @@ import { summarizeGeometry } from './report/geometry.js';
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
 
 export interface BuildResult {
-  /** The report; `outputs` is empty — the CLI fills it once files are written. */
+  /** `outputs` is empty: the CLI fills it. */
   readonly report: Report;
   readonly grid: DensityGrid;
   readonly raw: PolygonSet;
   readonly smoothed: SmoothResult;
   readonly warnings: string[];
-  /** Full contour + smooth passes the volume search needed (1 for --level). */
+  /** Full contour + smooth passes of the volume search (1 for --level). */
   readonly builds: number;
-  /**
-   * Milliseconds spent per stage, in the order they ran (read, prepare, threshold = the level search alone,
-   * contour, smooth, passive, structure, checks, repair, write, report). The same object is the report's `timings`: a caller
-   * that renders outputs may add its own entries (the CLI adds dxf, svg, html) before it formats the report.
-   */
+  /** Milliseconds per stage; the same object as the report's `timings`, so a renderer may add entries. */
   readonly timings: Record<string, number>;
-  /** Render the geometry files on demand (the CLI asks only for the formats it writes). */
+  /** Geometry files, rendered on demand. */
   dxf(): string;
-  /** `<name>.notes.dxf` (`--annotations`): the annotation layers alone, not plotting, always R2000. */
   notesDxf(): string;
   svg(): string;
-  /** The part extruded by `--thickness` (mm) as binary STL or 3MF bytes (src/write/solid.ts). */
+  /** Extruded by `--thickness` (mm). */
   solid(format: 'stl' | '3mf'): Uint8Array;
-  /** The picture data of the HTML report (the local-thickness map only when it is cheap or already built). */
+  /** The local-thickness map only when cheap or already built. */
   pictures(): HtmlPictures;
-  /** The structural re-check's record (`--loads`), or null without. */
   readonly structure: StructureRecord | null;
 }
 
 /** Grids up to this many samples get a local-thickness picture even when no size check built the engine. */
 const THICKNESS_PICTURE_CELLS = 500_000;
-/** Longer side of the local-thickness picture, pixels. */
+/** Pixels. */
 const THICKNESS_PICTURE_SIDE = 600;
 
-/** Inputs of a build beside the grid: the parsed passive-region file (`--passive`; the CLI reads and parses it). */
+/** The parsed `--passive` and `--loads` files (the CLI reads and parses them). */
 export interface BuildExtras {
   readonly passive?: PassiveRegions | null;
-  /** The parsed loads file (`--loads`; the CLI reads and parses it): runs the structural re-check. */
   readonly loads?: LoadsSpec | null;
 }
 
-/** What the structural checks read of one analysed outline. */
 function structureView(start: StructureStart, d: StructureDesign): StructureCheckInput {
   return { input: start.input.analysis, geometry: d.analysis, reach: d.reach, x0: start.grid.x0, y0: start.grid.y0 };
 }
 
-/**
- * Loads what a build with these settings needs before it can run: the polygon boolean engine (WebAssembly) when
- * passive regions, symmetry or repair use it. Await it once before `build`; it returns at once after the first.
- */
+/** Loads the boolean engine when the settings need it; await once before `build`. */
 export async function prepareBuild(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): Promise<void> {
   if (needsBooleanEngine(s)) await loadBooleanEngine();
 }
 
-/** `rhoform build`: the main job. Throws RhoformError on bad input (exit 2). */
+/** `rhoform build`. Throws RhoformError on bad input (exit 2). */
 export function build(input: InputFile, s: Settings, more: BuildExtras = {}): BuildResult {
   const timings: Record<string, number> = {};
   let t0 = performance.now();
@@ -107,7 +90,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   lap('passive');
 
   const plan = withFileName(input.name, () => planStage(field, threshold.summary.mode, s));
-  // The structural re-check (--loads): the input design now, each outline before the checks that judge it.
+  // the structural re-check: the input design now, each outline before the checks that judge it
   const loads = more.loads ?? null;
   if ((loads === null) !== (s.loads === null)) throw new UsageError('the structural re-check needs both settings.loads (the file name) and the parsed loads file');
   const fe = loads === null ? null : structureStart(field, loads, s);
@@ -147,7 +130,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
       lap('structure');
     }
     beforeRepair = checks;
-    // After a repair, volume-fraction judges the area the files will hold (true circles, cleaned rings, arcs).
+    // after a repair, volume-fraction judges the area the files will hold
     shape = writtenShape({ polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], passive: field.passive, raw: threshold.raw }, s);
     const writtenArea = summarizeGeometry(shape.polygons, field.domainArea, shape).area;
     checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true, writtenArea }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
@@ -180,8 +163,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   report.timings = timings;
   const { grid, domain } = field;
   const finalChecks = checks;
-  // The local-thickness picture: from the checks' engine when they built one; else, on grids small enough, from
-  // an engine at the picture's own resolution (one raster pixel per picture pixel; a picture, not a check).
+  // the local-thickness picture: the checks' engine, else on small grids one at the picture's resolution
   const pictureThickness = () => {
     const morph = finalChecks.morphology();
     if (morph) return morph.thicknessMap(THICKNESS_PICTURE_SIDE);

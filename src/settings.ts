@@ -1,31 +1,26 @@
-/**
- * Every option of a run, resolved, with its default. The CLI parses argv into a Partial<Settings>;
- * `resolveSettings` fills the defaults; the report prints the result (docs/report-schema.md `settings`).
- */
+/** Every option of a run, resolved, with its default; the report prints it (docs/report-schema.md `settings`). */
+
 /** How a saddle cell of marching squares is resolved (docs/contour.md). */
 export type SaddleRuleName = 'decider' | 'join' | 'split';
 
 export type OutputFormat = 'dxf' | 'svg' | 'json' | 'html' | 'stl' | '3mf';
 
-/** Every output format `--formats` accepts, in the order of docs/output-formats.md. */
+/** In the order of docs/output-formats.md. */
 export const OUTPUT_FORMATS: readonly OutputFormat[] = ['dxf', 'svg', 'json', 'html', 'stl', '3mf'];
 
-/** The repairs of `--repair` (docs/repair.md), in the order they run; each is tied to check ids. */
+/** The repairs of `--repair` (docs/repair.md), in the order they run. */
 export const REPAIR_IDS = ['thicken', 'fill-holes', 'open-corners', 'drop-islands'] as const;
 export type RepairName = (typeof REPAIR_IDS)[number];
 
-/** A grid edge that is a symmetry plane (`--mirror`): the mirror image is added beyond it. */
 export const MIRROR_EDGES = ['left', 'right', 'bottom', 'top'] as const;
 export type MirrorEdge = (typeof MIRROR_EDGES)[number];
 
-/** A check's severity as set by `--severity <id>=off|warn|fail` (docs/checks/README.md). */
 export type SeverityName = 'off' | 'warn' | 'fail';
 
 export interface Settings {
-  // input
   /** mm; [hx, hy]. */
   cellSize: [number, number];
-  /** True when --cell-size was not given and 1 mm was assumed. */
+  /** True when 1 mm was assumed. */
   cellSizeDefaulted: boolean;
   rowOrder: 'top-down' | 'bottom-up';
   values: 'cells' | 'nodes';
@@ -35,75 +30,57 @@ export interface Settings {
   nonFinite: 'error' | 'void';
   clip: boolean;
   maxCells: number;
-  /** MAT/VTK/VTI: the variable or array to read (`--field`); null = the only candidate in the file. */
+  /** MAT/VTK/VTI variable; null = the only candidate. */
   field: string | null;
-  /** PNG: which end of the grey scale is solid (`--image-solid`). */
   imageSolid: 'dark' | 'light';
-  /** PNG: the channel of a colour image to read (`--image-channel`); null = refuse colour images. */
+  /** PNG colour channel; null = refuse colour images. */
   imageChannel: 'luminance' | 'r' | 'g' | 'b' | null;
-  // geometry
   /** Target solid fraction (0..1); null = the mean of the prepared densities. */
   volumeFraction: number | null;
-  /** Relative tolerance of the smoothed area against the target. */
   volumeTolerance: number;
   /** Fixed iso-level; null = volume-preserving search. */
   level: number | null;
   saddle: SaddleRuleName;
-  /** Taubin λ|μ iterations (pairs). */
+  /** Taubin λ|μ pairs. */
   smooth: number;
   smoothLambda: number;
   smoothMu: number;
-  /** mm: largest allowed distance of the final outline from the raw contour; null = 0.25 × the smaller cell side. */
+  /** mm; null = 0.25 × the smaller cell side. */
   tolerance: number | null;
-  /** Grid edges unfolded as symmetry planes (`--mirror`, repeatable), in the order given. */
   mirror: MirrorEdge[];
-  /** The passive-region file as given (`--passive`); null = none. Its parsed content is passed to `build`. */
+  /** File names as given (`--passive`, `--loads`); the parsed content is passed to `build`. */
   passive: string | null;
-  /** Write rings that are circles within the tolerance as true circles (`--circles`). */
   circles: boolean;
-  // checks (docs/checks/; null = off unless a process preset sets it)
-  /** mm: smallest allowed local width of the solid (`--min-member`). */
+  /** Size limits, mm (areas mm²); null = off unless a process preset sets it (docs/checks/). */
   minMember: number | null;
-  /** mm: smallest allowed hole or gap (`--min-hole`). */
   minHole: number | null;
-  /** mm: radius of the milling tool; concave corners tighter than it are findings (`--tool-radius`). */
   toolRadius: number | null;
-  /** mm²: islands up to this area are tolerated; 0 = every extra piece is an island (`--min-island-area`). */
+  /** 0 = every extra piece is an island. */
   minIslandArea: number;
-  /** mm²: smallest allowed hole area (`--min-hole-area`); null = the default, 4 cell areas (src/check/small-holes.ts). */
+  /** null = 4 cell areas (src/check/small-holes.ts). */
   minHoleArea: number | null;
-  /** %: M_nd of the input above which grey-level warns (`--grey-warn`). */
+  /** %. */
   greyWarn: number;
-  /** Process preset id (`--process`); its limits fill the size limits not given explicitly. */
   process: string | null;
-  /** mm: sheet thickness for the sheet-cutting presets (`--thickness`). */
+  /** mm, for the sheet presets. */
   thickness: number | null;
-  /** Per-check severity overrides (`--severity <id>=off|warn|fail`, repeatable). */
   severity: Record<string, SeverityName>;
-  /** Lowest status that makes the exit code 1 (`--fail-on`). */
+  /** Lowest status that makes the exit code 1. */
   failOn: 'warn' | 'fail';
-  /** Repairs to run after the checks (`--repair[=list]`), in REPAIR_IDS order; empty = none. */
+  /** In REPAIR_IDS order; empty = none. */
   repair: RepairName[];
-  // structural re-check (docs/structure.md; the report shows these four only when `loads` is given)
-  /** The loads file as given (`--loads`); null = no structural re-check. Its parsed content is passed to `build`. */
+  /** null = no structural re-check (docs/structure.md). */
   loads: string | null;
-  /** %: largest allowed compliance increase of the final geometry over the input design (`--max-stiffness-loss`). */
+  /** %: compliance increase allowed. */
   maxStiffnessLoss: number;
-  /** MPa: allowable von Mises stress of the final geometry (`--allowable-stress`); null = peak-stress off. */
+  /** MPa; null = peak-stress off. */
   allowableStress: number | null;
-  /** Largest number of finite elements before the grid is coarsened by an integer factor (`--fe-max-elements`). */
   feMaxElements: number;
-  // output
   formats: OutputFormat[];
   units: 'mm' | 'in';
-  /**
-   * Write the annotations (passive-region references, findings, where repairs acted, labels) beside the part:
-   * `<name>.notes.dxf` on non-plotting layers and groups in the SVG (`--annotations`). Off: the part only.
-   */
+  /** `<name>.notes.dxf` and SVG groups beside the part (`--annotations`). */
   annotations: boolean;
-  /** Fit the final outline with circular arcs and lines within the outline tolerance (`--arcs`). */
   arcs: boolean;
-  /** DXF version of the part file (`--dxf-version`). */
   dxfVersion: 'r12' | 'r2000';
 }
 
@@ -154,7 +131,6 @@ export const DEFAULT_SETTINGS: Settings = {
   dxfVersion: 'r2000',
 };
 
-/** Defaults filled in; `cellSizeDefaulted` follows from whether a cell size was given. */
 export function resolveSettings(partial: Partial<Settings>): Settings {
   const s: Settings = {
     ...DEFAULT_SETTINGS,
@@ -167,13 +143,10 @@ export function resolveSettings(partial: Partial<Settings>): Settings {
   return s;
 }
 
-/**
- * Whether a run with these settings needs the polygon boolean engine (src/geom/clipper.ts), which is loaded on
- * demand: passive regions, symmetry and repair use it; a plain build does not.
- */
-/** The settings of the structural re-check, which the report lists only when `--loads` is given. */
+/** Listed in the report only with `--loads`. */
 export const STRUCTURE_SETTINGS = ['loads', 'maxStiffnessLoss', 'allowableStress', 'feMaxElements'] as const;
 
+/** Passive regions, symmetry and repair need the boolean engine (src/geom/clipper.ts); a plain build does not. */
 export function needsBooleanEngine(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): boolean {
   return s.passive !== null || s.mirror.length > 0 || s.repair.length > 0;
 }
