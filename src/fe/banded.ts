@@ -1,5 +1,5 @@
 /** Banded Cholesky A = L·Lᵀ of a node stencil, for the coarsest multigrid level; half bandwidth 2·(nx + 1) + 1. */
-import type { Stencil } from './stencil.js';
+import { neighbourNode, type Stencil } from './stencil.js';
 
 export interface BandedCholesky {
   readonly n: number;
@@ -18,12 +18,8 @@ export function factorBanded(A: Stencil): BandedCholesky {
     const i = node % nx;
     const j = (node - i) / nx;
     for (let k = 0; k < 9; k++) {
-      const di = (k % 3) - 1;
-      const dj = ((k / 3) | 0) - 1;
-      const ii = i + di;
-      const jj = j + dj;
-      if (ii < 0 || jj < 0 || ii >= nx || jj >= ny) continue;
-      const m = jj * nx + ii;
+      const m = neighbourNode(nx, ny, i, j, k);
+      if (m < 0) continue;
       for (let a = 0; a < 2; a++) {
         for (let b = 0; b < 2; b++) {
           const r = 2 * node + a;

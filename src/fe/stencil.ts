@@ -43,6 +43,13 @@ export function assemble(ex: number, ey: number, ke: Float64Array, scale: Float6
   return { nx, ny, s };
 }
 
+/** The node in slot k (0…8) of node (i, j)'s stencil, or −1 outside the grid. */
+export function neighbourNode(nx: number, ny: number, i: number, j: number, k: number): number {
+  const ii = i + (k % 3) - 1;
+  const jj = j + ((k / 3) | 0) - 1;
+  return ii < 0 || jj < 0 || ii >= nx || jj >= ny ? -1 : jj * nx + ii;
+}
+
 /** Fixed dofs in place: rows and columns zeroed but the diagonal (the coarse levels still see a stiff support); f must be 0 there. */
 export function eliminate(A: Stencil, fixed: Uint8Array): void {
   const { nx, ny, s } = A;
@@ -53,12 +60,8 @@ export function eliminate(A: Stencil, fixed: Uint8Array): void {
       const j = (n - i) / nx;
       const d = s[n * 36 + 16 + c * 3];
       for (let k = 0; k < 9; k++) {
-        const di = (k % 3) - 1;
-        const dj = ((k / 3) | 0) - 1;
-        const ii = i + di;
-        const jj = j + dj;
-        if (ii < 0 || jj < 0 || ii >= nx || jj >= ny) continue;
-        const m = jj * nx + ii;
+        const m = neighbourNode(nx, ny, i, j, k);
+        if (m < 0) continue;
         s[n * 36 + k * 4 + c * 2] = 0;
         s[n * 36 + k * 4 + c * 2 + 1] = 0;
         s[m * 36 + (8 - k) * 4 + c] = 0;
