@@ -1,4 +1,5 @@
 /** Capped distance queries to closed polylines through a segment grid. mm, y up. */
+import type { Ring } from '../types.js';
 import { type FlatRings, SegmentGrid, sqSegDist } from './segments.js';
 
 /** Distance (mm) to the nearest segment, Infinity beyond `cap`; with `enough` > 0, the first segment within it (an upper bound). */
@@ -44,4 +45,19 @@ export function nearDistance(rings: FlatRings, cap: number, enough = 0): (x: num
     }
     return found ? Math.sqrt(best) : Infinity;
   };
+}
+
+/** The nearest point (px, py) of ring `r`'s boundary to (x, y) and its distance d, mm. O(vertices). */
+export function nearestOnRing(r: Ring, x: number, y: number): { px: number; py: number; d: number } {
+  let best = Infinity, bx = x, by = y;
+  for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
+    const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
+    const l2 = ex * ex + ey * ey;
+    let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
+    t = t < 0 ? 0 : t > 1 ? 1 : t;
+    const qx = ax + t * ex, qy = ay + t * ey;
+    const d2 = (x - qx) * (x - qx) + (y - qy) * (y - qy);
+    if (d2 < best) { best = d2; bx = qx; by = qy; }
+  }
+  return { px: bx, py: by, d: Math.sqrt(best) };
 }

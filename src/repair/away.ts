@@ -1,20 +1,7 @@
 /** Disc centres kept clear of passive voids (docs/notes/repair.md). mm, y up; void rings of either orientation. */
 import { ringBounds, ringContains } from '../geom/contains.js';
+import { nearestOnRing } from '../geom/near.js';
 import type { Point, Ring } from '../types.js';
-
-function nearestOnRing(r: Ring, x: number, y: number): { px: number; py: number; d: number } {
-  let best = Infinity, bx = x, by = y;
-  for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
-    const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
-    const l2 = ex * ex + ey * ey;
-    let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
-    t = t < 0 ? 0 : t > 1 ? 1 : t;
-    const qx = ax + t * ex, qy = ay + t * ey;
-    const d2 = (x - qx) * (x - qx) + (y - qy) * (y - qy);
-    if (d2 < best) { best = d2; bx = qx; by = qy; }
-  }
-  return { px: bx, py: by, d: Math.sqrt(best) };
-}
 
 /** `c` moved so that the disc of radius `rho` (mm) around it stays out of every void; `c` itself when none is near. */
 export function clearOfVoids(c: Point, rho: number, voids: readonly Ring[], boxes: readonly [number, number, number, number][]): Point {

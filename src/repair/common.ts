@@ -3,6 +3,7 @@ import { polygonArea, polygonSetArea, ringArea, ringPerimeter } from '../geom/ar
 import { booleanOp, offsetRings, quantumFor, ringsOf, unionRings } from '../geom/clipper.js';
 import { ringBounds, ringContains } from '../geom/contains.js';
 import { interiorPoint } from '../geom/interior.js';
+import { nearestOnRing } from '../geom/near.js';
 import { arcSagitta } from '../geom/circle.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RepairInput } from './types.js';
@@ -109,16 +110,7 @@ export function nearPiece(p: Polygon, x: number, y: number, d: number): boolean 
   const b = ringBounds(p.outer);
   if (x < b[0] - d || x > b[2] + d || y < b[1] - d || y > b[3] + d) return false;
   if (ringContains(p.outer, [x, y]) >= 0) return true;
-  const r = p.outer, d2 = d * d;
-  for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
-    const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
-    const l2 = ex * ex + ey * ey;
-    let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
-    t = t < 0 ? 0 : t > 1 ? 1 : t;
-    const dx = x - ax - t * ex, dy = y - ay - t * ey;
-    if (dx * dx + dy * dy <= d2) return true;
-  }
-  return false;
+  return nearestOnRing(p.outer, x, y).d <= d;
 }
 
 export function inPiece(p: Polygon, q: Point): boolean {

@@ -3,6 +3,7 @@ import { joinedPieces } from '../check/islands.js';
 import { cornerDepth } from '../check/min-inner-radius.js';
 import { polygonArea, ringArea } from '../geom/area.js';
 import { ringContains } from '../geom/contains.js';
+import { nearestOnRing } from '../geom/near.js';
 import type { Morphology } from '../morph/types.js';
 import type { RepairName } from '../settings.js';
 import type { PolygonSet, Ring } from '../types.js';
@@ -14,13 +15,7 @@ function nearVoid(x: number, y: number, voids: readonly Ring[]): number {
   let best = Infinity;
   for (const r of voids) {
     if (ringContains(r, [x, y]) > 0) return 0;
-    for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
-      const ax = r[j][0], ay = r[j][1], ex = r[i][0] - ax, ey = r[i][1] - ay;
-      const l2 = ex * ex + ey * ey;
-      let t = l2 > 0 ? ((x - ax) * ex + (y - ay) * ey) / l2 : 0;
-      t = t < 0 ? 0 : t > 1 ? 1 : t;
-      best = Math.min(best, Math.hypot(x - ax - t * ex, y - ay - t * ey));
-    }
+    best = Math.min(best, nearestOnRing(r, x, y).d);
   }
   return best;
 }
