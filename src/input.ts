@@ -29,6 +29,7 @@ function readOptions(s: Settings): ReadOptions {
   };
 }
 
+/** Reads and validates the grid file; errors carry its name. */
 export function loadGrid(input: InputFile, s: Settings): ReadResult {
   const read = readGrid(input.bytes, input.name, readOptions(s));
   const g = read.grid;

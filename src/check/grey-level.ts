@@ -7,6 +7,7 @@ import type { CheckContext, CheckDefinition, Measurement } from './types.js';
 /** Rounding allowance of M_nd, % (docs/notes/check.md). */
 export const GREY_RESOLUTION = 1e-9;
 
+/** Reads ctx.greyLevel (%); null when the input has no finite value. */
 export function measureGreyLevel(ctx: CheckContext, _limit: number): Measurement {
   const g = ctx.greyLevel;
   const measured = Number.isFinite(g) ? g : null;

@@ -19,6 +19,7 @@ export interface PlannedCheck {
 /** Point (mm, y up) → 1-based row and column of the input file. */
 export type LocateInFile = (x: number, y: number) => { fileRow: number; fileCol: number };
 
+/** Limits are inclusive; within ± resolution of the limit is a warning (docs/notes/check.md). */
 export function verdict(measured: number | null, limit: number, resolution: number, comparison: '>=' | '<=', severity: 'warn' | 'fail'): Status {
   if (measured === null) return 'pass';
   if (resolution > 0 && Math.abs(measured - limit) <= resolution) return 'warn';
@@ -66,6 +67,7 @@ export function runChecks(planned: readonly PlannedCheck[], ctx: CheckContext, l
   });
 }
 
+/** With no checks the run passes. */
 export function summarize(results: readonly CheckResult[]): Report['summary'] {
   let pass = 0;
   let warn = 0;

@@ -7,6 +7,7 @@ import type { CheckContext, CheckDefinition, Measurement, RawLocation } from './
 /** Holes and islands below this many cell areas are threshold artefacts (common practice, no source; docs/notes/check.md). */
 export const SUB_RESOLUTION_CELLS = 4;
 
+/** The default `--min-hole-area`, mm²: SUB_RESOLUTION_CELLS cells of hx × hy mm. */
 export function defaultMinHoleArea(cellSize: readonly [number, number]): number {
   return SUB_RESOLUTION_CELLS * cellSize[0] * cellSize[1];
 }

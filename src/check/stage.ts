@@ -65,6 +65,7 @@ export interface CheckRecord {
   morphology(): Morphology | undefined;
 }
 
+/** Runs the planned checks on `polygons`, mm, y up; `passiveSolid` rings join the pieces that touch them. */
 export function checkStage(
   polygons: PolygonSet,
   passiveSolid: readonly Ring[] | null,

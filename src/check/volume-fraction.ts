@@ -25,6 +25,7 @@ export function writtenFraction(ctx: Pick<CheckContext, 'polygons' | 'domain' | 
   return domainArea > 0 ? area / domainArea : 0;
 }
 
+/** Of the smoothed outline before repair; of the outline written after it (ctx.repaired). */
 export function measureVolumeFraction(ctx: CheckContext, limit: number): Measurement {
   const { targetFraction, achievedFraction, mode } = ctx.threshold;
   const why = mode === 'level' ? ' (fixed --level: the volume was not searched)' : mode === 'constant' ? ' (constant field: no search)' : '';

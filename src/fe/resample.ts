@@ -23,6 +23,7 @@ function axisWeights(n: number, m: number): { start: Int32Array; count: Int32Arr
   return { start, count, w, stride };
 }
 
+/** `values` (nx × ny, values[j·nx + i]) coarsened by the integer factor c ≥ 1. */
 export function coarsenCells(values: Float64Array, nx: number, ny: number, c: number): { values: Float64Array; nx: number; ny: number } {
   if (!(Number.isInteger(c) && c >= 1)) throw new RangeError(`coarsening factor must be an integer ≥ 1, found ${c}`);
   if (c === 1) return { values, nx, ny };

@@ -60,6 +60,7 @@ export function structureStart(field: { readonly grid: DensityGrid }, spec: Load
   return { spec, grid, options, thickness, input: { analysis, reach: reachFindings(analysis, null, grid.x0, grid.y0) } };
 }
 
+/** An outline (mm) on the same grid and load case, as exact area fractions per element. */
 export function structureDesign(start: StructureStart, polygons: PolygonSet): StructureDesign {
   const analysis = analyse(start.grid, { kind: 'geometry', polygons }, start.spec, start.options);
   return { analysis, reach: reachFindings(analysis, polygons, start.grid.x0, start.grid.y0) };
@@ -72,6 +73,7 @@ function unconverged(name: string, a: FeAnalysis, tol: number): string | null {
   return `structural re-check: the solve of the ${name} stopped after ${its} at relative residual ${s.relativeResidual.toExponential(2)} (tolerance ${tol.toExponential(0)}); its compliance, displacement and stress are approximate`;
 }
 
+/** The record: the designs analysed, the compliance change, the solver warnings. */
 export function structureStage(start: StructureStart, beforeRepair: StructureDesign | null, final: StructureDesign, polygons: PolygonSet): StructureRecord {
   const tol = start.options.tol ?? 1e-8;
   const warnings = [

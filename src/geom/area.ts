@@ -1,6 +1,7 @@
 /** Signed area (shoelace) and perimeter of rings, mm, y up: CCW positive, CW (holes) negative. */
 import type { Polygon, PolygonSet, Ring } from '../types.js';
 
+/** Signed area, mm²: > 0 counter-clockwise, < 0 clockwise. */
 export function ringArea(ring: Ring): number {
   const n = ring.length;
   if (n < 3) return 0;
@@ -32,6 +33,7 @@ export function flatRingArea(xy: Float64Array, from = 0, to = xy.length >> 1): n
   return a / 2;
 }
 
+/** Length in mm, closing edge included. */
 export function ringPerimeter(ring: Ring): number {
   const n = ring.length;
   if (n < 2) return 0;
@@ -46,6 +48,7 @@ export function ringPerimeter(ring: Ring): number {
   return s;
 }
 
+/** Net area in mm²: the outer ring minus its holes. */
 export function polygonArea(p: Polygon): number {
   let a = ringArea(p.outer);
   for (const h of p.holes) a += ringArea(h);
@@ -58,6 +61,7 @@ export function polygonSetArea(set: PolygonSet): number {
   return a;
 }
 
+/** Total boundary length in mm, outer rings and holes. */
 export function polygonSetPerimeter(set: PolygonSet): number {
   let s = 0;
   for (const p of set.polygons) {

@@ -18,6 +18,7 @@ export function bulgeSegmentArea(c: number, b: number): number {
   return Math.sign(b) * 0.5 * r * r * (t - Math.sin(t));
 }
 
+/** Arc length (mm) over a chord of c mm; c itself for b = 0. */
 export function bulgeArcLength(c: number, b: number): number {
   if (b === 0 || c === 0) return c;
   return bulgeRadius(c, b) * bulgeAngle(b);

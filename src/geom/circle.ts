@@ -39,6 +39,7 @@ export function circumscribedSegments(r: number, tolerance: number): number {
   return Math.min(4096, Math.max(8, n));
 }
 
+/** Vertex radius (mm) of the n-gon circumscribed about a circle of radius r: r / cos(π/n). */
 export function circumscribedRadius(r: number, n: number): number {
   return r / Math.cos(Math.PI / n);
 }

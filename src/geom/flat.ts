@@ -2,6 +2,7 @@
 import type { PolygonSet } from '../types.js';
 import type { FlatRings } from './segments.js';
 
+/** Every ring in one typed array, outer then its holes, polygon by polygon. O(vertices). */
 export function flattenSet(set: PolygonSet): FlatRings {
   let rings = 0, vertices = 0;
   for (const p of set.polygons) {

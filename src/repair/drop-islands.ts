@@ -5,6 +5,7 @@ import { interiorPoint } from '../geom/interior.js';
 import type { Polygon, PolygonSet } from '../types.js';
 import type { RepairInput, StepResult } from './types.js';
 
+/** Removes whole every island larger than the island limit (mm²). */
 export function dropIslands(set: PolygonSet, input: RepairInput): StepResult {
   const polys = set.polygons;
   const areas = new Float64Array(polys.length);

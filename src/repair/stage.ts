@@ -48,6 +48,7 @@ export interface RepairStageRecord {
   readonly changed: PolygonSet;
 }
 
+/** The repaired outline (mm, y up) with its fixed parts applied again, and one record per requested repair. */
 export function repairStage(input: RepairStageInput): RepairStageRecord {
   const plannedIds = new Set(input.planned.map((p) => p.def.id));
   const ids = input.settings.repair.filter((id) => offReason(id, plannedIds) === null);

@@ -27,6 +27,7 @@ function why(x: number, y: number, limit: number, input: RepairInput, rounds: nu
   return `the repairs of neighbouring places still undid each other after ${rounds} rounds`;
 }
 
+/** What repair `id` left on `set` in words, or null; `settled`: the last round changed nothing. */
 export function unresolvedOf(id: RepairName, set: PolygonSet, input: RepairInput, morph: Morphology, rounds: number, settled: boolean): string | null {
   const L = input.limits;
   if (id === 'thicken' && L.minMember !== null) {
