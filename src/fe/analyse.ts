@@ -4,6 +4,7 @@
  * mm, y up; element (i, j) at [x0 + i·hx, x0 + (i+1)·hx] × [y0 + j·hy, …]; forces N, E MPa.
  */
 import { RhoformError, UsageError } from '../errors.js';
+import { powPortable } from '../geom/portable-math.js';
 import { entryLabel, resolveLoadCase, type ResolvedLoadCase } from '../loads/resolve.js';
 import type { LoadsSpec } from '../loads/types.js';
 import type { PolygonSet } from '../types.js';
@@ -113,7 +114,7 @@ export function analyse(grid: FeGridSpec, design: FeDesign, spec: LoadsSpec, opt
   for (let e = 0; e < stiffness.length; e++) {
     const v = fraction[e];
     const f = Number.isFinite(v) ? Math.min(1, Math.max(0, v)) : 0;
-    const s = design.kind === 'density' ? Math.pow(f, penal) : f;
+    const s = design.kind === 'density' ? powPortable(f, penal) : f; // the same bits in every engine (geom/portable-math.ts)
     stiffness[e] = E * t * (r + s * (1 - r));
   }
 

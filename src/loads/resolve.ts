@@ -3,6 +3,7 @@
  * dof 2n is u, 2n + 1 is v of node n = j·(ex + 1) + i. Selectors and force shares: docs/notes/loads.md.
  */
 import { RhoformError, type Where } from '../errors.js';
+import { atan2 } from '../geom/portable-math.js';
 import type { Point } from '../types.js';
 import type { Load, LoadsSpec, Selector, Support } from './types.js';
 
@@ -136,7 +137,7 @@ function select(sel: Selector, g: Required<FeGrid>): Caught {
           const py = y0 + j * hy - cy;
           if (Math.abs(Math.hypot(px, py) - R) <= half) {
             nodes.push(j * nx + i);
-            s.push(R * Math.atan2(py, px));
+            s.push(R * atan2(py, px)); // the same bits in every engine (geom/portable-math.ts)
           }
         }
       }
