@@ -5,7 +5,7 @@
  */
 import { basename, extname, join, resolve } from 'node:path';
 import { RhoformError } from '../src/errors.js';
-import { parseLoads } from '../src/loads/parse.js';
+import { parseLoadsBytes } from '../src/loads/parse.js';
 import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
@@ -37,14 +37,7 @@ function readPassive(path: string, name: string): PassiveRegions {
 
 /** Read and parse a loads file (docs/structure.md); `name` as the user gave it, for messages. */
 function readLoads(path: string, name: string): LoadsSpec {
-  const bytes = readInput(path, name, { what: 'loads file' });
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw new RhoformError('E_LOADS_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file: name });
-  }
-  return parseLoads(text, name);
+  return parseLoadsBytes(readInput(path, name, { what: 'loads file' }), name);
 }
 
 export interface BuildFileOptions {

@@ -54,6 +54,21 @@ const THICKNESS_PICTURE_SIDE = 600;
 export interface BuildExtras {
   readonly passive?: PassiveRegions | null;
   readonly loads?: LoadsSpec | null;
+  /**
+   * Called as each stage ends, with its name (as in `timings`), the stages done and the stages this build runs
+   * in all (`buildStageCount`): a caller's progress indication. It runs on the build's own thread.
+   */
+  readonly onStage?: (stage: string, done: number, total: number) => void;
+}
+
+/**
+ * How many stages `build` runs for these settings: read, prepare, threshold, passive, checks, write and report,
+ * plus repair and its second checks with `--repair`, and with `--loads` the structure stage once per outline
+ * analysed and once to finish.
+ */
+export function buildStageCount(s: Pick<Settings, 'repair'>, withLoads: boolean): number {
+  const repair = s.repair.length > 0;
+  return 7 + (repair ? 2 : 0) + (withLoads ? (repair ? 3 : 2) : 0);
 }
 
 function structureView(start: StructureStart, d: StructureDesign): StructureCheckInput {
@@ -69,10 +84,13 @@ export async function prepareBuild(s: Pick<Settings, 'passive' | 'mirror' | 'rep
 export function build(input: InputFile, s: Settings, more: BuildExtras = {}): BuildResult {
   const timings: Record<string, number> = {};
   let t0 = performance.now();
+  const total = buildStageCount(s, (more.loads ?? null) !== null);
+  let done = 0;
   const lap = (name: string) => {
     const t = performance.now();
     timings[name] = (timings[name] ?? 0) + (t - t0);
-    t0 = t;
+    more.onStage?.(name, ++done, total);
+    t0 = performance.now();
   };
   if (s.thickness === null && s.formats.some((f) => f === 'stl' || f === '3mf')) {
     throw new UsageError(`--formats ${s.formats.filter((f) => f === 'stl' || f === '3mf').join(',')}: expected --thickness <mm> (the extrusion of the solid), found none`);

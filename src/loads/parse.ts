@@ -181,3 +181,17 @@ export function parseLoads(text: string, file: string): LoadsSpec {
   const json = parseStrictJson(text, file, 'E_LOADS_JSON', 'E_LOADS_FORMAT');
   return new Checker(json, file).top(json.data, file);
 }
+
+/**
+ * Parse a loads file from its bytes (the CLI reads them; the preview page embeds them). Throws RhoformError
+ * E_LOADS_JSON for bytes that are not UTF-8, and what parseLoads throws.
+ */
+export function parseLoadsBytes(bytes: Uint8Array, file: string): LoadsSpec {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new RhoformError('E_LOADS_JSON', 'expected UTF-8 text (JSON), found bytes that are not UTF-8', { file });
+  }
+  return parseLoads(text, file);
+}
