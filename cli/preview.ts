@@ -1,13 +1,15 @@
 /**
  * `rhoform preview <grid> [options]`: writes `<name>.preview.html` into --out-dir, one self-contained page with
- * the grid file inside (its bytes, deflated), the passive-region file, and the library bundled for the
+ * the grid file inside (its bytes, deflated), the passive-region and loads files, and the library bundled for the
  * browser (dist/web/, made by `npm run build`). Every option given is the page's starting state. The page
  * runs the same `build` as the CLI and offers the same files (docs/preview.md, DESIGN §13).
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
 import { deflateSync } from 'node:zlib';
-import { RhoformError, UsageError } from '../src/errors.js';
+import { RhoformError } from '../src/errors.js';
+import { parseLoadsBytes } from '../src/loads/parse.js';
+import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import { build, loadGrid } from '../src/pipeline.js';
 import { resolveSettings } from '../src/settings.js';
@@ -49,9 +51,6 @@ function stem(file: string): string {
 export function runPreview(args: ParsedArgs, io: Io): number {
   const file = args.files[0];
   const settings = resolveSettings(args.settings);
-  if (settings.loads !== null) {
-    throw new UsageError('--loads: the preview page does not embed a loads file yet; run the structural re-check with rhoform build --loads');
-  }
   const inputPath = resolve(io.cwd, file);
   // Read as `rhoform build` reads (cli/build-file.ts): the grid bounded by --max-cells, the passive file by its size.
   const bytes = readGridInput(inputPath, file, settings.maxCells);
@@ -64,6 +63,15 @@ export function runPreview(args: ParsedArgs, io: Io): number {
     regions = parsePassiveBytes(pbytes, settings.passive);
     passive = { name: settings.passive, bytes: Buffer.from(pbytes).toString('base64') };
   }
+  let loads: Embedded['loads'] = null;
+  let loadsPath: string | null = null;
+  let spec: LoadsSpec | null = null;
+  if (settings.loads !== null) {
+    loadsPath = resolve(io.cwd, settings.loads);
+    const lbytes = readInput(loadsPath, settings.loads, { what: 'loads file' });
+    spec = parseLoadsBytes(lbytes, settings.loads);
+    loads = { name: settings.loads, bytes: Buffer.from(lbytes).toString('base64') };
+  }
   const { nx, ny } = loadGrid({ name: file, bytes }, settings).grid;
   const limit = args.settings.maxCells ?? PREVIEW_MAX_CELLS;
   if (nx * ny > limit) {
@@ -75,7 +83,7 @@ export function runPreview(args: ParsedArgs, io: Io): number {
     );
   }
   // One build here, as `rhoform build` would run it: bad input or settings are refused now (exit 2), not in the page.
-  build({ name: file, bytes }, settings, { passive: regions });
+  build({ name: file, bytes }, settings, { passive: regions, loads: spec });
   const outDir = resolve(io.cwd, args.cli.outDir ?? '.');
   const data: Embedded = {
     version: 1,
@@ -86,12 +94,14 @@ export function runPreview(args: ParsedArgs, io: Io): number {
     grid: deflateSync(bytes, { level: 9 }).toString('base64'),
     gridBytes: bytes.length,
     passive,
+    loads,
     cells: nx * ny,
   };
   const { worker, page } = bundles();
   const html = pageHtml({ title: `rhoform preview — ${file}`, data, worker, page });
   const out = join(outDir, `${stem(file)}.preview.html`);
-  writeOutputsAtomically([{ path: out, content: html }], passivePath === null ? [inputPath] : [inputPath, passivePath], args.cli.force);
+  const inputs = [inputPath, ...(passivePath === null ? [] : [passivePath]), ...(loadsPath === null ? [] : [loadsPath])];
+  writeOutputsAtomically([{ path: out, content: html }], inputs, args.cli.force);
   const shown = displayPath(io.cwd, out);
   const size = Buffer.byteLength(html, 'utf8');
   if (args.cli.json) io.stdout(`${JSON.stringify({ page: shown, bytes: size, nx, ny })}\n`);

@@ -12,7 +12,7 @@ import { ReportPanel } from './page/panel.js';
 import { PAGE_STYLE } from './page/style.js';
 import { LAYERS, PlanView, imageOf, ringsPath, type Scene } from './page/view.js';
 import { buildCommand, optionWords, settingsOf, withChanges, type OptionWords } from './shared/options.js';
-import { OUTPUT_SUFFIX, type Embedded, type FromWorker, type PicturesMessage, type ReportMessage, type ToWorker } from './shared/protocol.js';
+import { OUTPUT_SUFFIX, type Embedded, type FromWorker, type PicturesMessage, type ProgressMessage, type ReportMessage, type ToWorker } from './shared/protocol.js';
 
 type Files = { dxf: string; svg: string; json: string; html: string };
 
@@ -24,8 +24,10 @@ interface PreviewApi {
   files(): Promise<Files>;
 }
 
-/** Grids above this many samples show a progress bar over the view while a build runs. */
+/** Grids above this many samples show the progress bar as soon as a build starts; smaller ones after PROGRESS_DELAY. */
 const PROGRESS_CELLS = 200_000;
+/** Milliseconds a build runs before the progress bar shows on a small grid (a quick change shows no flicker). */
+const PROGRESS_DELAY = 300;
 
 function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Record<string, string> = {}, text = ''): HTMLElementTagNameMap[K] {
   const e = document.createElement(tag);
@@ -57,6 +59,7 @@ const main = el('main');
 const toolbar = el('div', { class: 'toolbar' });
 const layerBox = el('div', { class: 'layers' });
 for (const l of LAYERS) {
+  if (l.id === 'stress' && data.loads === null) continue;
   const id = `layer-${l.id}`;
   const cb = el('input', { type: 'checkbox', id });
   cb.checked = l.on;
@@ -78,16 +81,30 @@ function legend(): void {
     const lim = result?.report.settings.minMember;
     parts.push(`local thickness 0 … ${fmt(pics.m.thicknessMax, 3)} mm (purple → yellow)${typeof lim === 'number' ? `, red below ${fmt(lim)} mm` : ''}`);
   } else if (view.shown.thickness) parts.push('no thickness map for these settings');
+  if (view.shown.stress && pics?.m.stress) parts.push('stress: von Mises, MPa (scale below the view)');
+  else if (view.shown.stress && data.loads !== null && result && typeof result.report.settings.loads !== 'string') parts.push('no stress: the structural re-check is off');
   if (view.shown.outline) parts.push('blue: outline written (orange while the checks run)');
   if (view.shown.repair && pics?.repaired) parts.push('green: material the repair changed, dashed grey: outline before repair');
   if (view.shown.passive && pics?.m.passive) parts.push('purple: passive solid, dashed orange: passive void');
   key.textContent = parts.join(' · ');
+  showStressInfo();
+}
+/** The stress figure's colour bar and caption (the HTML report's), under the view while the stress layer shows. */
+function showStressInfo(): void {
+  const st = view.shown.stress ? pics?.m.stress ?? null : null;
+  stressInfo.hidden = st === null;
+  if (st === null || stressInfo.dataset.v === String(pics!.v)) return;
+  stressInfo.dataset.v = String(pics!.v);
+  stressInfo.innerHTML = `${st.legend}<p class="caption">${st.caption}</p>`; // the report module's HTML, escaped there
 }
 toolbar.append(layerBox, fitBtn);
 const stage = el('div', { class: 'stage' });
 const canvas = el('canvas', { id: 'view', 'aria-label': 'plan view of the part, report frame in mm' });
-const progress = el('div', { class: 'progress', id: 'progress', hidden: '' });
+const progress = el('div', { class: 'progress', id: 'progress', role: 'progressbar', 'aria-label': 'build progress', 'aria-valuemin': '0', hidden: '' });
+const progressBar = el('div', { class: 'bar' });
+progress.append(progressBar);
 const readout = el('div', { class: 'readout', id: 'readout' }, 'drag to pan · wheel to zoom · double-click to fit');
+const stressInfo = el('div', { class: 'stress-info', id: 'stress-info', hidden: '' });
 stage.append(canvas, progress);
 const side = el('section', { class: 'side' });
 const cmdBox = el('div', { class: 'cmd' });
@@ -103,12 +120,12 @@ for (const f of ['dxf', 'svg', 'json', 'html'] as const) {
 }
 const panelHost = el('div', { id: 'report' });
 side.append(cmdBox, downloads, panelHost);
-main.append(toolbar, key, stage, readout, side);
+main.append(toolbar, key, stage, readout, stressInfo, side);
 document.body.append(top, aside, main);
 
 const view = new PlanView(canvas, readout);
 fitBtn.addEventListener('click', () => view.fit());
-const controls = new Controls(aside, data.passive !== null);
+const controls = new Controls(aside, data.passive !== null, data.loads !== null);
 const panel = new ReportPanel(panelHost);
 
 // ---- state
@@ -142,11 +159,39 @@ function setStatus(text: string, cls: string): void {
   status.className = `status ${cls}`;
 }
 
+let progressTimer: ReturnType<typeof setTimeout> | null = null;
+
 function busy(): void {
   const a = asked.get(version);
   if (!a) return;
   setStatus('updating…', 'busy');
+  progressBar.style.width = '0%';
+  progress.removeAttribute('aria-valuenow');
+  if (progressTimer !== null) clearTimeout(progressTimer);
+  progressTimer = null;
   if (data.cells > PROGRESS_CELLS) progress.hidden = false;
+  else progressTimer = setTimeout(() => (progress.hidden = false), PROGRESS_DELAY);
+}
+
+/** The newest request's build is over (its pictures are drawn, or it failed): the bar goes. */
+function idle(): void {
+  if (progressTimer !== null) clearTimeout(progressTimer);
+  progressTimer = null;
+  progress.hidden = true;
+}
+
+/** A stage of the newest request ended: the bar and the status line say how far it is. */
+function onProgress(m: ProgressMessage): void {
+  if (m.v !== version) return;
+  progress.setAttribute('aria-valuemax', String(m.total));
+  progress.setAttribute('aria-valuenow', String(m.done));
+  progress.setAttribute('aria-valuetext', `${m.done} of ${m.total} steps done (${m.stage})`);
+  progressBar.style.width = `${(100 * m.done) / m.total}%`;
+  document.body.dataset.progress = `${m.v}:${m.done}/${m.total}`;
+  if (!result || result.v < m.v) {
+    const what = m.phase === 're-check' && document.body.dataset.checks === String(m.v) ? 'checks updated · structural re-check' : m.phase;
+    setStatus(`${what}: ${m.done}/${m.total} steps done (${m.stage})…`, 'busy');
+  }
 }
 
 /** Sends the options as a build request; returns its version. Throws the CLI's UsageError on a bad value. */
@@ -164,9 +209,10 @@ function request(next: OptionWords, keys: readonly string[]): number {
 function change(changes: Change, keys: readonly string[]): Promise<Report> {
   const c: Record<string, unknown> = { ...changes };
   if (c.passive === 'embedded') c.passive = data.passive?.name ?? null;
+  if (c.loads === 'embedded') c.loads = data.loads?.name ?? null;
   let v: number;
   try {
-    v = request(withChanges(requested, c, result ? (result.report.settings as unknown as Record<string, unknown>) : null, data.passive?.name ?? null), keys);
+    v = request(withChanges(requested, c, result ? (result.report.settings as unknown as Record<string, unknown>) : null, data.passive?.name ?? null, data.loads?.name ?? null), keys);
   } catch (e) {
     const err = e instanceof RhoformError ? e : asError('E_INTERNAL', String(e));
     return Promise.reject(err);
@@ -196,6 +242,8 @@ function drawScene(): void {
     passive: pics.m.passive,
     findings: result ? numberFindings(result.report) : [],
     grid,
+    stress: pics.m.stress,
+    stressStale: fresh !== null || (result !== null && result.v > pics.v),
   });
 }
 
@@ -220,6 +268,7 @@ function onPictures(m: PicturesMessage): void {
   drawScene();
   if (!newest || m.v > newest.v) document.body.dataset.outline = String(m.v);
   document.body.dataset.pictures = String(m.v);
+  if (m.v === version) idle();
   legend();
   settle();
 }
@@ -232,13 +281,13 @@ function onReport(m: ReportMessage): void {
   if (m.outline) onOutline(m.v, ringsPath(m.outline));
   else drawScene();
   document.body.dataset.result = String(m.v);
+  document.body.dataset.checks = String(m.v);
   const r = m.report;
-  controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings as unknown as Record<string, unknown>, r.threshold, r.settings.passive !== null);
+  controls.show(settingsOf(data.file, words).given as Record<string, unknown>, r.settings as unknown as Record<string, unknown>, r.threshold, r.settings.passive !== null, typeof r.settings.loads === 'string');
   panel.show(m.reportHtml, r);
   cmd.textContent = buildCommand(data.file, words, data.outDir);
   const took = a ? performance.now() - a.at : m.ms;
   if (m.v === version) {
-    progress.hidden = true;
     const word = { pass: 'PASS', warn: 'WARN', fail: 'FAIL' }[r.summary.status];
     setStatus(`${word} · ${r.checks.length} checks: ${r.summary.pass} passed, ${r.summary.warn} warned, ${r.summary.fail} failed · updated in ${fmt(took, 3)} ms`, r.summary.status);
     status.title = Object.entries(m.timings).map(([k, t]) => `${k} ${Math.round(t)} ms`).join(', ');
@@ -276,7 +325,7 @@ function onError(v: number, code: string, message: string): void {
     controls.showError(k ? [...new Set([...a.keys, k])] : a.keys, `${code}: ${message}`);
   }
   if (v === version) {
-    progress.hidden = true;
+    idle();
     setStatus(`not updated: ${code}: ${message}`, 'fail');
   }
   for (let k = waiters.length - 1; k >= 0; k--) {
@@ -304,6 +353,14 @@ worker.onmessage = (e: MessageEvent<FromWorker>) => {
     onReport(m);
   } else if (m.t === 'pictures') {
     onPictures(m);
+  } else if (m.t === 'progress') {
+    onProgress(m);
+  } else if (m.t === 'checks') {
+    // the checks without the structural re-check, while it runs: shown, marked; the state moves on with the report
+    if (m.v !== version || (result && result.v >= m.v)) return;
+    panel.show(m.reportHtml, m.report, true);
+    document.body.dataset.checks = String(m.v);
+    setStatus('checks updated · structural re-check running…', 'busy');
   } else if (m.t === 'files') {
     filesWaiters.get(m.v)?.resolve(m.files);
     filesWaiters.delete(m.v);

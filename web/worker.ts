@@ -2,23 +2,31 @@
  * The preview page's worker: the library's own `build` (src/pipeline.ts) on the embedded grid, off the page's
  * thread, so the page never freezes. Each request gets two answers: the outline first (a build without the
  * size checks and repair, which is fast), then the full result with the checks, the report and the pictures.
- * Requests that arrive while a build runs are coalesced: only the newest is built.
+ * With a load case (`--loads`) a third comes between them: the checks without the structural re-check, so the
+ * re-check's solves (about half a second on the demo) hold back neither the outline nor the other checks.
+ * Requests that arrive while a build runs are coalesced: only the newest is built. As each stage of a build ends,
+ * the worker says so (a progress message: steps done of the steps this request runs).
  *
  * The files it hands back (dxf, svg, json, html) are what `rhoform build` writes with the same settings: the
  * same code, the same input bytes, the same passive file (DESIGN §13).
  */
 import { RhoformError } from '../src/errors.js';
 import { loadBooleanEngine } from '../src/geom/clipper.js';
+import { parseLoadsBytes } from '../src/loads/parse.js';
+import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
-import { build, type BuildResult } from '../src/pipeline.js';
+import { build, buildStageCount, type BuildResult } from '../src/pipeline.js';
+import { MAX_PICTURE_SIDE } from '../src/report/figures.js';
 import type { HtmlPictures } from '../src/report/html.js';
 import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
+import { stressFigure } from '../src/report/stress-figure.js';
+import { planFrame } from '../src/report/svg-figures.js';
 import { densityRaster, thicknessMax, thicknessRaster, type PlacedRaster } from '../src/report/raster.js';
 import type { Settings } from '../src/settings.js';
 import type { PolygonSet } from '../src/types.js';
-import { type Embedded, type FlatRings, type FromWorker, type PlacedRgba, type ToWorker } from './shared/protocol.js';
+import { type Embedded, type FlatRings, type FromWorker, type PlacedRgba, type ProgressMessage, type StressLayer, type ToWorker } from './shared/protocol.js';
 import { outputNames } from '../cli/output-names.js';
 
 interface WorkerScope {
@@ -34,6 +42,7 @@ const DENSITY_SIDE = 1600;
 let data: Embedded | null = null;
 let bytes: Uint8Array | null = null;
 let passive: PassiveRegions | null = null;
+let loads: LoadsSpec | null = null;
 let last: { v: number; result: BuildResult; pictures?: HtmlPictures } | null = null;
 let densityKey = '';
 let pending: { v: number; settings: Settings } | null = null;
@@ -122,10 +131,48 @@ function breathe(): Promise<void> {
   return new Promise((r) => setTimeout(r, 0));
 }
 
-/** The settings of the fast first answer: the same outline, without the size checks and repair. */
+/** The settings of the fast first answer: the same outline, without the size checks, repair and re-check. */
 function outlineOnly(s: Settings): Settings | null {
-  const heavy = s.repair.length > 0 || s.minMember !== null || s.minHole !== null || s.toolRadius !== null || s.process !== null;
-  return heavy ? { ...s, minMember: null, minHole: null, toolRadius: null, process: null, repair: [] } : null;
+  return heavyChecks(s) || s.loads !== null ? { ...s, minMember: null, minHole: null, toolRadius: null, process: null, repair: [], loads: null } : null;
+}
+
+/** Whether a build runs the size checks or repair (the slow part of a build without a load case). */
+function heavyChecks(s: Settings): boolean {
+  return s.repair.length > 0 || s.minMember !== null || s.minHole !== null || s.toolRadius !== null || s.process !== null;
+}
+
+/** Counts the steps of one request and reports each as it ends (ProgressMessage). */
+class Progress {
+  private done = 0;
+  constructor(
+    private readonly v: number,
+    private readonly total: number,
+  ) {}
+  step(phase: ProgressMessage['phase'], stage: string): void {
+    this.done = Math.min(this.total, this.done + 1);
+    post({ t: 'progress', v: this.v, phase, stage, done: this.done, total: this.total });
+  }
+  /** Skips the steps of a phase that did not run to its end (an error is reported by the build after it). */
+  skipTo(done: number): void {
+    this.done = Math.max(this.done, Math.min(this.total, done));
+  }
+}
+
+/** The stress figure of the re-check, as the HTML report draws it (report/figures.ts), for the stress layer. */
+function stressLayer(r: BuildResult, domain: readonly [number, number, number, number]): StressLayer | null {
+  if (r.structure === null) return null;
+  let f;
+  try {
+    f = planFrame(domain);
+  } catch {
+    return null; // an empty domain has no figure
+  }
+  const fig = stressFigure(r.structure, f, r.report.settings.allowableStress ?? null, MAX_PICTURE_SIDE);
+  if (fig === null) return null;
+  // the plan figure's viewBox without the band below the domain that holds the report's scale bar (the view has its own)
+  const m = f.margin;
+  const viewBox = `${-m} ${-m} ${f.w + 2 * m} ${f.h + 2 * m}`;
+  return { body: fig.body, viewBox, minX: f.minX, maxY: f.maxY, margin: f.margin, w: f.w, h: f.h, legend: fig.legend, caption: fig.caption };
 }
 
 function inputKey(s: Settings): string {
@@ -133,8 +180,12 @@ function inputKey(s: Settings): string {
   return JSON.stringify([cellSize, rowOrder, values, layout, valueRange, decimalComma, nonFinite, clip, mirror, p, tolerance]);
 }
 
-function runBuild(s: Settings): BuildResult {
-  const result = build({ name: data!.file, bytes: bytes! }, s, { passive: s.passive === null ? null : passive });
+function runBuild(s: Settings, progress: Progress, phase: ProgressMessage['phase']): BuildResult {
+  const result = build(
+    { name: data!.file, bytes: bytes! },
+    s,
+    { passive: s.passive === null ? null : passive, loads: s.loads === null ? null : loads, onStage: (stage) => progress.step(phase, stage) },
+  );
   // run figures to 0.01 ms, as the CLI writes them (they measure this run and differ between runs: docs/preview.md)
   for (const k of Object.keys(result.timings)) result.timings[k] = Math.round(result.timings[k] * 100) / 100;
   result.report.outputs = outputNames(data!.outputsBase, s.formats, s.annotations).map((p) => ({ file: p.path, format: p.format, ...(p.annotations ? { annotations: true as const } : {}) }));
@@ -142,23 +193,46 @@ function runBuild(s: Settings): BuildResult {
 }
 
 async function buildOne(v: number, s: Settings): Promise<void> {
-  const quick = outlineOnly(s);
+  const withLoads = s.loads !== null;
+  // with a load case: the checks first without the re-check; when they are light, that build gives the outline too
+  const pre = withLoads ? { ...s, loads: null } : null;
+  const quick = pre !== null && !heavyChecks(pre) ? null : outlineOnly(s);
+  const quickSteps = quick ? buildStageCount(quick, false) : 0;
+  const preSteps = pre ? buildStageCount(pre, false) : 0;
+  const progress = new Progress(v, quickSteps + preSteps + buildStageCount(s, withLoads) + 1);
   if (quick) {
     const t0 = performance.now();
     try {
-      const r = build({ name: data!.file, bytes: bytes! }, quick, { passive: s.passive === null ? null : passive });
+      const r = build({ name: data!.file, bytes: bytes! }, quick, { passive: s.passive === null ? null : passive, onStage: (stage) => progress.step('outline', stage) });
       const outline = flatten(r.smoothed.polygons);
       post({ t: 'outline', v, outline, ms: performance.now() - t0 }, [outline.coords.buffer as ArrayBuffer]);
     } catch {
       // the full build below reports the error with its own message
     }
+    progress.skipTo(quickSteps);
+    await breathe();
+    if (pending !== null && pending.v > v) return; // superseded
+  }
+  if (pre) {
+    const t0 = performance.now();
+    try {
+      const r = build({ name: data!.file, bytes: bytes! }, pre, { passive: s.passive === null ? null : passive, onStage: (stage) => progress.step('checks', stage) });
+      if (quick === null) {
+        const outline = flatten(r.smoothed.polygons);
+        post({ t: 'outline', v, outline, ms: performance.now() - t0 }, [outline.coords.buffer as ArrayBuffer]);
+      }
+      post({ t: 'checks', v, report: r.report, reportHtml: formatHtml(r.report), ms: performance.now() - t0 });
+    } catch {
+      // the full build below reports the error with its own message
+    }
+    progress.skipTo(quickSteps + preSteps);
     await breathe();
     if (pending !== null && pending.v > v) return; // superseded
   }
   const t0 = performance.now();
   let result: BuildResult;
   try {
-    result = runBuild(s);
+    result = runBuild(s, progress, withLoads ? 're-check' : 'checks');
   } catch (e) {
     fail(v, e);
     return;
@@ -203,9 +277,11 @@ async function buildOne(v: number, s: Settings): Promise<void> {
   const outline = flatten(pictures.polygons ?? { polygons: [] });
   const beforeRepair = pictures.beforeRepair ? flatten(pictures.beforeRepair) : null;
   const repaired = pictures.repaired ? flatten(pictures.repaired) : null;
+  const stress = stressLayer(result, pictures.domain ?? [0, 0, 0, 0]);
   const transfer = [outline, beforeRepair, repaired].flatMap((f) => (f ? [f.coords.buffer as ArrayBuffer] : []));
   for (const p of [density, thickness]) if (p) transfer.push(p.rgba.buffer as ArrayBuffer);
   if (grid) transfer.push(grid.values.buffer as ArrayBuffer);
+  progress.step(withLoads ? 're-check' : 'checks', 'pictures');
   post(
     {
       t: 'pictures',
@@ -219,6 +295,7 @@ async function buildOne(v: number, s: Settings): Promise<void> {
       thickness,
       thicknessMax: tmax,
       passive: s.passive === null ? null : passive,
+      stress,
       ms: performance.now() - tp,
     },
     transfer,
@@ -269,6 +346,7 @@ async function init(d: Embedded): Promise<void> {
   if (d.passive) {
     passive = parsePassiveBytes(decodeBase64(d.passive.bytes), d.passive.name);
   }
+  if (d.loads) loads = parseLoadsBytes(decodeBase64(d.loads.bytes), d.loads.name);
   post({ t: 'ready', ms: performance.now() - t0 });
 }
 

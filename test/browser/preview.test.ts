@@ -4,7 +4,8 @@
  * summary must change as they should; its files — from `window.rhoformPreview.files()` and from the download
  * buttons — must be byte for byte what `rhoform build` writes with the command line the page shows, for three
  * settings (the demo with its passive file and repair; the same after typed, selected and ticked changes; a
- * small grid with a fixed level, inch units and circles). The page must make no request but its own file and
+ * small grid with a fixed level, inch units and circles) and for the demo's load case (the structural re-check,
+ * its checks, its summary and its stress layer). The page must make no request but its own file and
  * its worker's Blob, and log no error. Update latencies are measured and printed (targets in docs/preview.md;
  * timing targets are not asserted in tests). Screenshots go to test-output/browser/.
  *
@@ -28,6 +29,7 @@ const OUT = fileURLToPath(new URL('../../test-output/browser/', import.meta.url)
 const DEMO = 'fixtures/grids/demo-bracket.npy';
 const PASSIVE = 'fixtures/passive/demo-bracket.passive.json';
 const SMALL = 'fixtures/grids/realistic-lbracket-60x60.npy';
+const LOADS = 'fixtures/loads/demo-bracket.loads.json';
 const VIEWPORT = { width: 1280, height: 900 };
 const SUFFIX = { dxf: '.dxf', svg: '.svg', json: '.report.json', html: '.report.html' } as const;
 type Files = Record<keyof typeof SUFFIX, string>;
@@ -68,9 +70,24 @@ function withoutRunFigures(text: string): string {
   return cut;
 }
 
+/**
+ * The structural re-check's solver times (`structure.designs.*.solver.seconds`, DESIGN §12) are run figures of the
+ * same kind: wall time of one solve, different between any two runs. Their values are masked; the key stays.
+ */
+function withoutSolverSeconds(text: string): string {
+  const designs = (text.match(/"solver": \{/g) ?? []).length;
+  let masked = 0;
+  const out = text.replace(/("solver": \{\n(?: {10}"[a-zA-Z]+": [^\n]+,\n)* {10}"seconds": )[0-9.e+-]+\n/g, (_, head: string) => {
+    masked++;
+    return `${head}(run figure)\n`;
+  });
+  expect(masked, 'every solver time is masked, nothing else').toBe(designs);
+  return out;
+}
+
 /** A file as compared: the JSON report without its run figures, the others whole. */
 function comparable(f: keyof Files, text: string): string {
-  return f === 'json' ? withoutRunFigures(text) : text;
+  return f === 'json' ? withoutSolverSeconds(withoutRunFigures(text)) : text;
 }
 
 /** The first differing position of two texts, with some context (for a readable failure). */
@@ -92,7 +109,7 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
   let page: Page;
   let log: PageLog;
   const pages: string[] = [];
-  const latency = { outline: [] as number[], checks: [] as number[], checksRepair: [] as number[] };
+  const latency = { outline: [] as number[], checks: [] as number[], checksRepair: [] as number[], loadsOutline: [] as number[], loadsChecks: [] as number[], loadsRecheck: [] as number[] };
 
   const report = () => page.evaluate('window.rhoformPreview.report()') as Promise<Report>;
   const files = (p: Page = page) => p.evaluate('window.rhoformPreview.files()') as Promise<Files>;
@@ -135,12 +152,13 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     for (const argv of [
       ['preview', DEMO, '--cell-size', '2', '--process', 'waterjet-cut', '--thickness', '8', '--passive', PASSIVE, '--repair', '--out-dir', join(dir, 'demo')],
       ['preview', SMALL, '--cell-size', '1.5', '--level', '0.5', '--smooth', '0', '--units', 'in', '--circles', '--out-dir', join(dir, 'small')],
+      ['preview', DEMO, '--cell-size', '2', '--process', 'waterjet-cut', '--thickness', '8', '--passive', PASSIVE, '--loads', LOADS, '--out-dir', join(dir, 'loads')],
     ]) {
       const r = cli(argv, ROOT);
       expect(r.stderr).toBe('');
       expect(r.code).toBe(0);
     }
-    pages.push(join(dir, 'demo', 'demo-bracket.preview.html'), join(dir, 'small', 'realistic-lbracket-60x60.preview.html'));
+    pages.push(join(dir, 'demo', 'demo-bracket.preview.html'), join(dir, 'small', 'realistic-lbracket-60x60.preview.html'), join(dir, 'loads', 'demo-bracket.preview.html'));
     mkdirSync(OUT, { recursive: true });
     browser = await launchChromium();
     context = await browser.newContext({ viewport: VIEWPORT, acceptDownloads: true });
@@ -158,6 +176,14 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
         `preview latency on the demo grid (120×60), ms — new outline: median ${median(latency.outline).toFixed(0)} ` +
           `(${latency.outline.map((x) => x.toFixed(0)).join(', ')}); new checks without repair: median ${median(latency.checks).toFixed(0)} ` +
           `(${latency.checks.map((x) => x.toFixed(0)).join(', ')}); with repair: ${latency.checksRepair.map((x) => x.toFixed(0)).join(', ')}`,
+      );
+    }
+    if (latency.loadsChecks.length > 0) {
+      console.log(
+        `preview latency with the demo's load case (--loads, structural re-check), ms — new outline: median ${median(latency.loadsOutline).toFixed(0)} ` +
+          `(${latency.loadsOutline.map((x) => x.toFixed(0)).join(', ')}); new checks (before the re-check): median ${median(latency.loadsChecks).toFixed(0)} ` +
+          `(${latency.loadsChecks.map((x) => x.toFixed(0)).join(', ')}); with the re-check: median ${median(latency.loadsRecheck).toFixed(0)} ` +
+          `(${latency.loadsRecheck.map((x) => x.toFixed(0)).join(', ')})`,
       );
     }
   }, 60_000);
@@ -256,6 +282,44 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     const cliFiles = buildAsShown(cmd);
     const got = await files();
     for (const f of Object.keys(SUFFIX) as (keyof Files)[]) expect(comparable(f, got[f]) === comparable(f, cliFiles[f]), `${f}: ${firstDiff(comparable(f, got[f]), comparable(f, cliFiles[f]))}`).toBe(true);
+  });
+
+  it('a build reports its progress step by step, and the last result stays shown until the new one is ready', async () => {
+    await settled();
+    const v = await resultVersion();
+    const rows0 = await page.locator('#report table.checks tbody tr').count();
+    expect(rows0).toBeGreaterThan(0);
+    // every change of the progress bar, with what the page showed at that moment
+    await page.evaluate(`(() => {
+      const bar = document.querySelector('#progress');
+      const rows = () => document.querySelector('#report').shadowRoot.querySelectorAll('table.checks tbody tr').length;
+      window.__progress = [];
+      new MutationObserver(() => {
+        window.__progress.push({ done: Number(bar.getAttribute('aria-valuenow')), total: Number(bar.getAttribute('aria-valuemax')),
+          shown: !bar.hidden, result: Number(document.body.dataset.result), rows: rows() });
+      }).observe(bar, { attributes: true });
+    })()`);
+    await page.selectOption('#ctl-saddle', 'split'); // a build with three repairs: several seconds
+    await nextResult(v);
+    await settled();
+    type Step = { done: number; total: number; shown: boolean; result: number; rows: number };
+    const steps = ((await page.evaluate('window.__progress')) as Step[]).filter((x) => x.done > 0);
+    // outline build (7 stages) + full build with repair (9: read … report, with repair and its second checks) + pictures
+    expect(steps.length).toBeGreaterThan(3);
+    const total = steps[0].total;
+    expect(total).toBe(7 + 9 + 1);
+    expect(steps.every((x) => x.total === total)).toBe(true);
+    for (let k = 1; k < steps.length; k++) expect(steps[k].done).toBeGreaterThanOrEqual(steps[k - 1].done);
+    expect(steps.at(-1)!.done).toBe(total);
+    // the bar showed (a build over 300 ms), and until the new report came the old one stayed: same version, same table
+    expect(steps.some((x) => x.shown)).toBe(true);
+    const before = steps.filter((x) => x.result === v);
+    expect(before.length).toBeGreaterThan(0);
+    expect(before.every((x) => x.rows === rows0)).toBe(true);
+    expect(await page.isHidden('#progress')).toBe(true);
+    expect((await report()).settings.saddle).toBe('split');
+    await page.selectOption('#ctl-saddle', 'join');
+    await nextResult(await resultVersion());
   });
 
   it('dragging the volume target moves the outline: more material, a lower level, a larger area', async () => {
@@ -369,6 +433,121 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     for (const f of Object.keys(SUFFIX) as (keyof Files)[]) expect(comparable(f, got[f]) === comparable(f, cliFiles[f]), `${f}: ${firstDiff(comparable(f, got[f]), comparable(f, cliFiles[f]))}`).toBe(true);
     await small.screenshot({ path: join(OUT, 'preview-small.png') });
     await small.close();
+  });
+
+  it("setting 4 (the demo's load case, --loads): the re-check's checks, summary and stress layer; a limit typed changes the result; files byte-identical", async () => {
+    const lp = await context.newPage();
+    await lp.goto(pathToFileURL(pages[2]).href, { waitUntil: 'load' });
+    await lp.evaluate('window.rhoformPreview.ready');
+    const rep = () => lp.evaluate('window.rhoformPreview.report()') as Promise<Report>;
+    const settledHere = () =>
+      lp.waitForFunction(`document.body.dataset.pictures === document.body.dataset.result && document.querySelector('#status').className.indexOf('busy') < 0`, null, { timeout: 60_000 });
+    await settledHere();
+    let r = await rep();
+    expect(r.settings.loads).toBe(LOADS);
+    expect(r.structure?.loadsFile).toBe(LOADS);
+    expect(r.checks.map((c) => c.id)).toEqual(expect.arrayContaining(['stiffness-change', 'load-path']));
+    expect(await command(lp)).toBe(`rhoform build ${DEMO} --cell-size 2 --passive ${PASSIVE} --loads ${LOADS} --process waterjet-cut --thickness 8 --out-dir ${join(dir, 'loads')}`);
+    // the same summary, check table and stress caption as the HTML report rhoform build writes
+    let cliFiles = buildAsShown(await command(lp));
+    const reportPage = await context.newPage();
+    const shown = async (p: Page, caption: string) => ({
+      result: await p.locator('.result').innerText(),
+      checks: await p.locator('table.checks').innerText(),
+      caption: (await p.locator(caption).innerText()).replace(/^Figure \d+\. /, ''),
+    });
+    await reportPage.setContent(cliFiles.html, { waitUntil: 'load' });
+    expect(await shown(lp, '#stress-info .caption')).toEqual(await shown(reportPage, '#fig-stress figcaption'));
+    expect(await lp.locator('#report pre.structure').innerText()).toContain(`Structural re-check (--loads ${LOADS}; plane stress, E 70000 MPa`);
+    let got = await files(lp);
+    for (const f of Object.keys(SUFFIX) as (keyof Files)[]) expect(comparable(f, got[f]) === comparable(f, cliFiles[f]), `${f}: ${firstDiff(comparable(f, got[f]), comparable(f, cliFiles[f]))}`).toBe(true);
+    await lp.screenshot({ path: join(OUT, 'preview-stress.png') });
+
+    // the stress layer hides and shows again
+    const view = () => lp.locator('#view').screenshot();
+    const base = await view();
+    expect(await lp.isVisible('#stress-layer')).toBe(true);
+    await lp.click('#layer-stress');
+    expect(await lp.isHidden('#stress-layer')).toBe(true);
+    expect(await lp.isHidden('#stress-info')).toBe(true);
+    expect((await view()).equals(base)).toBe(false);
+    await lp.click('#layer-stress');
+    expect(await lp.isVisible('#stress-layer')).toBe(true);
+    expect((await view()).equals(base)).toBe(true);
+
+    // an allowable stress below the peak: peak-stress appears and fails, the summary and the command line follow
+    const peak = r.structure!.designs.final.peakStress!.value;
+    const allowable = String(Math.floor(peak / 2));
+    let v = Number(await lp.evaluate('document.body.dataset.result'));
+    await lp.fill('#ctl-allowableStress', allowable);
+    await lp.press('#ctl-allowableStress', 'Enter');
+    await lp.waitForFunction(`Number(document.body.dataset.result) > ${v}`, null, { timeout: 60_000 });
+    await settledHere();
+    r = await rep();
+    const ps = r.checks.find((c) => c.id === 'peak-stress')!;
+    expect(ps.status).toBe('fail');
+    expect(ps.limit).toBe(Number(allowable));
+    expect(r.summary.status).toBe('fail');
+    expect(await lp.locator('#report .result').innerText()).toContain(`${r.summary.fail} failed`);
+    expect(await command(lp)).toContain(`--loads ${LOADS} `);
+    expect(await command(lp)).toContain(` --allowable-stress ${allowable} `);
+    expect(await lp.locator('#stress-info').innerText()).toContain(`allowable ${allowable} MPa`);
+    cliFiles = buildAsShown(await command(lp));
+    got = await files(lp);
+    for (const f of Object.keys(SUFFIX) as (keyof Files)[]) expect(comparable(f, got[f]) === comparable(f, cliFiles[f]), `${f}: ${firstDiff(comparable(f, got[f]), comparable(f, cliFiles[f]))}`).toBe(true);
+
+    // the volume target moves the outline and so the stiffness change (measured latencies printed at the end)
+    for (const target of ['0.30', '0.42', '0.36']) {
+      v = Number(await lp.evaluate('document.body.dataset.result'));
+      const before = (await rep()).checks.find((c) => c.id === 'stiffness-change')!.measured;
+      await lp.evaluate(`(() => {
+        const t = (window.__lat = { at: performance.now(), outline: null, checks: null, result: null, waiting: false });
+        const o0 = document.body.dataset.outline, c0 = document.body.dataset.checks, r0 = document.body.dataset.result;
+        new MutationObserver((_, obs) => {
+          const now = performance.now();
+          if (t.outline === null && document.body.dataset.outline !== o0) t.outline = now;
+          if (t.checks === null && document.body.dataset.checks !== c0) {
+            t.checks = now;
+            t.waiting = document.querySelector('#report').shadowRoot.querySelector('#waiting') !== null;
+          }
+          if (t.result === null && document.body.dataset.result !== r0) { t.result = now; obs.disconnect(); }
+        }).observe(document.body, { attributes: true });
+      })()`);
+      await lp.fill('#ctl-volumeFraction', target);
+      await lp.press('#ctl-volumeFraction', 'Enter');
+      await lp.waitForFunction(`Number(document.body.dataset.result) > ${v}`, null, { timeout: 60_000 });
+      const t = (await lp.evaluate('window.__lat')) as { at: number; outline: number; checks: number; result: number; waiting: boolean };
+      latency.loadsOutline.push(t.outline - t.at);
+      latency.loadsChecks.push(t.checks - t.at);
+      latency.loadsRecheck.push(t.result - t.at);
+      // the checks came before the re-check, marked as waiting for it (unless the full result came at once)
+      expect(t.checks).toBeLessThanOrEqual(t.result);
+      if (t.checks < t.result) expect(t.waiting).toBe(true);
+      expect(await lp.locator('#report #waiting').count()).toBe(0);
+      expect((await rep()).checks.find((c) => c.id === 'stiffness-change')!.measured).not.toBe(before);
+    }
+
+    // the re-check off: no structure, no stress layer, no --loads; on again: back
+    v = Number(await lp.evaluate('document.body.dataset.result'));
+    await lp.click('#ctl-loads');
+    await lp.waitForFunction(`Number(document.body.dataset.result) > ${v}`, null, { timeout: 60_000 });
+    await settledHere();
+    r = await rep();
+    expect(r.structure).toBeUndefined();
+    expect(r.checks.map((c) => c.id)).not.toContain('stiffness-change');
+    expect(await command(lp)).not.toContain('--loads');
+    expect(await command(lp)).not.toContain('--allowable-stress');
+    expect(await lp.isHidden('#stress-layer')).toBe(true);
+    expect(await lp.isChecked('#ctl-loads')).toBe(false);
+    expect(await lp.isDisabled('#ctl-allowableStress')).toBe(true);
+    v = Number(await lp.evaluate('document.body.dataset.result'));
+    await lp.click('#ctl-loads');
+    await lp.waitForFunction(`Number(document.body.dataset.result) > ${v}`, null, { timeout: 60_000 });
+    await settledHere();
+    expect((await rep()).structure?.loadsFile).toBe(LOADS);
+    expect(await lp.isVisible('#stress-layer')).toBe(true);
+    await reportPage.close();
+    await lp.close();
   });
 
   it('made no request but the pages and their workers, and logged no error', () => {

@@ -23,6 +23,7 @@ import { cli } from '../cli/harness.js';
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const DEMO = 'fixtures/grids/demo-bracket.npy';
 const PASSIVE = 'fixtures/passive/demo-bracket.passive.json';
+const LOADS = 'fixtures/loads/demo-bracket.loads.json';
 
 /** The JSON the page embeds. */
 function embedded(html: string): Embedded {
@@ -109,11 +110,25 @@ describe('rhoform preview (command line)', () => {
     expect(p2.code).toBe(2);
     expect(p2.stderr).toBe(b2.stderr);
     expect(existsSync(join(dir, 'd'))).toBe(false);
-    // not yet in the page: a loads file is refused by name, nothing written
+    // a loads file is read and parsed as build reads it: a missing or bad one is refused the same way, nothing written
     const p3 = cli(['preview', DEMO, '--loads', 'any.json', '--out-dir', join(dir, 'e')], ROOT);
+    const b3 = cli(['build', DEMO, '--loads', 'any.json', '--out-dir', join(dir, 'e')], ROOT);
     expect(p3.code).toBe(2);
-    expect(p3.stderr).toContain('E_USAGE: --loads: the preview page does not embed a loads file yet');
+    expect(p3.stderr).toBe(b3.stderr);
     expect(existsSync(join(dir, 'e'))).toBe(false);
+  });
+
+  it('embeds the loads file byte for byte (--loads), with the structure options as the starting state', () => {
+    const out = join(dir, 'f');
+    const argv = ['preview', DEMO, '--cell-size', '2', '--loads', LOADS, '--allowable-stress', '30', '--max-stiffness-loss', '5', '--out-dir', out];
+    const r = cli(argv, ROOT);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const d = embedded(readFileSync(join(out, 'demo-bracket.preview.html'), 'utf8'));
+    expect(Buffer.from(d.loads!.bytes, 'base64')).toEqual(readFileSync(join(ROOT, LOADS)));
+    expect(d.loads!.name).toBe(LOADS);
+    expect(d.given).toEqual(parseArgs(argv).settings);
+    expect(d.given).toMatchObject({ loads: LOADS, allowableStress: 30, maxStiffnessLoss: 5 });
   });
 });
 
@@ -124,6 +139,7 @@ describe('the page state as command-line words (web/shared/options.ts)', () => {
     ['--field', 'density', '--image-solid', 'light', '--image-channel', 'g'],
     ['--level', '0.3', '--saddle', 'split', '--smooth', '0', '--tolerance', '0.1', '--mirror', 'left', '--mirror', 'top', '--circles'],
     ['--min-member', '2.5', '--min-hole', '3', '--tool-radius', '1e-1', '--min-island-area', '4', '--min-hole-area', '5', '--grey-warn', '30'],
+    ['--loads', LOADS, '--max-stiffness-loss', '12.5', '--allowable-stress', '40', '--fe-max-elements', '20000'],
     ['--severity', 'islands=fail', '--severity', 'grey-level=off', '--fail-on', 'warn', '--repair=fill-holes,thicken', '--formats', 'dxf,json', '--units', 'in'],
   ];
   it.each(argvs)('round-trips %s…: the words parse back to the same settings', (...argv) => {
@@ -140,6 +156,8 @@ describe('the page state as command-line words (web/shared/options.ts)', () => {
     expect(buildCommand(DEMO, next, null)).toBe(`rhoform build ${DEMO} --cell-size 2 --level 0.4`);
     expect(() => withChanges(words, { cellSizeDefaulted: false }, current, null)).toThrow(/no command-line option/);
     expect(() => withChanges(words, { passive: 'other.json' }, current, null)).toThrow(/embeds no passive-region file/);
+    expect(() => withChanges(words, { loads: 'other.json' }, current, null, LOADS)).toThrow(/embeds only/);
+    expect(withChanges(words, { loads: LOADS }, current, null, LOADS).get('loads')).toEqual(['--loads', LOADS]);
     expect(buildCommand('my grid.npy', next, 'out dir')).toBe("rhoform build 'my grid.npy' --cell-size 2 --level 0.4 --out-dir 'out dir'");
   });
 });

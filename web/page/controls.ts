@@ -50,6 +50,15 @@ const GROUPS: readonly { title: string; specs: readonly Spec[] }[] = [
     ],
   },
   {
+    title: 'Structure',
+    specs: [
+      { key: 'loads', kind: 'check', label: 'structural re-check', help: '--loads (the embedded load case)' },
+      { key: 'maxStiffnessLoss', kind: 'text', label: 'max stiffness loss', unit: '%', help: '--max-stiffness-loss; compliance increase over the input design' },
+      { key: 'allowableStress', kind: 'text', label: 'allowable stress', unit: 'MPa', help: '--allowable-stress; empty: peak-stress off' },
+      { key: 'feMaxElements', kind: 'text', label: 'max elements', unit: '', help: '--fe-max-elements; above it the grid is coarsened' },
+    ],
+  },
+  {
     title: 'Repair',
     specs: REPAIR_IDS.map((id) => ({ key: `repair:${id}`, kind: 'check' as const, label: id, help: `--repair=${id}` })),
   },
@@ -58,6 +67,9 @@ const GROUPS: readonly { title: string; specs: readonly Spec[] }[] = [
     specs: [{ key: 'units', kind: 'select', label: 'DXF/SVG units', options: ['mm', 'in'], help: '--units' }],
   },
 ];
+
+/** The settings of the structural re-check beside `loads`: they apply only with it (the CLI refuses them without). */
+const STRUCTURE_KEYS = ['maxStiffnessLoss', 'allowableStress', 'feMaxElements'] as const;
 
 /** One control on the page. */
 interface Control {
@@ -79,8 +91,9 @@ export class Controls {
   /** Called with a change (keys as in report.settings; text as typed). */
   onChange: (change: Change, keys: readonly string[]) => void = () => {};
 
-  constructor(host: HTMLElement, hasPassive: boolean) {
+  constructor(host: HTMLElement, hasPassive: boolean, hasLoads: boolean) {
     for (const g of GROUPS) {
+      if (g.title === 'Structure' && !hasLoads) continue;
       const fs = el('fieldset');
       fs.append(el('legend', {}, g.title));
       for (const spec of g.specs) {
@@ -152,8 +165,10 @@ export class Controls {
       const t = c.input.value;
       value = t.trim() === '' ? null : t;
     }
-    if (spec.key === 'passive') value = value ? 'embedded' : null;
+    if (spec.key === 'passive' || spec.key === 'loads') value = value ? 'embedded' : null;
     const change: Change = { [spec.key]: value };
+    // the re-check's limits go with it (the command line refuses them without --loads)
+    if (spec.key === 'loads' && value === null) for (const k of STRUCTURE_KEYS) change[k] = null;
     // a fixed level replaces the volume search and the other way round
     if (spec.key === 'level' && value !== null) change.volumeFraction = null;
     if (spec.key === 'volumeFraction') change.level = null;
@@ -208,7 +223,13 @@ export class Controls {
    * Shows the state: `given` (the options set, as the parser returned them) and `resolved` (report.settings,
    * for placeholders). A control with an error keeps what the user typed.
    */
-  show(given: Record<string, unknown>, resolved: Record<string, unknown>, threshold: { level: number | null; targetFraction: number }, passiveOn: boolean): void {
+  show(
+    given: Record<string, unknown>,
+    resolved: Record<string, unknown>,
+    threshold: { level: number | null; targetFraction: number },
+    passiveOn: boolean,
+    loadsOn: boolean,
+  ): void {
     for (const [key, c] of this.controls) {
       if (this.hasError(key)) continue;
       const focused = document.activeElement === c.input;
@@ -216,10 +237,11 @@ export class Controls {
         (c.input as HTMLInputElement).checked = ((resolved.repair as string[]) ?? []).includes(key.slice(7));
         continue;
       }
-      if (key === 'passive') {
-        (c.input as HTMLInputElement).checked = passiveOn;
+      if (key === 'passive' || key === 'loads') {
+        (c.input as HTMLInputElement).checked = key === 'passive' ? passiveOn : loadsOn;
         continue;
       }
+      if ((STRUCTURE_KEYS as readonly string[]).includes(key)) (c.input as HTMLInputElement).disabled = !loadsOn;
       if (c.spec.kind === 'check') {
         (c.input as HTMLInputElement).checked = resolved[key] === true;
         continue;

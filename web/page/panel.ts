@@ -1,9 +1,11 @@
 /**
  * The report panel: the summary, check table, findings and repairs exactly as the HTML report shows them —
  * taken from the report module's own output (formatHtml, no pictures), in a shadow root with the report's
- * style sheet — plus the cautions. A click on a finding row zooms the view to it.
+ * style sheet — plus, with `--loads`, the structural re-check's block as the command line prints it
+ * (report/structure-text.ts), and the cautions. A click on a finding row zooms the view to it.
  */
 import { PAGE_CSS } from '../../src/report/page-style.js';
+import { structureLines } from '../../src/report/structure-text.js';
 import type { Report } from '../../src/types.js';
 
 /** Adjustments for the report's sections inside a panel rather than a page of their own. */
@@ -16,6 +18,8 @@ h2{margin:1rem 0 .4rem}
 table.findings tbody tr{cursor:pointer}
 table.findings tr.sel{background:#fff3c4}
 .cautions{margin:.8rem 0}
+.waiting{margin:.2rem 0 .4rem;padding:.3rem .6rem;background:#fff6dd;border-left:3px solid #e0a800;font-size:.85rem}
+pre.structure{font:12px/1.45 ui-monospace,Menlo,Consolas,monospace;background:#f6f8fa;border:1px solid var(--rule);padding:.5rem .7rem;overflow:auto;white-space:pre}
 `;
 
 export class ReportPanel {
@@ -46,10 +50,20 @@ export class ReportPanel {
     });
   }
 
-  /** Shows the sections of `html` (formatHtml of `report`). */
-  show(html: string, _report: Report): void {
+  /**
+   * Shows the sections of `html` (formatHtml of `report`). `waiting`: the report of a build without the structural
+   * re-check, shown while the re-check runs, under a note saying so.
+   */
+  show(html: string, report: Report, waiting = false): void {
     const doc = new DOMParser().parseFromString(html, 'text/html');
     const out: Node[] = [];
+    if (waiting) {
+      const p = doc.createElement('p');
+      p.className = 'waiting';
+      p.id = 'waiting';
+      p.textContent = 'Structural re-check running: these are the checks without it; stiffness-change, peak-stress and load-path, and the summary with them, follow.';
+      out.push(p);
+    }
     const header = doc.querySelector('header');
     if (header) out.push(header);
     // from the checks heading up to the details block: checks, findings, repairs
@@ -57,6 +71,16 @@ export class ReportPanel {
     while (n && !n.classList.contains('cols')) {
       out.push(n);
       n = n.nextElementSibling;
+    }
+    const lines = structureLines(report);
+    if (lines.length > 0) {
+      const h = doc.createElement('h2');
+      h.id = 'structure';
+      h.textContent = 'Structural re-check';
+      const pre = doc.createElement('pre');
+      pre.className = 'structure';
+      pre.textContent = lines.join('\n');
+      out.push(h, pre);
     }
     const cautions = doc.querySelector('section.cautions');
     if (cautions) out.push(cautions);

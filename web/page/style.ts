@@ -35,12 +35,23 @@ button:hover{background:#eef3fb}
 .sw-outline{background:rgba(11,92,192,.25);border:1.5px solid #0b5cc0}.sw-repair{background:rgba(20,150,60,.55)}
 .sw-passive{border:1.5px solid #6a2c91}.sw-findings{border:2px solid #d01c1c;border-radius:50%}
 .legend{flex:0 0 auto;font-size:.78rem;color:var(--muted);padding:.15rem .7rem;min-height:1.3em}
-.stage{position:relative;flex:0 0 auto;height:52vh;min-height:260px}
-canvas#view{display:block;width:100%;height:100%;cursor:grab;touch-action:none}
+.stage{position:relative;flex:0 0 auto;height:52vh;min-height:260px;overflow:hidden}
+canvas#view{position:relative;display:block;width:100%;height:100%;cursor:grab;touch-action:none}
+.plane{position:absolute;left:0;top:0;pointer-events:none}
+canvas.plane{width:100%;height:100%}
+svg.stress{overflow:visible}
+svg.stress .domain{fill:none;stroke:none}
+svg.stress .raster{image-rendering:pixelated}
+.sw-stress{background:linear-gradient(90deg,#2c3e9e,#8cd14f,#fdc02f,#c61a1a)}
+.stress-info{flex:0 0 auto;padding:.2rem .7rem .3rem;border-bottom:1px solid var(--rule);font-size:.8rem;color:var(--muted)}
+.stress-info svg.legend{display:block;width:100%;max-width:680px;height:auto;font-size:12px}
+.stress-info .legend .axis{stroke:var(--ink);fill:none}.stress-info .legend .tick{fill:var(--muted)}
+.stress-info .legend .label,.stress-info .legend .note{fill:var(--ink)}.stress-info .legend .frame{fill:none;stroke:#6b7480}
+.stress-info .legend .limit{stroke:var(--ink);stroke-width:2}
+.stress-info .caption{margin:.2rem 0 0;max-width:80rem}
 canvas#view.dragging{cursor:grabbing}
-.progress{position:absolute;left:0;right:0;top:0;height:3px;overflow:hidden;background:rgba(11,92,192,.15)}
-.progress::after{content:"";position:absolute;top:0;bottom:0;width:30%;background:var(--ol);animation:slide 1.1s ease-in-out infinite}
-@keyframes slide{from{left:-30%}to{left:100%}}
+.progress{position:absolute;left:0;right:0;top:0;height:4px;overflow:hidden;background:rgba(11,92,192,.15);z-index:1}
+.progress .bar{height:100%;width:0;background:var(--ol);transition:width .15s linear}
 .readout{flex:0 0 auto;font:12px ui-monospace,Menlo,Consolas,monospace;color:var(--muted);padding:.2rem .7rem;border-top:1px solid var(--rule);border-bottom:1px solid var(--rule);white-space:nowrap;overflow:hidden;text-overflow:ellipsis}
 .side{padding:.5rem .9rem 1.5rem}
 .cmd,.downloads{display:flex;align-items:center;gap:.5rem;margin:.3rem 0;flex-wrap:wrap}

@@ -1,19 +1,24 @@
 /**
- * The plan view of the preview page: one canvas in report-frame millimetres (y up, origin at the lower-left
- * corner of the grid) with layers — density, local thickness, outline (and the outline before repair and the
- * material repair changed), passive regions, numbered findings — pan (drag), zoom (wheel, about the cursor),
- * fit, a scale bar, and the cursor's coordinates with the grid cell under it.
+ * The plan view of the preview page in report-frame millimetres (y up, origin at the lower-left corner of the
+ * grid) with layers — density, local thickness, the stress figure of the structural re-check, outline (and the
+ * outline before repair and the material repair changed), passive regions, numbered findings — pan (drag), zoom
+ * (wheel, about the cursor), fit, a scale bar, and the cursor's coordinates with the grid cell under it.
+ *
+ * Three planes, bottom to top: a canvas with the pictures (density, thickness), the stress figure as the HTML
+ * report draws it (its own SVG, placed and scaled with the view, so its lines stay sharp at any zoom), and the
+ * canvas that takes the pointer, with the outlines, passive regions, findings and scale bar.
  */
 import type { NumberedFinding } from '../../src/check/findings.js';
 import { fmt } from '../../src/report/number.js';
 import type { PassiveRegions } from '../../src/passive/types.js';
-import type { FlatRings, GridView, PlacedRgba } from '../shared/protocol.js';
+import type { FlatRings, GridView, PlacedRgba, StressLayer } from '../shared/protocol.js';
 
-export type LayerId = 'density' | 'thickness' | 'outline' | 'repair' | 'passive' | 'findings';
+export type LayerId = 'density' | 'thickness' | 'stress' | 'outline' | 'repair' | 'passive' | 'findings';
 
 export const LAYERS: readonly { id: LayerId; label: string; on: boolean }[] = [
   { id: 'density', label: 'density', on: true },
   { id: 'thickness', label: 'thickness map', on: false },
+  { id: 'stress', label: 'stress (re-check)', on: true },
   { id: 'outline', label: 'outline', on: true },
   { id: 'repair', label: 'repair changes', on: true },
   { id: 'passive', label: 'passive regions', on: true },
@@ -33,7 +38,13 @@ export interface Scene {
   passive: PassiveRegions | null;
   findings: readonly NumberedFinding[];
   grid: GridView | null;
+  /** The stress figure of the structural re-check (`--loads`), or null. */
+  stress: StressLayer | null;
+  /** True while the stress figure belongs to an older result than the outline shown (drawn faded). */
+  stressStale: boolean;
 }
+
+const SVG_NS = 'http://www.w3.org/2000/svg';
 
 /** A Path2D of rings in mm (drawn under the view transform). */
 export function ringsPath(f: FlatRings): Path2D {
@@ -66,6 +77,11 @@ function niceBelow(x: number): number {
 
 export class PlanView {
   readonly canvas: HTMLCanvasElement;
+  /** The pictures' plane, under the stress figure. */
+  private readonly back: HTMLCanvasElement;
+  /** The stress figure's plane. */
+  private readonly stressSvg: SVGSVGElement;
+  private stressShown: StressLayer | null = null;
   readonly readout: HTMLElement;
   scene: Scene | null = null;
   readonly shown: Record<LayerId, boolean>;
@@ -81,6 +97,16 @@ export class PlanView {
     this.canvas = canvas;
     this.readout = readout;
     this.shown = Object.fromEntries(LAYERS.map((l) => [l.id, l.on])) as Record<LayerId, boolean>;
+    this.back = document.createElement('canvas');
+    this.back.className = 'plane';
+    this.back.setAttribute('aria-hidden', 'true');
+    this.stressSvg = document.createElementNS(SVG_NS, 'svg');
+    this.stressSvg.setAttribute('class', 'plane stress');
+    this.stressSvg.setAttribute('id', 'stress-layer');
+    this.stressSvg.setAttribute('preserveAspectRatio', 'none');
+    this.stressSvg.setAttribute('role', 'img');
+    this.stressSvg.setAttribute('aria-label', 'von Mises stress of the final geometry with supports, loads and the deformed outline');
+    canvas.before(this.back, this.stressSvg);
     canvas.addEventListener('wheel', (e) => this.wheel(e), { passive: false });
     canvas.addEventListener('pointerdown', (e) => {
       this.drag = { x: e.clientX, y: e.clientY, ox: this.ox, oy: this.oy };
@@ -201,46 +227,81 @@ export class PlanView {
     this.readout.textContent = text;
   }
 
-  draw(): void {
-    const c = this.canvas;
-    const dpr = window.devicePixelRatio || 1;
-    const w = c.clientWidth;
-    const h = c.clientHeight;
+  /** Sizes a canvas to its box in device pixels; returns its context, cleared, and the box in CSS px. */
+  private plane(c: HTMLCanvasElement, dpr: number): { g: CanvasRenderingContext2D; w: number; h: number } {
+    const w = this.canvas.clientWidth;
+    const h = this.canvas.clientHeight;
     if (c.width !== Math.round(w * dpr) || c.height !== Math.round(h * dpr)) {
       c.width = Math.round(w * dpr);
       c.height = Math.round(h * dpr);
     }
     const g = c.getContext('2d')!;
     g.setTransform(1, 0, 0, 1, 0, 0);
-    g.fillStyle = '#f4f6f8';
-    g.fillRect(0, 0, c.width, c.height);
+    g.clearRect(0, 0, c.width, c.height);
+    return { g, w, h };
+  }
+
+  /**
+   * Places the stress figure: its viewBox (figure frame, mm: x' = x − minX, y' = maxY − y, with a margin m)
+   * covers the screen box of the report-frame rectangle [minX − m, maxY + m] … [minX + w + m, maxY − h − m].
+   */
+  private placeStress(sc: Scene): void {
+    const st = this.shown.stress ? sc.stress : null;
+    const svg = this.stressSvg;
+    if (st !== this.stressShown) {
+      this.stressShown = st;
+      svg.setAttribute('viewBox', st ? st.viewBox : '0 0 1 1');
+      svg.innerHTML = st ? st.body : '';
+    }
+    svg.style.display = st ? '' : 'none';
+    if (!st) return;
+    const m = st.margin;
+    svg.style.left = `${this.ox + this.s * (st.minX - m)}px`;
+    svg.style.top = `${this.oy - this.s * (st.maxY + m)}px`;
+    svg.style.width = `${this.s * (st.w + 2 * m)}px`;
+    svg.style.height = `${this.s * (st.h + 2 * m)}px`;
+    svg.style.opacity = sc.stressStale ? '0.35' : '';
+  }
+
+  draw(): void {
+    const dpr = window.devicePixelRatio || 1;
+    const { g: b } = this.plane(this.back, dpr);
+    const { g, h } = this.plane(this.canvas, dpr);
+    b.fillStyle = '#f4f6f8';
+    b.fillRect(0, 0, this.back.width, this.back.height);
     const sc = this.scene;
-    if (!sc) return;
+    if (!sc) {
+      this.stressSvg.style.display = 'none';
+      return;
+    }
     const s = this.s * dpr;
     const toMm = () => g.setTransform(s, 0, 0, -s, this.ox * dpr, this.oy * dpr);
     const px = 1 / s; // one device pixel in mm
     toMm();
+    b.setTransform(s, 0, 0, -s, this.ox * dpr, this.oy * dpr);
     const [x0, y0, x1, y1] = sc.domain;
-    g.fillStyle = '#fff';
-    g.fillRect(x0, y0, x1 - x0, y1 - y0);
-    g.imageSmoothingEnabled = false;
+    b.fillStyle = '#fff';
+    b.fillRect(x0, y0, x1 - x0, y1 - y0);
+    b.imageSmoothingEnabled = false;
     const picture = (p: Scene['density']) => {
       if (!p) return;
-      const [a, b, cc, d] = p.extent;
+      const [a, bb, cc, d] = p.extent;
       // the image's rows run top-down: draw it flipped back under the y-up transform
-      g.save();
-      g.translate(a, d);
-      g.scale(1, -1);
-      g.drawImage(p.img, 0, 0, cc - a, d - b);
-      g.restore();
+      b.save();
+      b.translate(a, d);
+      b.scale(1, -1);
+      b.drawImage(p.img, 0, 0, cc - a, d - bb);
+      b.restore();
     };
-    g.save();
-    g.beginPath();
-    g.rect(x0, y0, x1 - x0, y1 - y0);
-    g.clip();
+    b.save();
+    b.beginPath();
+    b.rect(x0, y0, x1 - x0, y1 - y0);
+    b.clip();
     if (this.shown.density) picture(sc.density);
     if (this.shown.thickness) picture(sc.thickness);
-    g.restore();
+    b.restore();
+    this.placeStress(sc);
+    const stressOn = this.shown.stress && sc.stress !== null;
     g.lineWidth = dpr * px;
     g.setLineDash([4 * dpr * px, 3 * dpr * px]);
     g.strokeStyle = '#9aa3ad';
@@ -251,8 +312,11 @@ export class PlanView {
       g.fill(sc.repaired, 'evenodd');
     }
     if (this.shown.outline && sc.outline) {
-      g.fillStyle = this.shown.density || this.shown.thickness ? 'rgba(11,92,192,.12)' : 'rgba(11,92,192,.25)';
-      g.fill(sc.outline, 'evenodd');
+      // over the stress colours the outline is a line only: a tint would change the colours the scale reads
+      if (!stressOn || sc.stressStale) {
+        g.fillStyle = this.shown.density || this.shown.thickness ? 'rgba(11,92,192,.12)' : 'rgba(11,92,192,.25)';
+        g.fill(sc.outline, 'evenodd');
+      }
       g.strokeStyle = sc.outlineOnly ? '#d9480f' : '#0b5cc0';
       g.lineWidth = 1.6 * dpr * px;
       g.stroke(sc.outline);

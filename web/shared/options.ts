@@ -41,6 +41,10 @@ const FORMS: Readonly<Record<string, Form>> = {
   tolerance: { kind: 'value', flag: '--tolerance' },
   mirror: { kind: 'each', flag: '--mirror' },
   passive: { kind: 'value', flag: '--passive' },
+  loads: { kind: 'value', flag: '--loads' },
+  maxStiffnessLoss: { kind: 'value', flag: '--max-stiffness-loss' },
+  allowableStress: { kind: 'value', flag: '--allowable-stress' },
+  feMaxElements: { kind: 'value', flag: '--fe-max-elements' },
   circles: { kind: 'flag', flag: '--circles' },
   minMember: { kind: 'value', flag: '--min-member' },
   minHole: { kind: 'value', flag: '--min-hole' },
@@ -140,7 +144,7 @@ function same(a: unknown, b: unknown): boolean {
 /**
  * The options after `changes` (keys as in report.settings). A key whose value equals what the page shows
  * now (`current`, report.settings) and that is not already set is left unset, so `apply(settings())` changes
- * nothing. `passive` can be switched off (null) or back on with the embedded file's name only.
+ * nothing. `passive` and `loads` can be switched off (null) or back on with the embedded file's name only.
  * Throws UsageError (validated by settingsOf, which the caller runs on the result).
  */
 export function withChanges(
@@ -148,6 +152,7 @@ export function withChanges(
   changes: Readonly<Record<string, unknown>>,
   current: Readonly<Record<string, unknown>> | null,
   embeddedPassive: string | null,
+  embeddedLoads: string | null = null,
 ): Map<string, readonly string[]> {
   if (typeof changes !== 'object' || changes === null || Array.isArray(changes)) {
     throw new UsageError(`apply: expected an object of settings (keys as in report.settings), found ${text(changes)}`);
@@ -160,6 +165,13 @@ export function withChanges(
         embeddedPassive === null
           ? `--passive: this page embeds no passive-region file, found ${JSON.stringify(value)}; run rhoform preview again with --passive`
           : `--passive: this page embeds only ${JSON.stringify(embeddedPassive)}, found ${JSON.stringify(value)}; run rhoform preview again with the other file`,
+      );
+    }
+    if (key === 'loads' && value !== null && value !== undefined && value !== embeddedLoads) {
+      throw new UsageError(
+        embeddedLoads === null
+          ? `--loads: this page embeds no loads file, found ${JSON.stringify(value)}; run rhoform preview again with --loads`
+          : `--loads: this page embeds only ${JSON.stringify(embeddedLoads)}, found ${JSON.stringify(value)}; run rhoform preview again with the other file`,
       );
     }
     if (!out.has(key) && current !== null && same(current[key], value)) continue;

@@ -23,6 +23,8 @@ export interface Embedded {
   readonly gridBytes: number;
   /** The passive-region file, when --passive was given: its name as given and its bytes, base64. */
   readonly passive: { readonly name: string; readonly bytes: string } | null;
+  /** The loads file (`--loads`, the structural re-check), when given: its name as given and its bytes, base64. */
+  readonly loads: { readonly name: string; readonly bytes: string } | null;
   /** Samples of the grid (nx × ny), for the page's decision to show progress. */
   readonly cells: number;
 }
@@ -60,6 +62,25 @@ export interface GridView {
   readonly mirrored: boolean;
 }
 
+/**
+ * The stress figure of the structural re-check (`--loads`), as the HTML report draws it (report/stress-figure.ts):
+ * the SVG body in the figure frame (mm, x' = x − minX, y' = maxY − y; viewBox = `viewBox`), the colour bar and
+ * the caption (HTML text, escaped by the report module).
+ */
+export interface StressLayer {
+  readonly body: string;
+  readonly viewBox: string;
+  /** The figure frame's domain corner: figure (0, 0) is report (minX, maxY). */
+  readonly minX: number;
+  readonly maxY: number;
+  /** The viewBox's margin, mm, and the figure's size w × h (the domain), mm. */
+  readonly margin: number;
+  readonly w: number;
+  readonly h: number;
+  readonly legend: string;
+  readonly caption: string;
+}
+
 export type ToWorker =
   | { readonly t: 'init'; readonly data: Embedded }
   | { readonly t: 'build'; readonly v: number; readonly settings: Settings }
@@ -86,6 +107,18 @@ export interface ReportMessage {
   readonly timings: Record<string, number>;
 }
 
+/**
+ * With a load case: the report of the build without the structural re-check, sent before the full build (which
+ * adds the re-check and its checks). The page shows its checks as they stand, marked as waiting for the re-check.
+ */
+export interface ChecksMessage {
+  readonly t: 'checks';
+  readonly v: number;
+  readonly report: Report;
+  readonly reportHtml: string;
+  readonly ms: number;
+}
+
 /** The pictures of a full build: the written outline, the outline before repair, the density and thickness. */
 export interface PicturesMessage {
   readonly t: 'pictures';
@@ -100,7 +133,23 @@ export interface PicturesMessage {
   readonly thickness: PlacedRgba | null;
   readonly thicknessMax: number;
   readonly passive: PassiveRegions | null;
+  /** The stress figure of the structural re-check, when it ran and found stress. */
+  readonly stress: StressLayer | null;
   readonly ms: number;
+}
+
+/**
+ * A build's progress: `done` of `total` steps finished, the last one named `stage` (a stage of the library's
+ * build, as in the report's timings, or the worker's own "pictures"). `phase` says which answer it works towards:
+ * the outline first, then the checks, and with a load case the structural re-check last.
+ */
+export interface ProgressMessage {
+  readonly t: 'progress';
+  readonly v: number;
+  readonly phase: 'outline' | 'checks' | 're-check';
+  readonly stage: string;
+  readonly done: number;
+  readonly total: number;
 }
 
 export type FromWorker =
@@ -108,5 +157,7 @@ export type FromWorker =
   | OutlineMessage
   | ReportMessage
   | PicturesMessage
+  | ProgressMessage
+  | ChecksMessage
   | { readonly t: 'files'; readonly v: number; readonly files: { dxf: string; svg: string; json: string; html: string } }
   | { readonly t: 'error'; readonly v: number; readonly code: string; readonly message: string };
