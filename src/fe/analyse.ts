@@ -14,6 +14,7 @@ import { coarsenCells } from './resample.js';
 import { freeRigidModes } from './rigid.js';
 import { solveElastic, type SolveOptions } from './solve.js';
 import { vonMises } from './stress.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Elements analysed without coarsening; 1000 × 500 solve well inside 15 s and 1.2 GB (test/bench/fe.ts). */
 export const FE_MAX_ELEMENTS = 500_000;
@@ -157,7 +158,7 @@ export function analyse(grid: FeGridSpec, design: FeDesign, spec: LoadsSpec, opt
   let maxD: Located = { value: 0, x: x0, y: y0 };
   for (let n = 0; n < nxn * (ey + 1); n++) {
     if (anySolid && !counts[n]) continue;
-    const m = Math.hypot(u[2 * n], u[2 * n + 1]);
+    const m = hypot(u[2 * n], u[2 * n + 1]);
     if (m > maxD.value) {
       const i = n % nxn;
       maxD = { value: m, x: x0 + i * hx, y: y0 + ((n - i) / nxn) * hy };

@@ -18,6 +18,7 @@ import type { Settings } from '../settings.js';
 import type { DensityGrid, Domain, Report } from '../types.js';
 import { fieldMean, gridDomain } from './mean.js';
 import { prepareGrid } from './prepare.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** The outline's deviation budget (mm) when `--tolerance` is not given: a quarter of the smaller cell side. */
 export const DEFAULT_TOLERANCE_CELLS = 0.25;
@@ -91,7 +92,7 @@ export function prepareStage(file: InputFile, read: ReadResult, s: Settings, reg
   const passive = regions ? mirrorPassive(regions, planes) : null;
   const [hx, hy] = grid.cellSize;
   const tolerance = s.tolerance ?? DEFAULT_TOLERANCE_CELLS * Math.min(hx, hy);
-  const cells = passive ? applyPassiveToGrid(grid, passive, { inset: Math.hypot(hx, hy) + tolerance }) : null;
+  const cells = passive ? applyPassiveToGrid(grid, passive, { inset: hypot(hx, hy) + tolerance }) : null;
   if (cells) grid = cells.grid;
   const range = grid === prep.grid ? { min: prep.min, max: prep.max } : valueRange(grid.values);
   const domain = gridDomain(grid);

@@ -5,6 +5,7 @@
  * (from memory). Feasibility rules: docs/notes/geom.md. mm, y up.
  */
 import { extendByArc } from './bulge.js';
+import { hypot } from './portable-math.js';
 
 /** Runs shorter than this many edges stay as they are (an arc over two edges saves one segment at most). */
 const MIN_ARC_EDGES = 3;
@@ -26,7 +27,7 @@ function circle3(ax: number, ay: number, bx: number, by: number, cx: number, cy:
   const c2 = cx * cx + cy * cy;
   const ux = (a2 * (by - cy) + b2 * (cy - ay) + c2 * (ay - by)) / d;
   const uy = (a2 * (cx - bx) + b2 * (ax - cx) + c2 * (bx - ax)) / d;
-  return [ux, uy, Math.hypot(ax - ux, ay - uy)];
+  return [ux, uy, hypot(ax - ux, ay - uy)];
 }
 
 /**
@@ -74,7 +75,7 @@ export function fitRingArcs(
       const vx = X(k), vy = Y(k);
       let t = len2 > 0 ? ((vx - ax) * dx + (vy - ay) * dy) / len2 : 0;
       t = t < 0 ? 0 : t > 1 ? 1 : t;
-      if (!(Math.hypot(vx - ax - t * dx, vy - ay - t * dy) <= tolerance)) return Infinity;
+      if (!(hypot(vx - ax - t * dx, vy - ay - t * dy) <= tolerance)) return Infinity;
     }
     return sampled((u) => {
       px = ax + u * dx;
@@ -100,7 +101,7 @@ export function fitRingArcs(
     let prev = 0;
     for (let k = s + 1; k < e; k++) {
       const vx = X(k), vy = Y(k);
-      if (!(Math.abs(Math.hypot(vx - ux, vy - uy) - r) <= tolerance)) return null;
+      if (!(Math.abs(hypot(vx - ux, vy - uy) - r) <= tolerance)) return null;
       const a = along(vx, vy);
       if (!(a >= prev && a <= sweep)) return null;
       prev = a;

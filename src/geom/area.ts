@@ -1,5 +1,6 @@
 /** Signed area (shoelace) and perimeter of rings, mm, y up: CCW positive, CW (holes) negative. */
 import type { Polygon, PolygonSet, Ring } from '../types.js';
+import { hypot } from './portable-math.js';
 
 /** Signed area, mm²: > 0 counter-clockwise, < 0 clockwise. */
 export function ringArea(ring: Ring): number {
@@ -41,7 +42,7 @@ export function ringPerimeter(ring: Ring): number {
   let [px, py] = ring[n - 1];
   for (let k = 0; k < n; k++) {
     const [x, y] = ring[k];
-    s += Math.hypot(x - px, y - py);
+    s += hypot(x - px, y - py);
     px = x;
     py = y;
   }

@@ -1,4 +1,5 @@
 /** Arcs by end points and bulge b = tan(θ/4), as DXF group 42 stores them; formulas: docs/notes/geom.md. mm, y up. */
+import { hypot } from './portable-math.js';
 
 /** Radians, 0 ≤ θ < 2π. */
 export function bulgeAngle(b: number): number {
@@ -45,7 +46,7 @@ export function extendByArc(box: number[], ax: number, ay: number, bx: number, b
   grow(bx, by);
   if (b === 0) return;
   const [cx, cy] = bulgeCentre(ax, ay, bx, by, b);
-  const r = Math.hypot(ax - cx, ay - cy);
+  const r = hypot(ax - cx, ay - cy);
   const a0 = b > 0 ? Math.atan2(ay - cy, ax - cx) : Math.atan2(by - cy, bx - cx);
   const sweep = bulgeAngle(b);
   for (let q = 0; q < 4; q++) {

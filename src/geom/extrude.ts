@@ -10,6 +10,7 @@ import type { PolygonSet, Point, Ring } from '../types.js';
 import type { RingBulges } from './bulge.js';
 import type { RingCircle } from './circle.js';
 import { RhoformError } from '../errors.js';
+import { hypot } from './portable-math.js';
 
 export interface SolidInput {
   readonly polygons: PolygonSet;
@@ -29,7 +30,7 @@ export interface Mesh {
 
 /** Points of an arc (ends excluded), inscribed within `tol` mm. */
 function arcPoints(ax: number, ay: number, bx: number, by: number, b: number, tol: number, out: Point[]): void {
-  const c = Math.hypot(bx - ax, by - ay);
+  const c = hypot(bx - ax, by - ay);
   const r = bulgeRadius(c, b);
   const theta = bulgeAngle(b);
   const steps = Math.max(1, Math.ceil(theta / (2 * Math.acos(Math.max(-1, 1 - tol / r)))));

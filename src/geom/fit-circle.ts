@@ -8,6 +8,7 @@ import { RhoformError } from '../errors.js';
 import type { PolygonSet, Ring } from '../types.js';
 import type { RingCircle } from './circle.js';
 import type { Circle } from './circle.js';
+import { hypot } from './portable-math.js';
 
 export const MIN_CIRCLE_VERTICES = 8;
 /** Radians. */
@@ -165,10 +166,10 @@ function fitsWithin(ring: Ring, n: number, c: Circle, tolerance: number): boolea
   for (let i = 0; i < n; i++) {
     const [x0, y0] = ring[i];
     const [x1, y1] = ring[i + 1 < n ? i + 1 : 0];
-    if (!(Math.abs(Math.hypot(x0 - c.cx, y0 - c.cy) - c.r) <= tolerance)) return false;
+    if (!(Math.abs(hypot(x0 - c.cx, y0 - c.cy) - c.r) <= tolerance)) return false;
     const xm = (x0 + x1) / 2;
     const ym = (y0 + y1) / 2;
-    if (!(Math.abs(Math.hypot(xm - c.cx, ym - c.cy) - c.r) <= tolerance)) return false;
+    if (!(Math.abs(hypot(xm - c.cx, ym - c.cy) - c.r) <= tolerance)) return false;
   }
   return true;
 }

@@ -1,5 +1,6 @@
 /** Located directed Hausdorff distance between flat closed rings (mm, y up); method: docs/notes/geom.md. */
 import { type FlatRings, SegmentGrid, sqSegDist } from './segments.js';
+import { hypot } from './portable-math.js';
 
 export interface DeviationPlace {
   readonly x: number;
@@ -121,7 +122,7 @@ function segmentGrid(rings: FlatRings): SegmentGrid {
     for (let i = s0; i < s1; i++) {
       const j = i + 1 === s1 ? s0 : i + 1;
       x0[i] = xy[2 * i]; y0[i] = xy[2 * i + 1]; x1[i] = xy[2 * j]; y1[i] = xy[2 * j + 1];
-      len += Math.hypot(x1[i] - x0[i], y1[i] - y0[i]);
+      len += hypot(x1[i] - x0[i], y1[i] - y0[i]);
     }
   }
   return new SegmentGrid(x0, y0, x1, y1, Math.max((2 * len) / n, 1e-9));

@@ -120,3 +120,32 @@ export function powPortable(x: number, p: number): number {
   }
   return result;
 }
+
+/**
+ * √(x² + y² [+ z²]) without overflow: each value divided by the largest, the squares summed with Kahan's
+ * compensation, the root times the largest — V8's algorithm for `Math.hypot` (the same bits as Node), in IEEE
+ * arithmetic alone (SpiderMonkey's `Math.hypot` rounds otherwise). Infinity wins over NaN (ECMA-262 §21.3.2.18).
+ */
+export function hypot(x: number, y: number, z?: number): number {
+  const a = Math.abs(x);
+  const b = Math.abs(y);
+  const c = z === undefined ? 0 : Math.abs(z);
+  if (a === Infinity || b === Infinity || c === Infinity) return Infinity;
+  if (a !== a || b !== b || c !== c) return NaN;
+  const max = a > b ? (a > c ? a : c) : b > c ? b : c;
+  if (max === 0) return 0;
+  const p = a / max;
+  const q = b / max;
+  // Kahan's sum of p², q², r², as V8 adds them (for two values the compensation is exactly 0)
+  let sum = p * p;
+  let summand = q * q;
+  let next = sum + summand;
+  let compensation = next - sum - summand;
+  sum = next;
+  if (z === undefined) return Math.sqrt(sum) * max;
+  const r = c / max;
+  summand = r * r - compensation;
+  next = sum + summand;
+  sum = next;
+  return Math.sqrt(sum) * max;
+}

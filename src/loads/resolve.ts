@@ -6,6 +6,7 @@ import { RhoformError, type Where } from '../errors.js';
 import { atan2 } from '../geom/portable-math.js';
 import type { Point } from '../types.js';
 import type { Load, LoadsSpec, Selector, Support } from './types.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** ex × ey elements of hx × hy mm, lower-left corner (x0, y0). */
 export interface FeGrid {
@@ -112,14 +113,14 @@ function select(sel: Selector, g: Required<FeGrid>): Caught {
       const [bx, by] = sel.b;
       const dx = bx - ax;
       const dy = by - ay;
-      const len = Math.hypot(dx, dy);
+      const len = hypot(dx, dy);
       const [i0, i1, j0, j1] = range(Math.min(ax, bx) - half, Math.max(ax, bx) + half, Math.min(ay, by) - half, Math.max(ay, by) + half);
       for (let j = j0; j <= j1; j++) {
         for (let i = i0; i <= i1; i++) {
           const px = x0 + i * hx - ax;
           const py = y0 + j * hy - ay;
           const t = Math.min(1, Math.max(0, (px * dx + py * dy) / (len * len)));
-          if (Math.hypot(px - t * dx, py - t * dy) <= half) {
+          if (hypot(px - t * dx, py - t * dy) <= half) {
             nodes.push(j * nx + i);
             s.push(t * len);
           }
@@ -135,7 +136,7 @@ function select(sel: Selector, g: Required<FeGrid>): Caught {
         for (let i = i0; i <= i1; i++) {
           const px = x0 + i * hx - cx;
           const py = y0 + j * hy - cy;
-          if (Math.abs(Math.hypot(px, py) - R) <= half) {
+          if (Math.abs(hypot(px, py) - R) <= half) {
             nodes.push(j * nx + i);
             s.push(R * atan2(py, px)); // the same bits in every engine (geom/portable-math.ts)
           }

@@ -33,6 +33,7 @@ import { sampledTransform } from './edt.js';
 import type { NearestField } from './nearest.js';
 import { type Frame, toMm } from './frame.js';
 import { type SegmentSet, segDist2 as segD2 } from './segments.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Smallest turn (radians) towards the void for a polygon vertex to be tried as a corner point. */
 const VERTEX_TURN = (15 * Math.PI) / 180;
@@ -148,7 +149,7 @@ export function cornerSurvey(
       let dep = Infinity;
       if (c >= 0) {
         const ci = c % nx, cj = (c - ci) / nx;
-        dep = Math.hypot(i - ci, j - cj) - dist[c];
+        dep = hypot(i - ci, j - cj) - dist[c];
       }
       ui.push(i); uj.push(j); ud.push(dep);
     }
@@ -185,7 +186,7 @@ export function cornerSurvey(
       const dx = ii[kd], dy = jj[kd];
       let bestR = Infinity, bestX = dx, bestY = dy, bestD = Infinity;
       const consider = (x: number, y: number, r: number): void => {
-        const dd = Math.hypot(x - dx, y - dy);
+        const dd = hypot(x - dx, y - dy);
         const tol = 1e-3 * R;
         if (r < bestR - tol || (r <= bestR + tol && dd < bestD)) {
           if (r < bestR) bestR = r;
@@ -207,14 +208,14 @@ export function cornerSurvey(
           // polygonised smooth curve it follows the curve's normal instead of jumping at every vertex
           const [ax, ay] = vertexNormal(set, s, 0), [bx, by] = vertexNormal(set, s, 1);
           const mx = (1 - t) * ax + t * bx, my = (1 - t) * ay + t * by;
-          const l = Math.hypot(mx, my);
+          const l = hypot(mx, my);
           ux = -mx / l; uy = -my / l;
         } else {
           // foot on a vertex: a vertex turning towards the void is touched along its bisector; a vertex turning
           // away (a convex corner of the solid) along the direction to the pixel
           const [sa, sb] = t <= 1e-6 ? [set.prev[s], s] : [s, set.next[s]];
           const ax = set.normal[2 * sa], ay = set.normal[2 * sa + 1], bx = set.normal[2 * sb], by = set.normal[2 * sb + 1];
-          const l = Math.hypot(ax + bx, ay + by);
+          const l = hypot(ax + bx, ay + by);
           if (ax * by - ay * bx < 0 && l > 1e-9) { ux = -(ax + bx) / l; uy = -(ay + by) / l; } else if (d > 1e-9) {
             ux = -vx[p] / d; uy = -vy[p] / d;
           } else continue;
@@ -233,7 +234,7 @@ export function cornerSurvey(
           if (!(turn < -VERTEX_TURN)) continue;
           if (!nearLabel(labelAt, nx, ny, x, y, c)) continue;
           const sx = -(ax + bx), sy = -(ay + by);
-          const l = Math.hypot(sx, sy);
+          const l = hypot(sx, sy);
           if (!(l > 1e-9)) continue;
           consider(x, y, radiusAt(x, y, sx / l, sy / l, sb));
         }
@@ -272,7 +273,7 @@ function vertexNormal(set: SegmentSet, s: number, end: 0 | 1): [number, number] 
   const turn = end === 0 ? turnAt(set, o, s) : turnAt(set, s, o);
   if (!(Math.abs(turn) < VERTEX_TURN)) return [n[2 * s], n[2 * s + 1]];
   const x = n[2 * s] + n[2 * o], y = n[2 * s + 1] + n[2 * o + 1];
-  const l = Math.hypot(x, y);
+  const l = hypot(x, y);
   return [x / l, y / l];
 }
 

@@ -22,6 +22,7 @@ import type { ThicknessMap } from './types.js';
 import type { MedialSamples } from './medial.js';
 import type { NearestField } from './nearest.js';
 import type { Frame } from './frame.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Coarse local-thickness raster of the solid, at most `maxSide` pixels along the longer side. */
 export function thicknessMap(
@@ -119,7 +120,7 @@ export function thicknessMap(
       const pu = p % frame.nx, pv = (p - pu) / frame.nx;
       const du = (x - frame.x0) / px - 0.5 - pu, dv = (y - frame.y0) / px - 0.5 - pv;
       d0[q] = Math.max(0, dist - (du * field.vx[p] + dv * field.vy[p]) / dist) * px;
-      rIn[q] = Math.max(0, dist - Math.hypot(du, dv)) * px;
+      rIn[q] = Math.max(0, dist - hypot(du, dv)) * px;
     }
   }
   const at = (i: number, j: number): number => (i < 0 || j < 0 || i >= cnx || j >= cny ? 0 : Number.isNaN(d0[j * cnx + i]) ? 0 : d0[j * cnx + i]);
@@ -162,7 +163,7 @@ export function thicknessMap(
     const j = (c - i) / cnx;
     const x = minX + (i + 0.5) * s;
     const y = minY + (j + 0.5) * s;
-    if (pR[c] > 0 && Math.hypot(x - pX[c], y - pY[c]) + r <= pR[c] + s) continue;
+    if (pR[c] > 0 && hypot(x - pX[c], y - pY[c]) + r <= pR[c] + s) continue;
     paint(x, y, r);
   }
   return { nx: cnx, ny: cny, domain: [minX, minY, minX + cnx * s, minY + cny * s], values };

@@ -13,6 +13,7 @@
  */
 import type { SegmentSet } from './segments.js';
 import { segDist2 } from './segments.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Closer than the sample radius by more than this (pixel units) counts as an intruder. */
 const INTRUDE = 0.01;
@@ -72,7 +73,7 @@ export function snapToVertex(
   const D = det3(0, 1, 2);
   if (!(Math.abs(D) > 1e-9)) return null;
   const vx = det3(3, 1, 2) / D, vy = det3(0, 3, 2) / D, rho = det3(0, 1, 3) / D;
-  if (!(rho > 0) || Math.hypot(vx - x, vy - y) > 2) return null;
+  if (!(rho > 0) || hypot(vx - x, vy - y) > 2) return null;
   for (const s of [a, b, e]) if (Math.abs(Math.sqrt(segDist2(geo, s, vx, vy)) - rho) > AGREE) return null;
   const vi = Math.round(vx), vj = Math.round(vy);
   const lim = (rho - AGREE) * (rho - AGREE);

@@ -9,6 +9,7 @@ import type { Domain, Point, PolygonSet, Ring } from '../types.js';
 import type { RingCircle } from '../geom/circle.js';
 import { shapeRing } from './rings.js';
 import type { PassiveRegions } from './types.js';
+import { hypot } from '../geom/portable-math.js';
 
 export interface PassiveExactResult {
   readonly polygons: PolygonSet;
@@ -33,7 +34,7 @@ interface CircleRef {
 }
 
 function onCircle(ring: Ring, c: CircleRef, eps: number): boolean {
-  for (const [x, y] of ring) if (!(Math.abs(Math.hypot(x - c.cx, y - c.cy) - c.R) <= eps)) return false;
+  for (const [x, y] of ring) if (!(Math.abs(hypot(x - c.cx, y - c.cy) - c.R) <= eps)) return false;
   return true;
 }
 
@@ -99,7 +100,7 @@ function findCircles(set: PolygonSet, circles: readonly CircleRef[], quantum: nu
       const first: Point = ring[0];
       for (const c of candidates) {
         const eps = 4 * quantum + 1e-9 * c.r;
-        if (!(Math.abs(Math.hypot(first[0] - c.cx, first[1] - c.cy) - c.R) <= eps)) continue;
+        if (!(Math.abs(hypot(first[0] - c.cx, first[1] - c.cy) - c.R) <= eps)) continue;
         if (!onCircle(ring, c, eps)) continue;
         out.push({ polygon: p, ring: k, x: c.cx, y: c.cy, r: c.r });
         break;

@@ -2,6 +2,7 @@
 import { ringBounds, ringContains } from '../geom/contains.js';
 import { nearestOnRing } from '../geom/near.js';
 import type { Point, Ring } from '../types.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** `c` moved so that the disc of radius `rho` (mm) around it stays out of every void; `c` itself when none is near. */
 export function clearOfVoids(c: Point, rho: number, voids: readonly Ring[], boxes: readonly [number, number, number, number][]): Point {
@@ -15,7 +16,7 @@ export function clearOfVoids(c: Point, rho: number, voids: readonly Ring[], boxe
       const inside = ringContains(voids[k], [x, y]) > 0;
       if (!inside && n.d >= rho) continue;
       let ux = x - n.px, uy = y - n.py;
-      const l = Math.hypot(ux, uy);
+      const l = hypot(ux, uy);
       if (!(l > 0)) continue; // on the boundary exactly: no direction to go (rare; left as it is)
       ux /= l; uy /= l;
       if (inside) { ux = -ux; uy = -uy; }

@@ -7,6 +7,7 @@ import { nearestOnRing } from '../geom/near.js';
 import { arcSagitta } from '../geom/circle.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RepairInput } from './types.js';
+import { hypot } from '../geom/portable-math.js';
 
 const COS_HALF_STEP = Math.cos((6 * Math.PI) / 180);
 
@@ -135,7 +136,7 @@ function cleanRing(r: Ring, needle: number): Ring {
   const spike = (a: Point, b: Point, c: Point): boolean => {
     const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
     if (ux * vx + uy * vy >= 0) return false;
-    const lu = Math.hypot(ux, uy), lv = Math.hypot(vx, vy);
+    const lu = hypot(ux, uy), lv = hypot(vx, vy);
     return Math.abs(ux * vy - uy * vx) <= needle * Math.max(lu, lv);
   };
   for (const p of r) {

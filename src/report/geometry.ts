@@ -7,6 +7,7 @@ import { bulgeArcLength, bulgeSegmentArea, extendByArc } from '../geom/bulge.js'
 import { cleanRing, MIN_SEGMENT_MM } from '../geom/clean-ring.js';
 import type { PolygonSet, Report } from '../types.js';
 import type { RingBulges, RingCircle } from '../write/types.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** What is written instead of plain rings: true circles and arcs (as the writers take them). */
 export interface WrittenShape {
@@ -58,7 +59,7 @@ export function summarizeGeometry(set: PolygonSet, domainArea: number, shape: Wr
         const ax = xy[2 * a], ay = xy[2 * a + 1], bx = xy[2 * b], by = xy[2 * b + 1];
         // shoelace relative to the first point, plus each arc's circular segment
         s += (ax - x0) * (by - y0) - (bx - x0) * (ay - y0);
-        const chord = Math.hypot(bx - ax, by - ay);
+        const chord = hypot(bx - ax, by - ay);
         const g = bulge ? bulge[a] : 0;
         if (g !== 0) {
           arcs++;

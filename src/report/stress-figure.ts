@@ -16,6 +16,7 @@ import { fmt } from './number.js';
 import { encodePng, pngDataUrl } from './png.js';
 import { blockFactor, blockMeans } from './raster.js';
 import { fx, fy, niceBelow, num, outlinePathData, pathQuantum, placedImage, type PlanFrame } from './svg-figures.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Stress colour scale, low to high: blue, cyan, green-yellow, orange, red (a sequential "rainbow" engineers read at once). */
 const STOPS: readonly (readonly [number, number, number])[] = [
@@ -144,11 +145,11 @@ function loadArrows(rec: StructureRecord, a: FeAnalysis, f: PlanFrame): string {
     return [fx(f, sx / m), fy(f, sy / m)] as const;
   });
   // entries at the same place (within a font size) share it: their index in the group and its size
-  const group = at.map((p, k) => at.filter((q, m) => m < k && Math.hypot(q[0] - p[0], q[1] - p[1]) < f.font).length);
-  const size = at.map((p) => at.filter((q) => Math.hypot(q[0] - p[0], q[1] - p[1]) < f.font).length);
+  const group = at.map((p, k) => at.filter((q, m) => m < k && hypot(q[0] - p[0], q[1] - p[1]) < f.font).length);
+  const size = at.map((p) => at.filter((q) => hypot(q[0] - p[0], q[1] - p[1]) < f.font).length);
   rec.spec.loads.forEach((ld, k) => {
     const [Fx, Fy] = ld.force;
-    const F = Math.hypot(Fx, Fy);
+    const F = hypot(Fx, Fy);
     if (!(F > 0)) return;
     const dx = Fx / F;
     const dy = -Fy / F; // figure frame: y down

@@ -8,6 +8,7 @@
 import { type FlatRings, SegmentGrid, sqSegDist } from '../geom/segments.js';
 
 import { flatRingArea } from '../geom/area.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Sum of the signed areas (mm²) of all rings: material area when outers are CCW and holes CW. */
 export function totalArea(rings: FlatRings): number {
@@ -52,7 +53,7 @@ export function directedHausdorff(final: FlatRings, raw: FlatRings, spacing: num
   if (nr === 0) return Infinity;
   const seg = ringSegments(raw);
   let len = 0;
-  for (let s = 0; s < nr; s++) len += Math.hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
+  for (let s = 0; s < nr; s++) len += hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
   const grid = new SegmentGrid(seg.x0, seg.y0, seg.x1, seg.y1, Math.max(2 * (len / nr), 1e-9));
   const step = spacing > 0 && Number.isFinite(spacing) ? spacing : Infinity;
   const q = new Query(grid);
@@ -63,7 +64,7 @@ export function directedHausdorff(final: FlatRings, raw: FlatRings, spacing: num
     for (let i = a; i < b; i++) {
       const j = i + 1 === b ? a : i + 1;
       const ax = xy[2 * i], ay = xy[2 * i + 1], bx = xy[2 * j], by = xy[2 * j + 1];
-      const L = Math.hypot(bx - ax, by - ay);
+      const L = hypot(bx - ax, by - ay);
       const m = step === Infinity ? 2 : Math.max(1, Math.ceil(L / step));
       for (let k = 0; k < m; k++) {
         const t = k / m;

@@ -18,6 +18,7 @@ import { simplifyRing } from './simplify.js';
 import { taubinRingInPlace } from './taubin.js';
 import { type RingRoles, validateRings } from './validate.js';
 import { edgeFlags, repairRound } from './repair.js';
+import { hypot } from '../geom/portable-math.js';
 
 export interface SmoothOptions {
   /** Taubin λ|μ pairs (default 2); 0 = off. */
@@ -239,7 +240,7 @@ function sampleSpacing(rings: FlatRings, tolerance: number): number {
   for (let r = 0; r + 1 < start.length; r++) {
     for (let i = start[r]; i < start[r + 1]; i++) {
       const j = i + 1 === start[r + 1] ? start[r] : i + 1;
-      perimeter += Math.hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
+      perimeter += hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
     }
   }
   return Math.max(tolerance / 4, perimeter / 4e6);

@@ -11,6 +11,7 @@
 import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
 import { flatRingArea } from '../geom/area.js';
 import { ringSegments } from './deviation.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
 export interface RingRoles {
@@ -56,7 +57,7 @@ export function validateRings(rings: FlatRings, roles: RingRoles): Validation {
   }
   if (n === 0) return { segmentHit, ringHit, blamed, problems };
   let len = 0;
-  for (let s = 0; s < n; s++) len += Math.hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
+  for (let s = 0; s < n; s++) len += hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
   const grid = new SegmentGrid(seg.x0, seg.y0, seg.x1, seg.y1, Math.max(2 * (len / n), 1e-9));
   const { x0, y0, x1, y1, ring } = seg;
   const next = (s: number): number => (s + 1 === start[ring[s] + 1] ? start[ring[s]] : s + 1);

@@ -14,6 +14,7 @@ import { shapeRing } from '../passive/rings.js';
 import type { PassiveRegions } from '../passive/types.js';
 import type { Point, PolygonSet, RepairRecord, Ring } from '../types.js';
 import type { WriterExtra, WriterMarker } from './types.js';
+import { hypot } from '../geom/portable-math.js';
 
 export interface AnnotationInput {
   readonly passive: PassiveRegions | null;
@@ -74,7 +75,7 @@ function withoutSpikes(ring: Ring): Ring {
       const b = pts[i];
       const c = pts[(i + 1) % pts.length];
       const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
-      const len = Math.hypot(ux, uy) * Math.hypot(vx, vy);
+      const len = hypot(ux, uy) * hypot(vx, vy);
       if (len > 0 && (ux * vx + uy * vy) / len < cosLimit) {
         changed = true;
         continue;

@@ -20,6 +20,7 @@ import { flattenSet } from '../geom/flat.js';
 import { nearDistance } from '../geom/near.js';
 import { circumscribedRadius, circumscribedSegments } from '../geom/circle.js';
 import { sqSegDist } from '../geom/segments.js';
+import { hypot } from '../geom/portable-math.js';
 
 export interface OutlineArcsInput {
   readonly polygons: PolygonSet;
@@ -51,7 +52,7 @@ function boundaries(input: OutlineArcsInput, eps: number): Boundary[] {
     if (shape.kind === 'circle') {
       // as src/passive/exact.ts polygonises it: circumscribed, within passiveCircleTolerance
       const R = circumscribedRadius(shape.r, circumscribedSegments(shape.r, passiveCircleTolerance(input.tolerance)));
-      out.push((x, y) => Math.abs(Math.hypot(x - shape.cx, y - shape.cy) - R) <= eps);
+      out.push((x, y) => Math.abs(hypot(x - shape.cx, y - shape.cy) - R) <= eps);
     } else {
       const pts: Point[] =
         shape.kind === 'rect'

@@ -6,6 +6,7 @@
  * out of the solid. STL has no unit: the coordinates are millimetres, as slicers assume.
  */
 import type { Mesh } from '../geom/extrude.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** The 80 header bytes: ASCII text that does not start with "solid" (which would suggest an ASCII STL). */
 const HEADER = 'rhoform binary STL, units mm, part extruded along z';
@@ -23,7 +24,7 @@ export function writeStl(mesh: Mesh): Uint8Array {
     const ux = v[b] - v[a], uy = v[b + 1] - v[a + 1], uz = v[b + 2] - v[a + 2];
     const wx = v[c] - v[a], wy = v[c + 1] - v[a + 1], wz = v[c + 2] - v[a + 2];
     let nx = uy * wz - uz * wy, ny = uz * wx - ux * wz, nz = ux * wy - uy * wx;
-    const len = Math.hypot(nx, ny, nz);
+    const len = hypot(nx, ny, nz);
     if (len > 0) {
       nx /= len;
       ny /= len;

@@ -29,6 +29,7 @@ import { checkDomain, checkRadius, unitDivisor } from './rings.js';
 import { TextSink } from './text-sink.js';
 import type { ExtraLayer, RingCircle, WriterExtra, WriterInput } from './types.js';
 import { escapeXml } from './xml.js';
+import { hypot } from '../geom/portable-math.js';
 
 /** Layer colours (the same hues as the DXF layers where they have one). */
 const COLORS: Readonly<Record<ExtraLayer | 'part' | 'partStroke', string>> = {
@@ -118,7 +119,7 @@ class SvgFrame {
           out.num(xy[2 * j], decimals).str(' ').num(xy[2 * j + 1], decimals);
         } else {
           line = false;
-          const chord = Math.hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
+          const chord = hypot(xy[2 * j] - xy[2 * i], xy[2 * j + 1] - xy[2 * i + 1]);
           const r = formatNumber(bulgeRadius(chord, b), decimals);
           out.str(`A${r} ${r} 0 ${Math.abs(b) > 1 ? 1 : 0} ${b > 0 ? 0 : 1} `);
           out.num(xy[2 * j], decimals).str(' ').num(xy[2 * j + 1], decimals);

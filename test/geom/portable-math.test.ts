@@ -2,11 +2,12 @@
  * The engine-independent atan2 and power of the structural re-check (src/geom/portable-math.ts).
  *
  * Outside references: fdlibm 5.3 (Sun Microsystems, 1993), which V8 ports as `ieee754::atan2` and Node 20's
- * `Math.atan2` runs — the port must agree with it bit for bit; ECMA-262 §21.3.2.6 for the signed zeros,
+ * `Math.atan2` runs — the port must agree with it bit for bit; V8's `Math.hypot` (Node 20), which `hypot` follows
+ * step by step — bit for bit again; Pythagorean triples (exact); ECMA-262 §21.3.2.6 for the signed zeros,
  * infinities and NaN; the exact angles π/4, π/6, π/3 of the unit circle (handbook values) to within one ulp.
  */
 import { describe, expect, it } from 'vitest';
-import { atan, atan2, powPortable } from '../../src/geom/portable-math.js';
+import { atan, atan2, hypot, powPortable } from '../../src/geom/portable-math.js';
 
 /** A deterministic stream of doubles of every magnitude from 2^-70 to 2^70, both signs. */
 function samples(n: number): number[] {
@@ -57,6 +58,31 @@ describe('atan2 (fdlibm e_atan2.c)', () => {
     expect(atan2(Infinity, 5)).toBe(Math.PI / 2);
     expect(atan2(NaN, 1)).toBeNaN();
     expect(atan2(1, NaN)).toBeNaN();
+  });
+});
+
+describe('hypot (V8 algorithm, IEEE arithmetic)', () => {
+  it.runIf(process.versions.node.startsWith('20.'))('agrees bit for bit with Node 20 Math.hypot, two and three values, of every magnitude', () => {
+    const a = samples(100_000);
+    const b = samples(100_001).slice(1);
+    const c = samples(100_002).slice(2);
+    let differ = 0;
+    for (let k = 0; k < a.length; k++) {
+      if (!Object.is(hypot(a[k], b[k]), Math.hypot(a[k], b[k]))) differ++;
+      if (!Object.is(hypot(a[k], b[k], c[k]), Math.hypot(a[k], b[k], c[k]))) differ++;
+      if (!Object.is(hypot(a[k], b[k], 0), Math.hypot(a[k], b[k], 0))) differ++;
+    }
+    expect(differ).toBe(0);
+  });
+
+  it('is exact on Pythagorean triples and follows ECMA-262 for infinities, NaN and zeros', () => {
+    expect(hypot(3, 4)).toBe(5);
+    expect(hypot(-5, 12)).toBe(13);
+    expect(hypot(2, 3, 6)).toBe(7);
+    expect(hypot(1e300, 1e300)).toBe(Math.SQRT2 * 1e300); // no overflow
+    expect(hypot(NaN, Infinity)).toBe(Infinity);
+    expect(hypot(NaN, 1)).toBeNaN();
+    expect(Object.is(hypot(-0, -0), 0)).toBe(true);
   });
 });
 
