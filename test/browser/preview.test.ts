@@ -320,10 +320,12 @@ describe.skipIf(!chromiumFound)('preview page in headless Chromium', { timeout: 
     expect((await report()).settings.saddle).toBe('split');
     await page.selectOption('#ctl-saddle', 'join');
     await nextResult(await resultVersion());
+    await settled(); // no picture of this build may arrive while the next test times its changes
   });
 
   it('dragging the volume target moves the outline: more material, a lower level, a larger area', async () => {
     await page.evaluate('window.rhoformPreview.apply({ repair: [], minMember: null })');
+    await settled();
     for (const target of ['0.38', '0.40', '0.42', '0.36', '0.39']) {
       await armTimer();
       const v = await resultVersion();
