@@ -19,6 +19,7 @@ import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
 import { runPreview } from './preview.js';
 import { packageRoot } from './package-root.js';
+import { laneTarget, startLanes } from '../src/parallel/node.js';
 
 
 /**
@@ -47,8 +48,12 @@ function runBuild(
   opts: { file: string; name?: string; writeGeometry: boolean; force: boolean; outDir: string; passivePath?: string; loadsPath?: string },
 ): number {
   const settings = resolveSettings(args.settings);
+  const bytes = inputBytes(resolve(io.cwd, opts.file));
+  // Both cores for the large raster passes (src/parallel; RHOFORM_THREADS=1 keeps one thread); the threads
+  // start during the read when the file is large (16 MB: 2 M cells of f8), else at their first task
+  startLanes(laneTarget(io.env), bytes >= 16 * 2 ** 20);
   // Progress (docs/scale.md): a build runs synchronously, so a large input gets one start line on stderr.
-  const done = buildNotice(io.stderr, progressMode(args.cli.quiet, io.stderrIsTTY === true), opts.name ?? opts.file, inputBytes(resolve(io.cwd, opts.file)));
+  const done = buildNotice(io.stderr, progressMode(args.cli.quiet, io.stderrIsTTY === true), opts.name ?? opts.file, bytes);
   let built: ReturnType<typeof buildFile>;
   try {
     built = buildFile(settings, { ...opts, cwd: io.cwd });

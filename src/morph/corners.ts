@@ -29,7 +29,7 @@
  */
 import type { CornerPlace, CornerSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
-import { sampledTransform } from './edt.js';
+import { sampledTransform, transformInput } from './edt.js';
 import type { NearestField } from './nearest.js';
 import { type Frame, toMm } from './frame.js';
 import { type SegmentSet, segDist2 as segD2 } from './segments.js';
@@ -126,7 +126,7 @@ export function cornerSurvey(
   };
 
   // 1. power transform of the tool positions
-  const f = new Float64Array(N).fill(Infinity);
+  const f = transformInput(N).fill(Infinity);
   for (let p = 0; p < N; p++) if (phase[p] === 0 && dist[p] >= R) f[p] = -dist[p] * dist[p];
   const pw = sampledTransform(f, nx, ny);
 

@@ -25,6 +25,8 @@ import type { NearestField } from './nearest.js';
 import type { Frame } from './frame.js';
 import { type SegmentSet, segDist2, sideOf } from './segments.js';
 import { snapToVertex } from './vertex.js';
+import { bands, runSplit } from '../parallel/lanes.js';
+import { rasterLanes } from './split.js';
 
 /** Medial samples, pixel units. */
 export interface MedialSamples {
@@ -42,8 +44,29 @@ export interface MedialSamples {
 /** cos 120°: samples at or below count for the width checks (θ-simplified medial axis, θ = 120°). */
 export const COUNT_COS = -0.5;
 
-/** Finds the medial samples of both phases. */
+/**
+ * Finds the medial samples of both phases, in raster order of the pair's first pixel. Each row's pairs are
+ * independent of the others', so large rasters are split into row bands (src/parallel) and the bands' samples
+ * joined in order: the same samples in the same order.
+ */
 export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array): MedialSamples {
+  const parts = bands(frame.ny, rasterLanes(frame.nx * frame.ny));
+  if (parts.length === 1) return medialRows(frame, set, field, phase, 0, frame.ny);
+  const got = runSplit(import.meta.url, 'medialRows', medialRows, parts.map(([a, b]) => [frame, set, field, phase, a, b] as const));
+  const n = got.reduce((m, g) => m + g.n, 0);
+  const X = new Float64Array(n), Y = new Float64Array(n), R = new Float64Array(n);
+  const C = new Float32Array(n);
+  const S = new Uint8Array(n);
+  let o = 0;
+  for (const g of got) {
+    X.set(g.x, o); Y.set(g.y, o); R.set(g.r, o); C.set(g.cos, o); S.set(g.solid, o);
+    o += g.n;
+  }
+  return { n, x: X, y: Y, r: R, cos: C, solid: S };
+}
+
+/** The medial samples of the pairs whose first pixel lies in rows j0 … j1 − 1. */
+export function medialRows(frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array, j0: number, j1: number): MedialSamples {
   const { nx, ny, box } = frame;
   const { seg, vx, vy, dist } = field;
   const geo = set.geo;
@@ -113,7 +136,7 @@ export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField
     else push(cx, cy, 0.5 * (da + db), cos, solid);
   };
 
-  for (let j = 0; j < ny; j++) {
+  for (let j = j0; j < j1; j++) {
     for (let i = 0; i < nx; i++) {
       const p = j * nx + i;
       if (i + 1 < nx) pair(p, p + 1, i, j, i + 1, j);

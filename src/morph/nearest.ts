@@ -16,6 +16,8 @@
  * 3. Polish: each pixel walks along the ring of its segment (previous / next) while that is closer.
  */
 import type { Frame } from './frame.js';
+import { bands, float32, float64, int32, runSplit } from '../parallel/lanes.js';
+import { rasterLanes } from './split.js';
 import { type SegmentSet, segDist2 } from './segments.js';
 
 export interface NearestField {
@@ -28,27 +30,53 @@ export interface NearestField {
   readonly dist: Float32Array;
 }
 
-/** Computes the nearest segment, the foot vector and the distance of every pixel of `frame`. */
+/**
+ * Computes the nearest segment, the foot vector and the distance of every pixel of `frame`. The seeding and the
+ * final polish treat each row on its own and are split into row bands on large rasters (src/parallel); the
+ * sweeps carry information from row to row and stay on the calling thread.
+ */
 export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   const { nx, ny } = frame;
   const N = nx * ny;
-  const seg = new Int32Array(N).fill(-1);
-  const best = new Float64Array(N).fill(Infinity);
-  const geo = set.geo;
+  const lanes = rasterLanes(N);
+  const shared = lanes > 1;
+  const seg = int32(N, shared).fill(-1);
+  const best = float64(N, shared).fill(Infinity);
+  const vx = float32(N, shared);
+  const vy = float32(N, shared);
+  const dist = float32(N, shared).fill(Infinity);
+  const { geo, prev, next } = set;
+  const rows = bands(ny, lanes);
+  const here = import.meta.url;
+  runSplit(here, 'seedRows', seedRows, rows.map(([a, b]) => [geo, set.n, seg, best, nx, ny, a, b] as const));
+  if (set.n > 0) {
+    for (let round = 0; round < 2; round++) sweep(nx, ny, seg, best, geo);
+  }
+  runSplit(here, 'polishRows', polishRows, rows.map(([a, b]) => [geo, prev, next, seg, best, vx, vy, dist, nx, a, b] as const));
+  return { seg, vx, vy, dist };
+}
 
-  // 1. seeds
-  for (let s = 0; s < set.n; s++) {
+/**
+ * Step 1 for rows j0 … j1 − 1: each segment, walked in steps of ½ pixel, is offered to the 3×3 pixels around
+ * each step; a pixel keeps the first segment at its smallest distance (segments in id order, so the result does
+ * not depend on how the rows are banded).
+ */
+export function seedRows(
+  geo: Float64Array, n: number, seg: Int32Array, best: Float64Array, nx: number, ny: number, j0: number, j1: number,
+): void {
+  for (let s = 0; s < n; s++) {
     const o = 5 * s;
     const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
+    if (Math.max(ay, ay + dy) < j0 - 2 || Math.min(ay, ay + dy) > j1 + 1) continue;
     const steps = Math.ceil(2 * Math.sqrt(dx * dx + dy * dy)) + 1;
     for (let k = 0; k <= steps; k++) {
       const t = k / steps;
       const ci = Math.round(ax + t * dx);
       const cj = Math.round(ay + t * dy);
-      const j0 = Math.max(0, cj - 1), j1 = Math.min(ny - 1, cj + 1);
-      const i0 = Math.max(0, ci - 1), i1 = Math.min(nx - 1, ci + 1);
-      for (let j = j0; j <= j1; j++) {
-        for (let i = i0; i <= i1; i++) {
+      const ja = Math.max(j0, 0, cj - 1), jb = Math.min(j1 - 1, ny - 1, cj + 1);
+      const ia = Math.max(0, ci - 1), ib = Math.min(nx - 1, ci + 1);
+      for (let j = ja; j <= jb; j++) {
+        for (let i = ia; i <= ib; i++) {
           const p = j * nx + i;
           if (seg[p] === s) continue;
           const d2 = segDist2(geo, s, i, j);
@@ -60,25 +88,24 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
       }
     }
   }
-  if (set.n > 0) {
-    for (let round = 0; round < 2; round++) sweep(nx, ny, seg, best, geo);
-  }
+}
 
-  // 3. foot vectors and distances
-  const vx = new Float32Array(N);
-  const vy = new Float32Array(N);
-  const dist = new Float32Array(N).fill(Infinity);
-  const d2 = (s: number, i: number, j: number): number => segDist2(geo, s, i, j);
-  const { prev, next } = set;
-  for (let j = 0, p = 0; j < ny; j++) {
+/**
+ * Step 3 for rows j0 … j1 − 1: each pixel walks along the ring of its segment while a neighbouring segment is
+ * closer (short segments of a curve have Voronoi wedges thinner than a pixel, which propagation between pixel
+ * centres can step over), then gets its foot vector and distance.
+ */
+export function polishRows(
+  geo: Float64Array, prev: Int32Array, next: Int32Array, seg: Int32Array, best: Float64Array,
+  vx: Float32Array, vy: Float32Array, dist: Float32Array, nx: number, j0: number, j1: number,
+): void {
+  for (let j = j0, p = j0 * nx; j < j1; j++) {
     for (let i = 0; i < nx; i++, p++) {
       let s = seg[p];
       if (s < 0) continue;
-      // walk along the ring while a neighbouring segment is closer: short segments of a curve have Voronoi
-      // wedges thinner than a pixel, which propagation between pixel centres can step over
       let b = best[p];
-      for (let t = prev[s], e = d2(t, i, j); e < b && t !== s; t = prev[t], e = d2(t, i, j)) { s = t; b = e; }
-      for (let t = next[s], e = d2(t, i, j); e < b && t !== s; t = next[t], e = d2(t, i, j)) { s = t; b = e; }
+      for (let t = prev[s], e = segDist2(geo, t, i, j); e < b && t !== s; t = prev[t], e = segDist2(geo, t, i, j)) { s = t; b = e; }
+      for (let t = next[s], e = segDist2(geo, t, i, j); e < b && t !== s; t = next[t], e = segDist2(geo, t, i, j)) { s = t; b = e; }
       seg[p] = s;
       const o = 5 * s;
       const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
@@ -90,45 +117,77 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
       dist[p] = Math.sqrt(fx * fx + fy * fy);
     }
   }
-  return { seg, vx, vy, dist };
 }
 
-/** One forward and one backward four-scan pass (8 neighbours). */
+/**
+ * One forward and one backward four-scan pass (8 neighbours). A pixel takes a neighbour's segment only when it is
+ * strictly closer, so its best distance only falls: a segment it has just tested (the same one held by the
+ * previous neighbour) is skipped, which changes nothing but the work.
+ */
 function sweep(nx: number, ny: number, seg: Int32Array, best: Float64Array, geo: Float64Array): void {
-  // Takes segment seg[q] for pixel p = (i, j) when it is closer to p's centre.
-  const take = (p: number, q: number, i: number, j: number): void => {
-    const s = seg[q];
-    if (s < 0 || s === seg[p]) return;
-    const d2 = segDist2(geo, s, i, j);
-    if (d2 < best[p]) {
-      best[p] = d2;
-      seg[p] = s;
-    }
-  };
   for (let j = 0; j < ny; j++) {
     const row = j * nx;
     for (let i = 0; i < nx; i++) {
       const p = row + i;
-      if (i > 0) take(p, p - 1, i, j);
-      if (j > 0) {
-        if (i > 0) take(p, p - nx - 1, i, j);
-        take(p, p - nx, i, j);
-        if (i < nx - 1) take(p, p - nx + 1, i, j);
+      let cur = seg[p], b = best[p], last = cur;
+      if (i > 0) {
+        const s = seg[p - 1];
+        if (s >= 0 && s !== last) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
       }
+      if (j > 0) {
+        const q = p - nx;
+        if (i > 0) {
+          const s = seg[q - 1];
+          if (s >= 0 && s !== last && s !== cur) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        }
+        let s = seg[q];
+        if (s >= 0 && s !== last && s !== cur) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        if (i < nx - 1) {
+          s = seg[q + 1];
+          if (s >= 0 && s !== last && s !== cur) { const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        }
+      }
+      seg[p] = cur;
+      best[p] = b;
     }
-    for (let i = nx - 2; i >= 0; i--) take(row + i, row + i + 1, i, j);
+    for (let i = nx - 2; i >= 0; i--) pull(row + i, row + i + 1, i, j, seg, best, geo);
   }
   for (let j = ny - 1; j >= 0; j--) {
     const row = j * nx;
     for (let i = nx - 1; i >= 0; i--) {
       const p = row + i;
-      if (i < nx - 1) take(p, p + 1, i, j);
-      if (j < ny - 1) {
-        if (i < nx - 1) take(p, p + nx + 1, i, j);
-        take(p, p + nx, i, j);
-        if (i > 0) take(p, p + nx - 1, i, j);
+      let cur = seg[p], b = best[p], last = cur;
+      if (i < nx - 1) {
+        const s = seg[p + 1];
+        if (s >= 0 && s !== last) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
       }
+      if (j < ny - 1) {
+        const q = p + nx;
+        if (i < nx - 1) {
+          const s = seg[q + 1];
+          if (s >= 0 && s !== last && s !== cur) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        }
+        let s = seg[q];
+        if (s >= 0 && s !== last && s !== cur) { last = s; const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        if (i > 0) {
+          s = seg[q - 1];
+          if (s >= 0 && s !== last && s !== cur) { const d = segDist2(geo, s, i, j); if (d < b) { b = d; cur = s; } }
+        }
+      }
+      seg[p] = cur;
+      best[p] = b;
     }
-    for (let i = 1; i < nx; i++) take(row + i, row + i - 1, i, j);
+    for (let i = 1; i < nx; i++) pull(row + i, row + i - 1, i, j, seg, best, geo);
+  }
+}
+
+/** Pixel p = (i, j) takes the segment of pixel q when it is strictly closer to p's centre. */
+function pull(p: number, q: number, i: number, j: number, seg: Int32Array, best: Float64Array, geo: Float64Array): void {
+  const s = seg[q];
+  if (s < 0 || s === seg[p]) return;
+  const d = segDist2(geo, s, i, j);
+  if (d < best[p]) {
+    best[p] = d;
+    seg[p] = s;
   }
 }

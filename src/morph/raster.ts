@@ -1,6 +1,7 @@
 /** The phase mask of an outline on the raster frame (frame.ts). mm, y up. */
 import type { Frame } from './frame.js';
 import type { SegmentSet } from './segments.js';
+import { rasterLanes } from './split.js';
 
 /**
  * Phase mask: 1 where the pixel centre is solid, 0 where it is void, by an even-odd scanline fill of all rings
@@ -30,7 +31,8 @@ export function phaseMask(frame: Frame, set: SegmentSet): Uint8Array {
     const hi = Math.min(ny, Math.ceil(Math.max(ay, by)));
     for (let j = lo; j < hi; j++) xs[fill[j]++] = ax + ((j - ay) * dx) / dy;
   }
-  const mask = new Uint8Array(nx * ny);
+  // shared memory when the medial pass will be split (medial.ts), so that its lanes read the mask without a copy
+  const mask = rasterLanes(nx * ny) > 1 ? new Uint8Array(new SharedArrayBuffer(nx * ny)) : new Uint8Array(nx * ny);
   for (let j = 0; j < ny; j++) {
     const row = xs.subarray(count[j], count[j + 1]);
     row.sort();

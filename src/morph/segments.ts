@@ -8,6 +8,8 @@
  */
 import type { PolygonSet, Ring } from '../types.js';
 import type { Frame } from './frame.js';
+import { float64, int32 } from '../parallel/lanes.js';
+import { rasterLanes } from './split.js';
 
 /** Directed boundary segments; the solid lies on their left. */
 export interface SegmentSet {
@@ -33,10 +35,12 @@ export function segmentsOf(polygons: PolygonSet, frame: Frame): SegmentSet {
       }
     }
   }
-  const geo = new Float64Array(5 * total);
-  const normal = new Float64Array(2 * total);
-  const prev = new Int32Array(total);
-  const next = new Int32Array(total);
+  // shared memory when the raster passes will be split, so that the other lanes read these without a copy
+  const shared = rasterLanes(frame.nx * frame.ny) > 1;
+  const geo = float64(5 * total, shared);
+  const normal = float64(2 * total, shared);
+  const prev = int32(total, shared);
+  const next = int32(total, shared);
   const sx = 1 / frame.pixel;
   let n = 0;
   for (const ring of rings) {

@@ -11,7 +11,7 @@ import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
 import { escapeHtml } from './escape.js';
 import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
-import { dataUrl, encodePng, pngDataUrl } from './png.js';
+import { dataUrl, encodePng, encodePngLater, pngDataUrl } from './png.js';
 import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';
 import { stressFigure } from './stress-figure.js';
 import {
@@ -103,6 +103,9 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
   } catch {
     f = null; // an empty domain has no plan figures
   }
+  // the density picture is encoded on another lane, when there is one, while this thread does the rest
+  const density = f && p.grid ? densityRaster(p.grid, MAX_PICTURE_SIDE) : null;
+  const densityPng = density ? encodePngLater(density.image) : null;
   const out: string[] = [];
   let n = 0;
   const size = `${fmt(domain[2] - domain[0])} × ${fmt(domain[3] - domain[1])} mm`;
@@ -113,25 +116,27 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
     out.push(`<svg class="defs" width="0" height="0" aria-hidden="true"><defs>${defs.join('')}</defs></svg>`);
   }
   const outlineUse = hasOutline ? '<use href="#rf-outline"/>' : '';
-  if (f && p.grid) {
-    const ras = densityRaster(p.grid, MAX_PICTURE_SIDE);
-    const img = placedImage(f, pngDataUrl(encodePng(ras.image)), ras.extent, 'input density');
+  const densityAt = out.length;
+  let densityFigure: (() => string) | null = null;
+  if (f && p.grid && density && densityPng) {
+    const plan = f;
+    const ras = density;
     const k = Math.round(p.grid.nx / ras.image.width) || 1;
-    const body = `<g clip-path="url(#rf-domain)">${img}</g>${domainRect(f)}<g class="ol-density">${outlineUse}</g>${findingMarkers(findings, f)}${scaleBar(f)}`;
+    const rest = `${domainRect(f)}<g class="ol-density">${outlineUse}</g>${findingMarkers(findings, f)}${scaleBar(f)}`;
     const px = `${ras.image.width} × ${ras.image.height} px${k > 1 ? `, each pixel the mean of up to ${k} × ${k} samples` : ''}`;
     const marks =
       findings.length > 0
         ? ` Numbered rings mark the findings (red: failed check, amber: warning); the numbers are those of the findings table.`
         : ' No located findings.';
-    out.push(
-      figure(
-        ++n,
-        'fig-density',
-        planSvg(f, 'input density with the final outline and findings', body),
-        `Input density over the ${escapeHtml(size)} domain (grey: density 1 dark, 0 white; ${escapeHtml(px)})` +
-          `${hasOutline ? ' with the final outline in blue (material tinted)' : ''}.${marks}`,
-      ),
-    );
+    const caption =
+      `Input density over the ${escapeHtml(size)} domain (grey: density 1 dark, 0 white; ${escapeHtml(px)})` +
+      `${hasOutline ? ' with the final outline in blue (material tinted)' : ''}.${marks}`;
+    const num = ++n;
+    densityFigure = () => {
+      const img = placedImage(plan, pngDataUrl(densityPng.join()), ras.extent, 'input density');
+      return figure(num, 'fig-density', planSvg(plan, 'input density with the final outline and findings', `<g clip-path="url(#rf-domain)">${img}</g>${rest}`), caption);
+    };
+    out.push(''); // filled in below, once the picture is encoded
   } else if (p.outlineSvg) {
     const url = dataUrl('image/svg+xml', new TextEncoder().encode(p.outlineSvg));
     out.push(
@@ -175,6 +180,7 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
       ),
     );
   }
+  if (densityFigure) out[densityAt] = densityFigure();
   if (p.curve) {
     const chart = levelCurveSvg(p.curve, r.threshold);
     if (chart) {

@@ -9,6 +9,7 @@
  * over the chunk type and data (RFC 2083 §3.4 and Annex 15).
  */
 import { deflate } from 'pako';
+import { type Pending, submit } from '../parallel/lanes.js';
 import { crc32 } from '../write/crc32.js';
 
 /** PNG colour types this encoder writes: 0 grey, 2 RGB, 4 grey + alpha, 6 RGB + alpha (8 bits per sample). */
@@ -80,6 +81,17 @@ export function encodePng(image: RasterImage): Uint8Array {
     o += p.length;
   }
   return out;
+}
+
+/** Smallest picture (bytes of samples) worth encoding on another thread: level-9 deflate runs at ~1–2 MB/s. */
+const LATER_BYTES = 256 * 1024;
+
+/**
+ * Starts encoding `image` on another lane (src/parallel) when there is one and the picture is large enough;
+ * `join()` gives the same bytes as encodePng(image).
+ */
+export function encodePngLater(image: RasterImage): Pending<Uint8Array> {
+  return submit({ module: import.meta.url, name: 'encodePng', args: [image] }, () => encodePng(image), image.data.length, LATER_BYTES);
 }
 
 /** A `data:<mime>;base64,…` URL (RFC 2397) of `bytes`. */

@@ -15,6 +15,7 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 /** The layers, lowest first: a module may import from its own layer or a lower one, never a higher one. */
 export const LAYERS: readonly (readonly string[])[] = [
   ['src/types.ts', 'src/errors.ts', 'src/version.ts', 'src/settings.ts'],
+  ['src/parallel'],
   ['src/geom'],
   ['src/read', 'src/field', 'src/contour', 'src/smooth', 'src/threshold', 'src/passive', 'src/morph', 'src/check', 'src/repair', 'src/write', 'src/fe', 'src/loads', 'src/json', 'src/input.ts'],
   ['src/report'],
