@@ -1,31 +1,11 @@
 /**
- * Concave corners of the solid that a milling tool of radius R cannot reach.
+ * Concave corners of the solid that a milling tool of radius R cannot reach (docs/notes/morph.md, "Corners").
  *
- * Frame: pixel units of raster.ts inside; results in millimetres, y up, origin at the lower-left corner of the
- * grid. Outside the domain is open space the tool may come from (the raster is padded by more than R).
- *
- * 1. Machinable void = the opening of the void by the disc B_R = the union of all discs of radius ≥ R inside the
- *    void. A void pixel c with distance d(c) ≥ R is a tool position; pixel p is reached iff some such c has
- *    |p − c|² − d(c)² ≤ 0 (power distance): one distance transform of the sampled function f(c) = −d(c)²
- *    (Felzenszwalb & Huttenlocher 2012, DOI 10.4086/toc.2012.v008a019), which also returns the minimising c.
- * 2. Sampling the tool positions at pixel centres misses discs whose centre falls between them; so a pixel left
- *    unreached gets an exact second chance: the disc of radius R tangent to the boundary at the pixel's nearest
- *    boundary point is tested against the nearby segments (it reaches the pixel when it fits). Along a wall whose
- *    curvature radius is ≥ R this always succeeds, so no spurious uncut pixels line smooth walls.
- * 3. Uncut pixels (void, inside the domain, unreached) are grouped by 8-connectivity; a group's depth is the
- *    largest |p − c| − d(c) over its pixels (c = the power-nearest tool position); groups deeper than `depth`
- *    are corners.
- * 4. Corner radius: for boundary points f of the group (the nearest boundary points of its pixels, and its
- *    polygon vertices that turn by ≥ 15° towards the void), the largest disc inside the void that contains f
- *    — centred on the void-side normal at f, found by bisection on the radius against the exact segments. The
- *    corner's radius is the smallest over its points, capped at R; a sharp vertex gives 0, a fillet of radius
- *    ρ < R gives ρ, a slot narrower than 2R gives its half-width (uncut too: correct for a milling tool).
- * 5. A fillet reaches us as a polygon (vertices on the arc). Taken literally, the largest disc tangent to a chord
- *    at a point a from a vertex turning by Δ has radius ≈ 2a/Δ, far below ρ near every vertex; so the radius
- *    search treats vertices turning by less than 15° as points of a smooth curve: the normal at f is blended
- *    between the end vertices' bisector normals, and a segment may cut into the disc by its own sagitta
- *    r − √(r² − L²/4) for that disc (≤ ¼ pixel; not next to a vertex turning ≥ 15° into the void). The fit test
- *    walks each candidate segment's ring towards (x, y), so the closest segment is never missed.
+ * Frame: pixel units of frame.ts inside; results in mm, y up, origin at the lower-left corner of the grid. The
+ * raster is padded by more than R: outside the domain is open space the tool may come from.
+ * Machinable void = the opening of the void by the disc B_R, from one power distance transform of the tool
+ * positions (Felzenszwalb & Huttenlocher 2012, DOI 10.4086/toc.2012.v008a019); uncut pixels grouped by
+ * 8-connectivity; each group's corner radius by bisection on the largest disc in the void at its boundary points.
  */
 import type { CornerPlace, CornerSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
@@ -67,7 +47,7 @@ export function cornerSurvey(
   const N = nx * ny;
   const R = toolRadius / pixel;
 
-  // nearest distance from (x, y) to the segments held by the 3×3 pixels around it (and `extra`)
+  // distance from (x, y) to the segments held by the 3×3 pixels around it (and `extra`)
   const near = (x: number, y: number, extra: number): number => {
     let best = Infinity;
     if (extra >= 0) best = segD2(geo, extra, x, y);
@@ -80,14 +60,11 @@ export function cornerSurvey(
     }
     return Math.sqrt(best);
   };
-  // a disc may cut into the polygon by this much (pixel units) and still count as fitting (rounding only; the
-  // chords of a polygonised curve get their own allowance in chordFits)
+  // rounding allowance of the fit test (pixel units); chords of a curve get their own in chordFits
   const slack = Math.max(FIT_SLACK, 1e-6 * R);
 
-  // Fit test of the radius search. A polygonised smooth curve (vertices on the curve, turning by less than
-  // VERTEX_TURN) pokes its chords into the disc of the curve's own radius by their sagitta r − √(r² − L²/4),
-  // however fine the pixel; so each segment may cut into the disc by its sagitta for that disc (at most
-  // SAGITTA_CAP pixel), except a segment ending at a vertex that turns sharply towards the void (a real corner).
+  // Fit test of the radius search: a segment may cut into the disc by its own sagitta for it (≤ SAGITTA_CAP),
+  // unless it ends at a vertex turning sharply into the void (docs/notes/morph.md, step 5)
   const sharp = sharpEnds(set);
   const chordFits = (x: number, y: number, r: number, extra: number): boolean => {
     const ci = Math.round(x), cj = Math.round(y);
@@ -100,9 +77,7 @@ export function cornerSurvey(
       const sag = Math.min(SAGITTA_CAP, r - Math.sqrt(Math.max(0, r * r - q)));
       return d >= r - slack - sag;
     };
-    // from a candidate, walk the ring both ways while the segments come closer to (x, y): the candidates are
-    // the nearest segments of the 3×3 pixels around (x, y), which can be up to ~0.7 pixel farther than the
-    // ring's closest segment to (x, y) itself
+    // walk the ring both ways from each candidate while the segments come closer to (x, y)
     const walkFrom = (s0: number, step: Int32Array): boolean => {
       let s = s0, d = segD2(geo, s0, x, y);
       for (let k = 0; k < WALK_MAX; k++) {
@@ -203,16 +178,13 @@ export function cornerSurvey(
         const o = 5 * s;
         const t = ((fx - geo[o]) * geo[o + 2] + (fy - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
         if (t > 1e-6 && t < 1 - 1e-6) {
-          // the normal blended linearly between the end vertices' normals (a vertex's normal is the bisector of
-          // its two segments' normals when it turns by less than VERTEX_TURN, else this segment's): on a
-          // polygonised smooth curve it follows the curve's normal instead of jumping at every vertex
+          // normal blended between the end vertices' normals: follows a polygonised curve's normal
           const [ax, ay] = vertexNormal(set, s, 0), [bx, by] = vertexNormal(set, s, 1);
           const mx = (1 - t) * ax + t * bx, my = (1 - t) * ay + t * by;
           const l = hypot(mx, my);
           ux = -mx / l; uy = -my / l;
         } else {
-          // foot on a vertex: a vertex turning towards the void is touched along its bisector; a vertex turning
-          // away (a convex corner of the solid) along the direction to the pixel
+          // foot on a vertex: along its bisector when it turns into the void, else towards the pixel
           const [sa, sb] = t <= 1e-6 ? [set.prev[s], s] : [s, set.next[s]];
           const ax = set.normal[2 * sa], ay = set.normal[2 * sa + 1], bx = set.normal[2 * sb], by = set.normal[2 * sb + 1];
           const l = hypot(ax + bx, ay + by);

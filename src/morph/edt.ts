@@ -1,14 +1,9 @@
 /**
- * Distance transform of a sampled function with the location of the minimum.
- *
- * D(p) = min_q |p − q|² + f(q) over the pixels q of an nx × ny raster (pixel units, row-major, j up), by the
- * separable lower-envelope-of-parabolas algorithm of P.F. Felzenszwalb & D.P. Huttenlocher, "Distance transforms
- * of sampled functions", Theory of Computing 8(19):415–428, 2012, DOI 10.4086/toc.2012.v008a019: a 1-D pass down
- * every column, then a 1-D pass along every row. f may be any finite value (negative too: with f = −ρ² it is the
- * power distance to discs of radius ρ) or +Infinity (no sample). Linear time.
- *
- * Each pass treats its columns (rows) independently, so on large rasters the columns (then the rows) are split
- * into bands over the lanes (src/parallel); every band does the serial arithmetic, so the bytes do not change.
+ * Distance transform of a sampled function with the location of the minimum: D(p) = min_q |p − q|² + f(q) over
+ * an nx × ny raster (pixel units, row-major, j up), f finite (negative too) or +Infinity (no sample). Separable
+ * lower envelope of parabolas, columns then rows: P.F. Felzenszwalb & D.P. Huttenlocher, "Distance transforms of
+ * sampled functions", Theory of Computing 8(19):415–428, 2012, DOI 10.4086/toc.2012.v008a019. Large rasters split
+ * each pass into bands (src/parallel) with the same arithmetic.
  */
 import { bands, float64, int32, runSplit } from '../parallel/lanes.js';
 import { rasterLanes } from './split.js';
@@ -20,7 +15,7 @@ export interface SampledTransform {
   readonly arg: Int32Array;
 }
 
-/** Columns gathered at once in the column pass, so that each row's cache line is read once per block. */
+/** Columns gathered at once in the column pass (one cache line of each row per block). */
 const BLOCK = 16;
 
 /** The array to fill with f for an nx·ny transform (shared memory when the transform will be split). */

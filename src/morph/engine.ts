@@ -1,11 +1,7 @@
 /**
  * The morphology engine: one raster, one feature transform, then local widths, tool corners and a thickness
- * picture on demand.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid (docs/conventions.md). The raster has
- * square pixels of `options.pixel` mm; pixel centres sit at domain origin + (i + ½)·pixel (plus a margin of
- * open space around the domain). Outside the domain is open space (void) for both phases (docs/checks/README.md).
- * Methods and accuracy: docs/checks/min-member-size.md, min-hole-size.md, min-inner-radius.md.
+ * picture on demand. Frame: mm, y up, origin at the lower-left corner of the grid; square pixels of
+ * `options.pixel` mm plus a margin of open space. Methods: docs/notes/morph.md; accuracy: docs/checks/.
  */
 import type { PolygonSet } from '../types.js';
 import type { CornerSurvey, MedialPoints, Morphology, MorphologyOptions, Phase, ThicknessMap, WidthSurvey } from './types.js';
@@ -20,11 +16,7 @@ import { medialPoints, widthSurvey } from './width.js';
 
 /** Open-space margin (pixels) of the first raster; corners() rebuilds with a wider one when the tool needs it. */
 const BASE_PAD = 6;
-/**
- * Refuse rasters larger than this (pixels, margin included): the nearest-segment transform and the masks hold
- * about 25 bytes per pixel (nearest.ts, raster.ts), so 24 M pixels is about 0.6 GB — a guard against runaway
- * memory, not a working size (choosePixel aims at 4 M; only a wide tool margin comes near it).
- */
+/** Largest raster (pixels, margin included): ~25 bytes a pixel, so about 0.6 GB — a guard, not a working size. */
 const MAX_RASTER = 24_000_000;
 
 interface Stage {
@@ -76,10 +68,7 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
       if (!(depth >= 0)) throw new RangeError(`corners: expected a depth ≥ 0 mm, found ${depth}`);
       let st = base;
       if (padFor(toolRadius, pixel) > base.frame.pad) {
-        // The tool may come from open space as far as its radius past the domain. When that margin at this
-        // pixel would more than double the raster (or pass its limit), the survey runs on a coarser raster (its
-        // resolution, half a pixel, says so) rather than refusing: a tool large against the part needs no fine
-        // pixel, and the cost stays in proportion to the first raster.
+        // a margin that would more than double the raster: survey on a coarser one (docs/notes/morph.md)
         const budget = Math.min(MAX_RASTER, 2 * base.frame.nx * base.frame.ny);
         let p = pixel;
         for (;;) {

@@ -1,17 +1,13 @@
 /**
- * The raster frame of the morphology engine.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid. The raster covers the domain rectangle
- * plus `pad` pixels of open space (void) on every side, with square pixels of size `pixel` (mm). Internally
- * everything is in pixel units: pixel (i, j) is centred at (i, j), i.e. at mm
- * (x0 + (i + ½)·pixel, y0 + (j + ½)·pixel) with x0 = minX − pad·pixel, y0 = minY − pad·pixel.
+ * The raster frame of the morphology engine: the domain plus `pad` pixels of open space on every side, square
+ * pixels of `pixel` mm. Inside, pixel (i, j) is centred at (i, j): mm (x0 + (i + ½)·pixel, y0 + (j + ½)·pixel).
  */
 export interface Frame {
   /** Pixel size, mm. */
   readonly pixel: number;
-  /** Pixels of open space added on each side of the domain. */
+  /** Pixels of open space on each side. */
   readonly pad: number;
-  /** Pixels across / up, padding included. */
+  /** Pixels across / up, margin included. */
   readonly nx: number;
   readonly ny: number;
   /** mm coordinates of the lower-left corner of pixel (0, 0). */

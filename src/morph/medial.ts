@@ -1,25 +1,10 @@
 /**
- * Medial points between neighbouring pixels: where the nearest boundary segment changes, the point between
- * the two pixel centres that is equally far from both segments is a sample of the medial axis.
- *
- * Frame: pixel units of raster.ts (pixel (i, j) centred at (i, j), y up).
- *
- * For every 8-neighbour pair (p, q) with different nearest segments a = seg(p), b = seg(q):
- * - a quick reject when the directions to the boundary seen from p and q (the gradient of the signed distance)
- *   differ by less than 60°: no medial point of separation angle ≥ 90° lies between them;
- * - the root c of D_a(x) − D_b(x) on the segment pq (exact when both feet are inside their segments: the
- *   distances are then linear along pq; otherwise three regula-falsi steps); r = D_a(c) = D_b(c);
- * - the phase at c, from the side of segment a (pseudo-normal at a vertex): a pair of solid pixels around a thin
- *   void sliver yields a void sample, a solid pixel next to a void pixel across a sub-pixel strut a solid one.
- *   The side test is exact only where the foot is a nearest boundary point (Bærentzen & Aanæs 2005, segments.ts);
- *   so the side of b is asked too, and a root where the two disagree is dropped: a third segment between the
- *   feet is closer there (e.g. a short edge from a concave to a convex vertex that no pixel holds as nearest),
- *   so c is not on the medial axis — kept, it became a "void" sample inside the solid beside a concave vertex;
- * - the separation angle θ at c between the two feet (Foskey, Lin & Manocha, "Efficient computation of a
- *   simplified medial axis", Proc. 8th ACM Symposium on Solid Modeling and Applications, 2003,
- *   DOI 10.1145/781606.781623 — title and authors confirmed, DOI from memory).
- * - a sample that a third segment comes closer to is snapped onto the medial vertex (vertex.ts).
- * Samples with θ ≥ 90° whose c lies in the domain are kept; the width checks count those with θ ≥ 120°.
+ * Medial samples between neighbouring pixels: where the nearest boundary segment changes between two pixels,
+ * the point on the line between their centres equidistant from both segments, with its radius, separation angle
+ * θ (Foskey, Lin & Manocha, "Efficient computation of a simplified medial axis", Proc. 8th ACM Symposium on Solid
+ * Modeling and Applications, 2003, DOI 10.1145/781606.781623 — DOI from memory) and phase. Samples with θ ≥ 90°
+ * inside the domain are kept. Steps and the reasons for them: docs/notes/morph.md, "Medial samples".
+ * Frame: pixel units of frame.ts (pixel (i, j) centred at (i, j), y up).
  */
 import type { NearestField } from './nearest.js';
 import type { Frame } from './frame.js';
@@ -125,9 +110,7 @@ export function medialRows(frame: Frame, set: SegmentSet, field: NearestField, p
     if (!(da > 1e-9 && db > 1e-9)) return;
     const cos = (ax * bx + ay * by) / (da * db);
     if (cos > 0) return;
-    // the phase at c: both feet are nearest boundary points of a true medial point, so the side of a and the side
-    // of b agree there; when they do not, a third segment between the two feet is closer (a short edge between
-    // a concave and a convex vertex that no pixel holds as its nearest) and c is no medial point of a and b
+    // the sides of a and b agree at a true medial point; where they do not, a third segment is closer
     const sa = sideOf(set, a, cx, cy), sb = sideOf(set, b, cx, cy);
     if ((sa > 0 && sb < 0) || (sa < 0 && sb > 0)) return;
     const solid = (sa !== 0 ? sa : sb) > 0 ? 1 : 0;

@@ -1,19 +1,11 @@
 /**
- * Feature transform: for every pixel, the boundary segment nearest to its centre, and the exact distance.
+ * Feature transform: for every pixel, the boundary segment nearest to its centre, the foot vector and the exact
+ * distance. One transform serves both phases (the segment list of segments.ts).
  *
- * Frame: pixel units of raster.ts (pixel (i, j) centred at (i, j), y up). The boundary is the segment list of
- * segments.ts, shared by both phases, so one transform serves the solid and the void.
- *
- * Method: vector propagation in the spirit of P.-E. Danielsson, "Euclidean distance mapping", Computer Graphics
- * and Image Processing 14(3):227–248, 1980, DOI 10.1016/0146-664X(80)90054-4 — but what travels is the id of the
- * nearest *segment*, and every comparison uses the exact point–segment distance to the receiving pixel's centre,
- * so the result is exact wherever the nearest segment of a pixel is the nearest segment of one of its
- * neighbours (Danielsson's rare propagation failures stay, and are sub-pixel).
- * 1. Seed: each segment is walked in steps of ½ pixel; the 3×3 pixels around each step take the segment if it is
- *    closer than what they hold.
- * 2. Sweep: a forward raster pass (neighbours W, SW, S, SE, then E right-to-left) and its backward mirror
- *    (E, NE, N, NW, then W left-to-right): the 8-neighbour four-scan scheme; the pair of passes runs twice.
- * 3. Polish: each pixel walks along the ring of its segment (previous / next) while that is closer.
+ * Vector propagation after P.-E. Danielsson, "Euclidean distance mapping", Computer Graphics and Image
+ * Processing 14(3):227–248, 1980, DOI 10.1016/0146-664X(80)90054-4, carrying segment ids and comparing exact
+ * point–segment distances: seed, two rounds of the 8-neighbour four-scan sweep, polish along the rings
+ * (docs/notes/morph.md, "Feature transform"). Frame: pixel units of frame.ts (pixel (i, j) centred at (i, j), y up).
  */
 import type { Frame } from './frame.js';
 import { bands, float32, float64, int32, runSplit } from '../parallel/lanes.js';
@@ -30,11 +22,7 @@ export interface NearestField {
   readonly dist: Float32Array;
 }
 
-/**
- * Computes the nearest segment, the foot vector and the distance of every pixel of `frame`. The seeding and the
- * final polish treat each row on its own and are split into row bands on large rasters (src/parallel); the
- * sweeps carry information from row to row and stay on the calling thread.
- */
+/** The feature transform of `frame`; seeding and polish split into row bands on large rasters, sweeps serial. */
 export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   const { nx, ny } = frame;
   const N = nx * ny;
@@ -56,11 +44,7 @@ export function nearestField(frame: Frame, set: SegmentSet): NearestField {
   return { seg, vx, vy, dist };
 }
 
-/**
- * Step 1 for rows j0 … j1 − 1: each segment, walked in steps of ½ pixel, is offered to the 3×3 pixels around
- * each step; a pixel keeps the first segment at its smallest distance (segments in id order, so the result does
- * not depend on how the rows are banded).
- */
+/** Seeds rows j0 … j1 − 1: the 3×3 pixels around each ½-pixel step of each segment (in id order) take it when closer. */
 export function seedRows(
   geo: Float64Array, n: number, seg: Int32Array, best: Float64Array, nx: number, ny: number, j0: number, j1: number,
 ): void {
@@ -90,11 +74,7 @@ export function seedRows(
   }
 }
 
-/**
- * Step 3 for rows j0 … j1 − 1: each pixel walks along the ring of its segment while a neighbouring segment is
- * closer (short segments of a curve have Voronoi wedges thinner than a pixel, which propagation between pixel
- * centres can step over), then gets its foot vector and distance.
- */
+/** Polishes rows j0 … j1 − 1: walk along the ring while a neighbouring segment is closer; then foot and distance. */
 export function polishRows(
   geo: Float64Array, prev: Int32Array, next: Int32Array, seg: Int32Array, best: Float64Array,
   vx: Float32Array, vy: Float32Array, dist: Float32Array, nx: number, j0: number, j1: number,
@@ -119,11 +99,7 @@ export function polishRows(
   }
 }
 
-/**
- * One forward and one backward four-scan pass (8 neighbours). A pixel takes a neighbour's segment only when it is
- * strictly closer, so its best distance only falls: a segment it has just tested (the same one held by the
- * previous neighbour) is skipped, which changes nothing but the work.
- */
+/** One forward and one backward four-scan pass (8 neighbours); a segment just tested for a pixel is not tested again. */
 function sweep(nx: number, ny: number, seg: Int32Array, best: Float64Array, geo: Float64Array): void {
   for (let j = 0; j < ny; j++) {
     const row = j * nx;

@@ -1,9 +1,4 @@
-/**
- * Raster resolution of the morphology engine.
- *
- * Frame: millimetres, y up, origin at the lower-left corner of the grid. The raster covers the domain rectangle
- * with square pixels; pixel (i, j) has its centre at (minX + (i + ½)·pixel, minY + (j + ½)·pixel).
- */
+/** Raster resolution of the morphology engine (mm, y up, origin at the lower-left corner of the grid). */
 
 /** Largest subdivision of a grid cell tried by choosePixel. */
 export const MAX_SUBDIVISION = 8;

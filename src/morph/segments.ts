@@ -1,10 +1,6 @@
 /**
- * The boundary as a flat list of directed segments in raster units.
- *
- * Frame: the raster frame of raster.ts — pixel units, y up, pixel (i, j) centred at (i, j); a point (x, y) in mm
- * maps to ((x − x0)/pixel − ½, (y − y0)/pixel − ½). Every ring segment of every polygon (outer rings CCW,
- * holes CW) is a boundary segment, including segments lying on the domain edge: the solid ends there. With that
- * orientation the solid is on the LEFT of every segment, which gives each segment an inward (solid-side) normal.
+ * The boundary as a flat list of directed segments in raster units (frame.ts): every ring segment of every
+ * polygon, domain-edge segments included. Outer rings CCW and holes CW put the solid on the LEFT of every segment.
  */
 import type { PolygonSet, Ring } from '../types.js';
 import type { Frame } from './frame.js';

@@ -1,22 +1,10 @@
 /**
- * Local thickness of the solid on a coarse raster, for pictures.
- *
- * τ(p) = diameter of the largest disc inside the solid that contains p (T. Hildebrand & P. Rüegsegger, "A new
- * method for the model-independent assessment of thickness in three-dimensional images", J. Microscopy
- * 185(1):67–75, 1997, DOI 10.1046/j.1365-2818.1997.1340694.x).
- *
- * Approximation (a picture, not a measurement): each coarse pixel whose centre is solid starts at 2·d, twice
- * its own distance to the boundary (a disc centred on it — a lower bound of τ); then the discs of the solid
- * medial samples with separation angle ≥ 90° (at most one per coarse pixel, the largest) are painted with max;
- * then the discs centred on the coarse ridge pixels of d (d above one neighbour and not below the other along
- * a row, a column or a diagonal). The ridges cover the medial branches into convex corners of 90°–180° (separation angle below
- * 90°, which the medial samples leave out): without them, a point near such a corner (where the part meets
- * the domain edge at a blunt angle, say) would show its own small distance instead of the disc that holds it.
- * Every disc painted lies inside the solid, so each step only raises a lower bound towards τ.
- * Coarse pixels whose centre is void are NaN.
- *
- * Frame: millimetres, y up; coarse pixel (i, j) covers [minX + i·s, minX + (i + 1)·s] × [minY + j·s, …] with
- * s = max(W, H)/maxSide, values[j·nx + i], j counting up from the bottom row.
+ * Local thickness of the solid on a coarse raster, for pictures: τ(p) = diameter of the largest disc inside the
+ * solid that contains p (T. Hildebrand & P. Rüegsegger, "A new method for the model-independent assessment of
+ * thickness in three-dimensional images", J. Microscopy 185(1):67–75, 1997, DOI 10.1046/j.1365-2818.1997.1340694.x).
+ * A lower bound raised three times — own distance, medial discs, ridge discs (docs/notes/morph.md, "Thickness").
+ * Frame: mm, y up; coarse pixel (i, j) covers [minX + i·s, minX + (i + 1)·s] × [minY + j·s, …] with
+ * s = max(W, H)/maxSide; values[j·nx + i], j up; NaN where the coarse centre is void.
  */
 import type { ThicknessMap } from './types.js';
 import type { MedialSamples } from './medial.js';
@@ -95,12 +83,8 @@ export function thicknessMap(
     const r = samples.r[k] * px;
     paint(x, y, r);
   }
-  // discs on the ridges of the distance d (mm) at the coarse centres. The fine pixel's distance is constant
-  // over the pixel, so a coarse raster finer than it would see a staircase whose every step looks like a ridge;
-  // d is therefore carried to the coarse centre c to first order along the direction to the nearest boundary
-  // point (dFine − (c − p)·v/|v|, exact beside a straight edge), which makes d level only where it truly is.
-  // The disc painted at a ridge uses the certain lower bound dFine − |c − p| (d is 1-Lipschitz), so it stays
-  // inside the solid.
+  // d (mm) carried to each coarse centre to first order (d0, for finding ridges) and its certain lower bound
+  // dFine − |c − p| (rIn, the radius painted)
   const d0 = new Float32Array(values.length);
   const rIn = new Float32Array(values.length);
   for (let j = 0; j < cny; j++) {
@@ -130,9 +114,7 @@ export function thicknessMap(
     for (let i = 0; i < cnx; i++) {
       const r = d0[j * cnx + i];
       if (!(r > s)) continue; // NaN (void) or a disc no wider than a coarse pixel: nothing to add
-      // A ridge rises above a neighbour on one side and is not below the other. Not below both is not enough:
-      // where d runs level along a row or column (beside a straight edge, and everywhere in a part without
-      // curvature) every pixel would count, and each would paint a disc — quadratic in the picture size.
+      // above a neighbour on one side and not below the other ("not below both" is quadratic: see the notes)
       let ridge = false;
       for (const [di, dj] of DIRS) {
         const a = at(i - di, j - dj), b = at(i + di, j + dj);
@@ -153,9 +135,7 @@ export function thicknessMap(
       if (!nearSample) ridges.push(j * cnx + i);
     }
   }
-  // largest first, and a disc inside the one that already painted its centre adds nothing (to a pixel's slack):
-  // this skips the many ridges of the discrete distance near smooth convex boundaries, which lie inside the
-  // medial discs there, and keeps the corner branches, whose centres only their own small discs reach
+  // largest first; a disc inside the one that already painted its centre adds nothing
   ridges.sort((a, b) => rIn[b] - rIn[a]);
   for (const c of ridges) {
     const r = rIn[c];

@@ -1,15 +1,8 @@
 /**
- * Snapping a medial sample onto a medial vertex.
- *
- * Frame: pixel units of raster.ts (pixel (i, j) centred at (i, j), y up).
- *
- * A sample between two pixels is equidistant from their two nearest segments a and b. Near a point with three or
- * more nearest segments (the centre of a disc, the end of a strut with a rounded cap) a third segment e may be
- * closer to the sample than a and b: the sample is then not on the medial axis and its radius underestimates
- * the largest disc there by up to about half a pixel. The medial vertex is the point equidistant from the three
- * segment lines, L_s(x) = σ·n_s·(x − a_s) = ρ for s ∈ {a, b, e} (σ = +1 solid, −1 void; n_s the unit normal into
- * the solid): a 3 × 3 linear system (Cramer's rule). It replaces the sample when it lies within two pixels,
- * its feet fall inside the three segments and no nearby segment is closer than ρ; otherwise the sample stays.
+ * Snapping a medial sample onto a medial vertex: where a third segment e is closer to the sample than its two
+ * segments a and b, the point equidistant from the three segment lines (σ·n_s·(x − a_s) = ρ, a 3 × 3 system by
+ * Cramer's rule) replaces it when valid (docs/notes/morph.md, "Medial samples").
+ * Frame: pixel units of frame.ts (pixel (i, j) centred at (i, j), y up).
  */
 import type { SegmentSet } from './segments.js';
 import { segDist2 } from './segments.js';

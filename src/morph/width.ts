@@ -1,12 +1,6 @@
 /**
- * Local width of one phase from the medial samples (medial.ts).
- *
- * Local width at a medial point = the diameter of the largest disc inside the phase centred there (2r). Only
- * points of the θ-simplified medial axis with θ ≥ 120° count (Foskey, Lin & Manocha 2003, DOI
- * 10.1145/781606.781623, DOI from memory): a 90° corner of a thick part (θ = 90°) is never thin, while a strut
- * (θ = 180°), a disc centre, a dangling tip and a wedge sharper than 60° (θ = 180° − angle) are.
- *
- * Frame of the results: millimetres, y up, origin at the lower-left corner of the grid.
+ * Local width of one phase from the medial samples: 2r at the points of the θ-simplified medial axis with
+ * θ ≥ 120° (Foskey, Lin & Manocha 2003; docs/notes/morph.md, "Local width"). Results in mm, y up.
  */
 import type { MedialPoints, Phase, WidthPlace, WidthSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';

@@ -1,13 +1,9 @@
 /**
- * Lanes: the threads a pass may split its work over. The library itself starts no thread and imports no
- * platform module: a host installs lanes (the CLI does, with Node worker threads: node.ts), and without them —
- * in a browser, in a library user's process that did not opt in, or below a size where a thread does not pay —
- * every pass runs on the calling thread. A split pass gives the same bytes either way: each band computes
- * exactly what the serial loop computes for those rows or columns (docs/notes/morph.md, "Both cores").
- *
- * A task names a module by URL and one of its exports; a lane imports that module and calls the export with the
- * task's arguments (structured-cloned; SharedArrayBuffer-backed arrays are shared, not copied). The calling
- * thread runs its own share through the local function it passes, so the module is never imported twice there.
+ * Lanes: the threads a pass may split its work over. The library starts no thread and imports no platform
+ * module: a host installs lanes (the CLI, with worker threads: node.ts); without one — a browser, a library user
+ * who did not opt in, a small pass — everything runs on the calling thread, with the same bytes either way
+ * (docs/notes/morph.md, "Both cores"). A task names a module by URL and an export; its arguments are
+ * structured-cloned, SharedArrayBuffer-backed arrays shared.
  */
 
 /** One call to run on a lane: `export name` of the ES module at `module` (a file: URL), with `args`. */
@@ -50,10 +46,7 @@ export function submit<R>(task: LaneTask, local: () => R, work: number, minWork:
   return { join: () => value };
 }
 
-/**
- * Runs `fn` of `module` once per argument list in `calls`, the first on the calling thread (through `local`, the
- * same function) and the others on other lanes, and returns the values in order.
- */
+/** Runs export `name` of `module` once per argument list, the first here through `local` (the same function); values in order. */
 export function runSplit<A extends unknown[], R>(module: string, name: string, local: (...args: A) => R, calls: readonly A[]): R[] {
   const pending: (Pending<unknown> | null)[] = calls.map((args, k) => (k === 0 || host === null ? null : host.submit({ module, name, args })));
   const out: R[] = new Array<R>(calls.length);

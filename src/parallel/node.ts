@@ -1,11 +1,8 @@
 /**
- * Lanes on Node worker threads (lanes.ts), installed by the CLI. Threads start on the first task, not before,
- * so a run whose passes are all small never pays for them; they are unreferenced, so they never keep the
- * process alive. The calling thread blocks on a shared counter (Atomics.wait) until a task is done and then takes
- * its answer synchronously from the port (receiveMessageOnPort): the pipeline stays synchronous.
- *
- * A lane that fails (its thread cannot start, a task throws) is answered by the caller running the same band
- * itself, and the lanes are removed for the rest of the process: the output never depends on the threads.
+ * Lanes on Node worker threads (lanes.ts), installed by the CLI; unreferenced, so they never keep the process
+ * alive. The caller blocks on a shared counter (Atomics.wait), then takes the answer from the port
+ * (receiveMessageOnPort): the pipeline stays synchronous. A failed task is rerun by the caller and the lanes are
+ * removed for the rest of the process, so the output never depends on the threads.
  */
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
@@ -19,18 +16,13 @@ export const LANES_ENV = 'RHOFORM_THREADS';
 interface Lane {
   readonly worker: Worker;
   readonly port: MessagePort;
-  /** Tasks posted to this lane so far. */
+  /** Tasks posted, answers taken, and answers taken before their own join (task number → answer). */
   posted: number;
-  /** Answers taken from its port so far. */
   taken: number;
-  /** Answers taken out of order, waiting for their join (task number → answer). */
   readonly early: Map<number, { value?: unknown; error?: string }>;
 }
 
-/**
- * Lanes to use: `RHOFORM_THREADS` when it is a positive integer, else os.availableParallelism() (at most 8:
- * the split passes are memory-bound beyond a few threads).
- */
+/** Lanes to use: `RHOFORM_THREADS` when a positive integer, else os.availableParallelism(), at most 8. */
 export function laneTarget(env: Record<string, string | undefined>): number {
   const v = env[LANES_ENV];
   if (v !== undefined && /^[1-9][0-9]*$/.test(v.trim())) return Number(v.trim());
