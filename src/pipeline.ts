@@ -13,6 +13,7 @@ import type { PassiveRegions } from './passive/types.js';
 import { repairStage, type RepairStageRecord } from './repair/stage.js';
 import { assembleReport } from './report/assemble.js';
 import type { HtmlPictures } from './report/html.js';
+import { startDensityPicture } from './report/figures.js';
 import { needsBooleanEngine, type Settings } from './settings.js';
 import type { SmoothResult } from './smooth/smooth.js';
 import { thresholdStage } from './threshold/stage.js';
@@ -99,6 +100,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   lap('read');
   const field = prepareStage(input, read, s, more.passive ?? null);
   lap('prepare');
+  if (s.formats.includes('html')) startDensityPicture(field.grid);
   const threshold = thresholdStage(field, s);
   lap('threshold');
   timings.threshold -= threshold.contourMs + threshold.smoothMs;

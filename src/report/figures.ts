@@ -11,8 +11,9 @@ import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
 import { escapeHtml } from './escape.js';
 import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
-import { dataUrl, encodePng, encodePngLater, pngDataUrl } from './png.js';
-import { densityRaster, thicknessMax, thicknessRaster } from './raster.js';
+import { dataUrl, encodePng, encodePngLater, LATER_BYTES, pngDataUrl } from './png.js';
+import { densityRaster, type PlacedRaster, thicknessMax, thicknessRaster } from './raster.js';
+import { laneCount, type Pending } from '../parallel/lanes.js';
 import { stressFigure } from './stress-figure.js';
 import {
   domainRect,
@@ -52,6 +53,26 @@ export interface HtmlPictures {
 
 /** Largest raster side of the pictures, px. */
 export const MAX_PICTURE_SIDE = 1200;
+
+/** Density pictures started early (startDensityPicture), by grid. */
+const early = new WeakMap<DensityGrid, { readonly raster: PlacedRaster; readonly png: Pending<Uint8Array> }>();
+
+/**
+ * Starts encoding the density picture of a large `grid` on another lane, when there is one, so that it is ready
+ * when the HTML report is formatted (the same bytes as encoding it then); otherwise does nothing.
+ */
+export function startDensityPicture(grid: DensityGrid): void {
+  if (laneCount(grid.values.length, LATER_BYTES) < 2 || early.has(grid)) return;
+  const raster = densityRaster(grid, MAX_PICTURE_SIDE);
+  early.set(grid, { raster, png: encodePngLater(raster.image) });
+}
+
+function densityPicture(grid: DensityGrid): { readonly raster: PlacedRaster; readonly png: Pending<Uint8Array> } {
+  const e = early.get(grid);
+  if (e) return e;
+  const raster = densityRaster(grid, MAX_PICTURE_SIDE);
+  return { raster, png: encodePngLater(raster.image) };
+}
 
 /** The domain of the report frame: the pictures' domain, else the grid's cells, else from the report input. */
 export function pictureDomain(r: Report, p: HtmlPictures): [number, number, number, number] {
@@ -104,8 +125,9 @@ export function figuresHtml(r: Report, p: HtmlPictures, findings: readonly Numbe
     f = null; // an empty domain has no plan figures
   }
   // the density picture is encoded on another lane, when there is one, while this thread does the rest
-  const density = f && p.grid ? densityRaster(p.grid, MAX_PICTURE_SIDE) : null;
-  const densityPng = density ? encodePngLater(density.image) : null;
+  const started = f && p.grid ? densityPicture(p.grid) : null;
+  const density = started ? started.raster : null;
+  const densityPng = started ? started.png : null;
   const out: string[] = [];
   let n = 0;
   const size = `${fmt(domain[2] - domain[0])} × ${fmt(domain[3] - domain[1])} mm`;

@@ -84,7 +84,7 @@ export function encodePng(image: RasterImage): Uint8Array {
 }
 
 /** Smallest picture (bytes of samples) worth encoding on another thread: level-9 deflate runs at ~1–2 MB/s. */
-const LATER_BYTES = 256 * 1024;
+export const LATER_BYTES = 256 * 1024;
 
 /**
  * Starts encoding `image` on another lane (src/parallel) when there is one and the picture is large enough;
