@@ -8,6 +8,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { npyFloat64 } from '../bench/npy-write.js';
 import { platePattern } from '../bench/plate.js';
@@ -15,6 +16,7 @@ import { platePattern } from '../bench/plate.js';
 const root = resolve(import.meta.dirname, '../..');
 const work = mkdtempSync(join(tmpdir(), 'rhoform-threads-'));
 let mainJs = '';
+let distSrc = '';
 
 beforeAll(() => {
   const build = join(work, 'pkg');
@@ -24,6 +26,7 @@ beforeAll(() => {
   writeFileSync(join(build, 'package.json'), '{"type":"module"}\n');
   symlinkSync(join(root, 'node_modules'), join(build, 'node_modules'));
   mainJs = join(build, 'dist/cli/main.js');
+  distSrc = join(build, 'dist/src');
   expect(existsSync(join(build, 'dist/src/parallel/worker.js'))).toBe(true);
   writeFileSync(join(work, 'plate.npy'), npyFloat64(platePattern(1100, 550), 550, 1100));
 }, 120_000);
@@ -48,6 +51,26 @@ function buildWith(threads: string): Map<string, string> {
   }
   return files;
 }
+
+it('runs a task on another thread and answers on the calling one', () => {
+  // the compiled lanes: each call reports the thread it ran on (0 = the main thread)
+  writeFileSync(join(work, 'tid.mjs'), "import { threadId } from 'node:worker_threads'; export function tid(k) { return [k, threadId]; }\n");
+  const script = [
+    `import { startLanes } from '${pathToFileURL(join(distSrc, 'parallel/node.js')).href}';`,
+    `import { runSplit } from '${pathToFileURL(join(distSrc, 'parallel/lanes.js')).href}';`,
+    `import { tid } from '${pathToFileURL(join(work, 'tid.mjs')).href}';`,
+    `const lanes = startLanes(3);`,
+    `console.log(JSON.stringify({ lanes, got: runSplit('${pathToFileURL(join(work, 'tid.mjs')).href}', 'tid', tid, [[0], [1], [2], [3]]) }));`,
+  ].join('\n');
+  writeFileSync(join(work, 'lanes.mjs'), script);
+  const r = spawnSync(process.execPath, [join(work, 'lanes.mjs')], { encoding: 'utf8' });
+  const { lanes, got } = JSON.parse(r.stdout) as { lanes: number; got: [number, number][] };
+  expect(lanes).toBe(3);
+  expect(got.map(([k]) => k)).toEqual([0, 1, 2, 3]);
+  expect(got[0][1]).toBe(0);
+  for (const [, thread] of got.slice(1)) expect(thread).toBeGreaterThan(0);
+  expect(new Set(got.slice(1).map(([, t]) => t)).size).toBe(2);
+}, 60_000);
 
 it('writes the same bytes with one thread and with two', () => {
   const one = buildWith('1');
