@@ -61,7 +61,7 @@ describe('runSplit', () => {
 describe('distance transform of a sampled function, split by columns and rows', () => {
   it('equals the definition min_q |p − q|² + f(q) (Felzenszwalb & Huttenlocher 2012), on one lane and on three', () => {
     // integer samples keep every sum exact, so the brute-force minimum must match to the bit
-    const nx = 1100, ny = 1000;
+    const nx = 1500, ny = 1400;
     let seed = 5;
     const rnd = (): number => (seed = (seed * 16807) % 2147483647) / 2147483647;
     const pts: [number, number, number][] = [];
@@ -88,13 +88,13 @@ describe('distance transform of a sampled function, split by columns and rows', 
 });
 
 describe('morphology engine on 1, 2 and 3 lanes', () => {
-  // a plate with round holes, a thin strut and a slot, on a raster of 1.1 M pixels (over the split size)
+  // a plate with round holes, a thin strut and a slot, on a raster of 2.4 M pixels (over the split size)
   const shape = set(
     poly(rect(0, 0, 120, 100), circle(30, 30, 12), circle(80, 60, 9), rect(60, 10, 100, 12.5)),
     poly(stadium([130, 10], [230, 90], 1.6)),
   );
   const run = (): Buffer[] => {
-    const m = buildMorphology(shape, { domain: [0, 0, 240, 100], pixel: 0.15 });
+    const m = buildMorphology(shape, { domain: [0, 0, 240, 100], pixel: 0.1 });
     const w = m.width('solid', 3), v = m.width('void', 4);
     const md = m.medial('solid', 3);
     const c = m.corners(1, 0.05);
