@@ -1,8 +1,7 @@
 /**
- * A tiny PNG encoder for the pictures of the HTML report: 8-bit samples, no interlace, filter type 0 (None)
- * on every scanline, the image data compressed by zlib (RFC 1950/1951) at level 9 with pako, a JavaScript port of
- * zlib: the same bytes in Node and in a browser (the preview page must write the HTML report byte for byte as the
- * CLI does; Node's own zlib is a fork whose output differs from zlib's and may differ between processors).
+ * A tiny PNG encoder for the report's pictures: 8-bit samples, no interlace, filter 0 (None) on every scanline,
+ * zlib (RFC 1950/1951) level 9 by pako, a JavaScript port of zlib — the same bytes in Node and in a browser (Node's
+ * own zlib is a fork whose output differs, so the preview page could not match the CLI byte for byte).
  *
  * Format: PNG (Portable Network Graphics) Specification, Version 1.0, T. Boutell et al., IETF RFC 2083 (1997),
  * DOI 10.17487/RFC2083; also ISO/IEC 15948:2004. Chunk CRC: CRC-32 with the reflected polynomial 0xEDB88320
@@ -86,10 +85,7 @@ export function encodePng(image: RasterImage): Uint8Array {
 /** Smallest picture (bytes of samples) worth encoding on another thread: level-9 deflate runs at ~1–2 MB/s. */
 export const LATER_BYTES = 256 * 1024;
 
-/**
- * Starts encoding `image` on another lane (src/parallel) when there is one and the picture is large enough;
- * `join()` gives the same bytes as encodePng(image).
- */
+/** Starts encoding `image` on another lane (src/parallel) when there is one and it pays; `join()` = encodePng(image). */
 export function encodePngLater(image: RasterImage): Pending<Uint8Array> {
   return submit({ module: import.meta.url, name: 'encodePng', args: [image] }, () => encodePng(image), image.data.length, LATER_BYTES);
 }
