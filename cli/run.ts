@@ -50,8 +50,11 @@ function runBuild(
   const settings = resolveSettings(args.settings);
   const bytes = inputBytes(resolve(io.cwd, opts.file));
   // Both cores for the large raster passes (src/parallel; RHOFORM_THREADS=1 keeps one thread); the threads
-  // start during the read when the file is large (16 MB: 2 M cells of f8), else at their first task
-  startLanes(laneTarget(io.env), bytes >= 16 * 2 ** 20);
+  // start during the read when the file is large (16 MB: 2 M cells of f8) and a split pass will come (size
+  // checks or the HTML pictures), else at their first task
+  const splits = settings.formats.includes('html') || settings.process !== null ||
+    settings.minMember !== null || settings.minHole !== null || settings.toolRadius !== null;
+  startLanes(laneTarget(io.env), splits && bytes >= 16 * 2 ** 20);
   // Progress (docs/scale.md): a build runs synchronously, so a large input gets one start line on stderr.
   const done = buildNotice(io.stderr, progressMode(args.cli.quiet, io.stderrIsTTY === true), opts.name ?? opts.file, bytes);
   let built: ReturnType<typeof buildFile>;
