@@ -2,10 +2,11 @@
 export type { DensityGrid, Point, Ring, Polygon, PolygonSet, Report, ReportSettings, ThresholdSummary, Domain, CheckResult, Location, Status, InputFormat, RepairRecord } from './types.js';
 export { RhoformError, UsageError, type ErrorCode, type Where } from './errors.js';
 export { DEFAULT_SETTINGS, resolveSettings, needsBooleanEngine, REPAIR_IDS, MIRROR_EDGES, type Settings, type OutputFormat, type SaddleRuleName, type RepairName, type MirrorEdge } from './settings.js';
-export { build, prepareBuild, type BuildResult, type BuildExtras } from './pipeline.js';
+export { build, prepareBuild, thresholdStage, type BuildResult, type BuildExtras } from './pipeline.js';
 // The stages, each callable alone (docs/architecture.md).
 export { prepareStage, type PreparedField } from './field/stage.js';
-export { thresholdStage, outlineStage, type ThresholdRecord, type OutlineRecord, type ThresholdInput, type OutlineInput } from './threshold/stage.js';
+export { thresholdSearch, type ThresholdRun, type ThresholdRecord, type ThresholdInput, type OutlineBuild } from './threshold/stage.js';
+export { outlineStage, type OutlineRecord, type OutlineInput } from './smooth/stage.js';
 export { passiveStage, type PassiveRecord, type PassiveStageInput } from './passive/stage.js';
 export { applyFixedParts, type FixedPartsResult } from './passive/fixed-parts.js';
 export { planStage, checkStage, type CheckPlan, type CheckInput, type CheckRecord } from './check/stage.js';
@@ -13,7 +14,7 @@ export { repairStage, type RepairStageInput, type RepairStageRecord } from './re
 export { writeStage, type WriteStageInput, type WriteRecord } from './write/stage.js';
 export { assembleReport, reportSettings, type ReportRecords } from './report/assemble.js';
 export { inspect, loadGrid, describeInput, type InspectResult, type InputFile } from './input.js';
-export { chooseThreshold, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
+export { chooseThreshold, ThresholdSearch, type LevelRequest, type ThresholdChoice, type ThresholdOptions } from './threshold/choose.js';
 export { readGrid, detectFormat } from './read/detect.js';
 export { readCsv } from './read/csv.js';
 export { readNpy } from './read/npy.js';
@@ -25,7 +26,7 @@ export type { ReadOptions, ReadResult, SamplePosition } from './read/types.js';
 export { fieldStats, histogram, type FieldStats, type Histogram } from './field/stats.js';
 export { prepareGrid, type PrepareOptions, type PrepareResult } from './field/prepare.js';
 export { levelForArea, type LevelAreaModel } from './threshold/search.js';
-export { volumeLevel } from './threshold/volume.js';
+export { volumeLevel, VolumeSearch } from './threshold/volume.js';
 export { contourGrid } from './contour/index.js';
 export { smoothPolygons, type SmoothOptions, type SmoothResult } from './smooth/smooth.js';
 export { writeDxf } from './write/dxf.js';

@@ -16,7 +16,8 @@ import type { HtmlPictures } from './report/html.js';
 import { startDensityPicture } from './report/figures.js';
 import { needsBooleanEngine, type Settings } from './settings.js';
 import type { SmoothResult } from './smooth/smooth.js';
-import { thresholdStage } from './threshold/stage.js';
+import { outlineStage, type OutlineInput, type OutlineSettings } from './smooth/stage.js';
+import { thresholdSearch, type ThresholdInput, type ThresholdRecord, type ThresholdSettings } from './threshold/stage.js';
 import type { StructureCheckInput } from './check/types.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
 import { writeStage, writtenShape, type WrittenShape } from './write/stage.js';
@@ -79,6 +80,13 @@ function structureView(start: StructureStart, d: StructureDesign): StructureChec
 /** Loads the boolean engine when the settings need it; await once before `build`. */
 export async function prepareBuild(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): Promise<void> {
   if (needsBooleanEngine(s)) await loadBooleanEngine();
+}
+
+/** The threshold stage with the outlines it asks for (docs/architecture.md). */
+export function thresholdStage(field: ThresholdInput & OutlineInput, s: ThresholdSettings & OutlineSettings): ThresholdRecord {
+  const search = thresholdSearch(field, s);
+  for (let q = search.next(); q; q = search.next()) search.record(outlineStage(field, q.level, s));
+  return search.finish();
 }
 
 /** `rhoform build`. Throws RhoformError on bad input (exit 2). */

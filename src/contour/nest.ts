@@ -12,12 +12,13 @@
  * Classification is topological; rings whose signed area (mm²) disagrees with it (zero-area rings produced by
  * values exactly at the level) are dropped.
  */
-import type { Polygon, PolygonSet, Ring } from '../types.js';
+import type { Point, Ring } from '../types.js';
 import { ringContains } from '../geom/contains.js';
+import type { FlatPolygonSet } from './flat.js';
 import type { Crossings } from './march.js';
 import type { StitchedRings } from './stitch.js';
 
-export function nest(cr: Crossings, sr: StitchedRings): PolygonSet {
+export function nest(cr: Crossings, sr: StitchedRings): FlatPolygonSet {
   const n = sr.count;
   const bestI = new Int32Array(n).fill(0x7fffffff);
   const isHole = new Uint8Array(n);
@@ -53,37 +54,82 @@ export function nest(cr: Crossings, sr: StitchedRings): PolygonSet {
   }
   const keep = (r: number) => (isHole[r] ? sr.area[r] < 0 : sr.area[r] > 0);
   const slot = new Int32Array(n).fill(-1);
-  const outers: Ring[] = [];
-  const holes: Ring[][] = [];
+  const outers: number[] = [];
+  const holes: number[][] = [];
   for (let r = 0; r < n; r++) {
     if (isHole[r] || !keep(r)) continue;
     slot[r] = outers.length;
-    outers.push(sr.rings[r]);
+    outers.push(r);
     holes.push([]);
   }
+  const points: (Ring | undefined)[] = [];
+  const ring = (r: number): Ring => (points[r] ??= ringPoints(sr, r));
   for (let r = 0; r < n; r++) {
     if (!isHole[r] || !keep(r)) continue;
     const o = owner[r];
-    if (o >= 0 && slot[o] >= 0) holes[slot[o]].push(sr.rings[r]);
-    else adopt(sr.rings[r], outers, holes);
+    if (o >= 0 && slot[o] >= 0) holes[slot[o]].push(r);
+    else adopt(r, ring, outers, holes);
   }
-  const polygons: Polygon[] = outers.map((outer, k) => ({ outer, holes: holes[k] }));
-  return { polygons };
+  return gather(sr, outers, holes);
+}
+
+/** The kept rings in polygon order (each outer ring, then its holes) as one flat set. */
+function gather(sr: StitchedRings, outers: readonly number[], holes: readonly number[][]): FlatPolygonSet {
+  let rings = outers.length;
+  let vertices = 0;
+  for (let k = 0; k < outers.length; k++) {
+    vertices += sr.start[outers[k] + 1] - sr.start[outers[k]];
+    rings += holes[k].length;
+    for (const h of holes[k]) vertices += sr.start[h + 1] - sr.start[h];
+  }
+  const xy = new Float64Array(2 * vertices);
+  const start = new Int32Array(rings + 1);
+  const hole = new Uint8Array(rings);
+  const owner = new Int32Array(rings);
+  let q = 0;
+  let o = 0;
+  const put = (r: number) => {
+    start[q++] = o;
+    const a = sr.start[r];
+    const b = sr.start[r + 1];
+    xy.set(sr.xy.subarray(2 * a, 2 * b), 2 * o);
+    o += b - a;
+  };
+  for (let k = 0; k < outers.length; k++) {
+    const outer = q;
+    owner[q] = -1;
+    put(outers[k]);
+    for (const h of holes[k]) {
+      hole[q] = 1;
+      owner[q] = outer;
+      put(h);
+    }
+  }
+  start[q] = o;
+  return { xy, start, hole, owner };
+}
+
+function ringPoints(sr: StitchedRings, r: number): Ring {
+  const pts: Point[] = [];
+  for (let i = sr.start[r]; i < sr.start[r + 1]; i++) pts.push([sr.xy[2 * i], sr.xy[2 * i + 1]]);
+  return pts;
 }
 
 /**
  * Fallback for a hole whose owner was dropped as degenerate (only possible with values exactly at the level):
  * the smallest outer ring that contains one of its vertices, by direct test.
  */
-function adopt(hole: Ring, outers: Ring[], holes: Ring[][]): void {
+function adopt(h: number, ring: (r: number) => Ring, outers: readonly number[], holes: number[][]): void {
+  const hole = ring(h);
   let best = -1;
   let bestArea = Infinity;
   for (let k = 0; k < outers.length; k++) {
+    const outer = ring(outers[k]);
     for (const p of hole) {
-      const inside = ringContains(outers[k], p);
+      const inside = ringContains(outer, p);
       if (inside === 0) continue;
       if (inside === 1) {
-        const a = areaOf(outers[k]);
+        const a = areaOf(outer);
         if (a < bestArea) {
           bestArea = a;
           best = k;
@@ -92,7 +138,7 @@ function adopt(hole: Ring, outers: Ring[], holes: Ring[][]): void {
       break;
     }
   }
-  if (best >= 0) holes[best].push(hole);
+  if (best >= 0) holes[best].push(h);
 }
 
 function areaOf(ring: Ring): number {

@@ -9,7 +9,6 @@
  * the caller.
  */
 import { RhoformError } from '../errors.js';
-import type { Point } from '../types.js';
 import type { Crossings } from './march.js';
 
 /** Rings in the order of their first crossing (bottom-up, left-to-right scan). */
@@ -18,8 +17,9 @@ export interface StitchedRings {
   readonly count: number;
   /** Ring id of every crossing. */
   readonly ringOf: Int32Array;
-  /** Cleaned vertices of each ring (mm); fewer than 3 means degenerate. */
-  readonly rings: Point[][];
+  /** Cleaned vertices of ring r (mm, interleaved x, y): xy[2·start[r]] … xy[2·start[r + 1]] − 1; fewer than 3 means degenerate (stored empty). */
+  readonly xy: Float64Array;
+  readonly start: Int32Array;
   /** Signed area (mm²) of each cleaned ring. */
   readonly area: Float64Array;
 }
@@ -27,14 +27,16 @@ export interface StitchedRings {
 export function stitch(cr: Crossings): StitchedRings {
   const n = cr.count;
   const ringOf = new Int32Array(n).fill(-1);
-  const rings: Point[][] = [];
+  const out = new Float64Array(2 * n);
+  const starts: number[] = [0];
   const areas: number[] = [];
+  let used = 0;
   let ox = new Float64Array(256);
   let oy = new Float64Array(256);
   const { x, y, next } = cr;
   for (let c0 = 0; c0 < n; c0++) {
     if (ringOf[c0] !== -1) continue;
-    const r = rings.length;
+    const r = areas.length;
     // walk the cycle, cleaning on the fly (stack in ox/oy)
     let m = 0;
     let c = c0;
@@ -67,18 +69,21 @@ export function stitch(cr: Crossings): StitchedRings {
         changed = true;
       }
     }
-    const ring: Point[] = [];
     let a = 0;
     if (m - s >= 3) {
       const x0 = ox[s];
       const y0 = oy[s];
-      for (let k = s; k < m; k++) ring.push([ox[k], oy[k]]);
+      for (let k = s; k < m; k++) {
+        out[2 * used] = ox[k];
+        out[2 * used + 1] = oy[k];
+        used++;
+      }
       for (let k = s + 1; k < m - 1; k++) a += (ox[k] - x0) * (oy[k + 1] - y0) - (ox[k + 1] - x0) * (oy[k] - y0);
     }
-    rings.push(ring);
+    starts.push(used);
     areas.push(0.5 * a);
   }
-  return { count: rings.length, ringOf, rings, area: Float64Array.from(areas) };
+  return { count: areas.length, ringOf, xy: out, start: Int32Array.from(starts), area: Float64Array.from(areas) };
 }
 
 /** Appends (px, py) to the cleaned stack ox/oy of length m; returns the new length. */

@@ -10,7 +10,8 @@
  */
 
 import { RhoformError } from '../errors.js';
-import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
+import type { Point, Polygon, PolygonSet } from '../types.js';
+import { flatSet, type FlatPolygonSet } from '../contour/flat.js';
 import type { FlatRings } from '../geom/segments.js';
 import { flatRingArea } from '../geom/area.js';
 import { spanDeviation, totalArea } from './deviation.js';
@@ -34,7 +35,8 @@ export interface SmoothOptions {
 }
 
 export interface SmoothResult {
-  polygons: PolygonSet;
+  /** Built on first read (the volume search builds candidates it never reports). */
+  readonly polygons: PolygonSet;
   /**
    * mm: sampled directed Hausdorff distance from the final rings to the raw rings (docs/smoothing.md §4).
    * Measured on first read (the volume search builds candidates it never reports).
@@ -73,6 +75,11 @@ const LOCAL_FIX_ROUNDS = 8;
  * The input is not modified.
  */
 export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothResult {
+  return smoothFlat(flatSet(raw), options);
+}
+
+/** smoothPolygons on flat rings (src/contour/flat.ts), with the same result. */
+export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions): SmoothResult {
   checkOptions(options);
   const { tolerance, domain } = options;
   const { rawFlat, roles, verticesBefore, ringsDropped } = flatten(raw);
@@ -114,14 +121,16 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
     final = assemble(rawFlat, S, keep, useRaw);
   }
 
-  // 4. rebuild; measure the deviation when it is asked for
-  const polygons = rebuild(final.rings, roles);
+  // 4. nested rings and the deviation measure when they are asked for
   const measured = final;
+  let polygons: PolygonSet | undefined;
   let maxDeviation: number | undefined;
   let spacing: number | undefined;
   const deviationSpacing = () => (spacing ??= sampleSpacing(measured.rings, tolerance));
   return {
-    polygons,
+    get polygons(): PolygonSet {
+      return (polygons ??= rebuild(measured.rings, roles));
+    },
     get maxDeviation(): number {
       return (maxDeviation ??= spanDeviation(measured.rings, measured.index, rawFlat, deviationSpacing()));
     },
@@ -151,26 +160,23 @@ function checkOptions(o: SmoothOptions): void {
 }
 
 /**
- * Packs the polygons into flat rings (outer, then its holes), without repeated consecutive points. Rings with
- * fewer than three distinct points, zero area or non-finite coordinates are dropped (an outer with its holes).
+ * Copies the rings without repeated consecutive points. Rings with fewer than three distinct points, zero area or
+ * non-finite coordinates are dropped (an outer with its holes).
  */
-function flatten(raw: PolygonSet): { rawFlat: FlatRings; roles: RingRoles; verticesBefore: number; ringsDropped: number } {
-  let verticesBefore = 0, ringCount = 0;
-  for (const poly of raw.polygons) {
-    ringCount += 1 + poly.holes.length;
-    verticesBefore += poly.outer.length;
-    for (const h of poly.holes) verticesBefore += h.length;
-  }
+function flatten(raw: FlatPolygonSet): { rawFlat: FlatRings; roles: RingRoles; verticesBefore: number; ringsDropped: number } {
+  const ringCount = raw.start.length - 1;
+  const src = raw.xy;
+  const verticesBefore = raw.start[ringCount];
   const xy = new Float64Array(2 * verticesBefore);
   const start = new Int32Array(ringCount + 1);
   const hole = new Uint8Array(ringCount);
   const owner = new Int32Array(ringCount);
   let rings = 0, used = 0, ringsDropped = 0;
-  // writes ring at `used`; returns the new end when the ring is kept, else `used`
-  const push = (ring: Ring): number => {
+  // writes ring q at `used`; returns the new end when the ring is kept, else `used`
+  const push = (q: number): number => {
     let o = used;
-    for (let i = 0; i < ring.length; i++) {
-      const x = ring[i][0], y = ring[i][1];
+    for (let i = raw.start[q]; i < raw.start[q + 1]; i++) {
+      const x = src[2 * i], y = src[2 * i + 1];
       if (o > used && xy[2 * o - 2] === x && xy[2 * o - 1] === y) continue;
       xy[2 * o] = x;
       xy[2 * o + 1] = y;
@@ -181,16 +187,20 @@ function flatten(raw: PolygonSet): { rawFlat: FlatRings; roles: RingRoles; verti
     for (let i = 2 * used; i < 2 * o; i++) if (!Number.isFinite(xy[i])) finite = false;
     return o - used >= 3 && finite && flatRingArea(xy, used, o) !== 0 ? o : used;
   };
-  for (const poly of raw.polygons) {
-    const end = push(poly.outer);
-    if (end === used) {
-      ringsDropped += 1 + poly.holes.length;
-      continue;
-    }
-    const outerIndex = rings;
-    hole[rings] = 0; owner[rings] = -1; start[rings] = used; rings++; used = end;
-    for (const h of poly.holes) {
-      const e = push(h);
+  let outerIndex = -1;
+  for (let q = 0; q < ringCount; q++) {
+    if (raw.hole[q] === 0) {
+      const end = push(q);
+      if (end === used) {
+        outerIndex = -1;
+        ringsDropped++;
+        continue;
+      }
+      outerIndex = rings;
+      hole[rings] = 0; owner[rings] = -1; start[rings] = used; rings++; used = end;
+    } else {
+      if (outerIndex < 0) { ringsDropped++; continue; }
+      const e = push(q);
       if (e === used) { ringsDropped++; continue; }
       hole[rings] = 1; owner[rings] = outerIndex; start[rings] = used; rings++; used = e;
     }

@@ -8,7 +8,7 @@
 import { levelBandModel } from '../contour/index.js';
 import type { SaddleRuleName } from '../settings.js';
 import type { DensityGrid, PolygonSet, Report } from '../types.js';
-import { FIXED_POINT_BUILDS, volumeLevel } from './volume.js';
+import { FIXED_POINT_BUILDS, VolumeSearch } from './volume.js';
 
 /** One build at a level: the raw contour and what smoothing made of it (areas in mm²). */
 export interface Candidate<S extends { readonly areaBefore: number; readonly areaAfter: number }> {
@@ -43,50 +43,100 @@ const REFINE_CELLS = 250_000;
 /** Bisection builds on small grids: halving the bracket 12 times narrows it 4096-fold (docs/threshold.md). */
 const REFINE_BUILDS = 12;
 
+/** The level of the next build; null asks for the empty part. */
+export interface LevelRequest {
+  readonly level: number | null;
+}
+
 /**
- * Choose the level for a prepared grid. `buildAt(level)` contours and smooths at a level; `buildAt(null)`
- * returns the empty part.
+ * Chooses the level for a prepared grid, one build at a time: `next()` names the level to build at (undefined
+ * when done), `record()` takes that build, `finish()` returns the choice.
+ */
+export class ThresholdSearch<S extends { readonly areaBefore: number; readonly areaAfter: number }> {
+  readonly mode: Report['threshold']['mode'];
+  private readonly warnings: string[] = [];
+  private readonly volume: VolumeSearch<Candidate<S>> | null = null;
+  /** The single build of the modes without a search, until it is made. */
+  private single: LevelRequest | null = null;
+  private level: number | null = null;
+  private pending: number | null = null;
+  private chosen: Candidate<S> | undefined;
+
+  constructor(
+    grid: DensityGrid,
+    private readonly o: ThresholdOptions,
+  ) {
+    const w = this.warnings;
+    if (o.min === o.max && o.level === null) {
+      const solid = o.min >= 0.5;
+      w.push(`the field is constant (${o.min}): the part is ${solid ? 'solid everywhere' : 'empty'}`);
+      this.mode = 'constant';
+      this.single = { level: solid ? o.min : null };
+    } else if (o.level !== null) {
+      this.mode = 'level';
+      this.level = o.level;
+      this.single = { level: o.level };
+    } else if (!(o.target > 0)) {
+      w.push('the target volume fraction is 0: the part is empty');
+      this.mode = 'volume';
+      this.single = { level: null };
+    } else {
+      this.mode = 'volume';
+      // Bisection on the smoothed area is worth its builds where they are cheap (small grids are the coarse ones
+      // whose simplification makes the area jump); large grids converge in the fixed point.
+      const refine = grid.values.length <= REFINE_CELLS ? REFINE_BUILDS : 0;
+      const model = levelBandModel(grid, o.saddle, [o.min, o.max]);
+      this.volume = new VolumeSearch(model, o.target * o.domainArea, o.volumeTolerance, FIXED_POINT_BUILDS, refine);
+    }
+  }
+
+  next(): LevelRequest | undefined {
+    if (this.volume) {
+      const L = this.volume.next();
+      this.pending = L ?? null;
+      return L === undefined ? undefined : { level: L };
+    }
+    return this.chosen ? undefined : (this.single ?? undefined);
+  }
+
+  record(c: Candidate<S>): void {
+    if (this.volume) {
+      if (this.pending === null) throw new Error('ThresholdSearch.record: no build was asked for');
+      this.volume.record(this.pending, { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c });
+      this.pending = null;
+      return;
+    }
+    this.chosen = c;
+    if (this.mode === 'level' && c.raw.polygons.length === 0) this.warnings.push(`the part is empty at level ${this.o.level}`);
+  }
+
+  finish(): ThresholdChoice<S> {
+    if (!this.volume) {
+      if (!this.chosen) throw new Error('ThresholdSearch.finish: the build was not made');
+      return { mode: this.mode, level: this.level, chosen: this.chosen, warnings: this.warnings };
+    }
+    const found = this.volume.result();
+    const o = this.o;
+    if (found.relativeError > o.volumeTolerance) {
+      const got = found.build.area / o.domainArea;
+      this.warnings.push(
+        `the volume search reached ${(100 * got).toFixed(3)} % against a target of ${(100 * o.target).toFixed(3)} % (relative error ${found.relativeError.toExponential(2)} > --volume-tolerance ${o.volumeTolerance}); the grid is too coarse or too binary for the area to vary smoothly with the level`,
+      );
+    }
+    return { mode: 'volume', level: found.level, chosen: found.build.value, warnings: this.warnings };
+  }
+}
+
+/**
+ * ThresholdSearch driven by `buildAt(level)`, which contours and smooths at a level (`buildAt(null)`: the empty
+ * part).
  */
 export function chooseThreshold<S extends { readonly areaBefore: number; readonly areaAfter: number }>(
   grid: DensityGrid,
   o: ThresholdOptions,
   buildAt: (level: number | null) => Candidate<S>,
 ): ThresholdChoice<S> {
-  const warnings: string[] = [];
-  if (o.min === o.max && o.level === null) {
-    const solid = o.min >= 0.5;
-    warnings.push(`the field is constant (${o.min}): the part is ${solid ? 'solid everywhere' : 'empty'}`);
-    return { mode: 'constant', level: null, chosen: buildAt(solid ? o.min : null), warnings };
-  }
-  if (o.level !== null) {
-    const chosen = buildAt(o.level);
-    if (chosen.raw.polygons.length === 0) warnings.push(`the part is empty at level ${o.level}`);
-    return { mode: 'level', level: o.level, chosen, warnings };
-  }
-  if (!(o.target > 0)) {
-    warnings.push('the target volume fraction is 0: the part is empty');
-    return { mode: 'volume', level: null, chosen: buildAt(null), warnings };
-  }
-  const targetArea = o.target * o.domainArea;
-  // Bisection on the smoothed area is worth its builds where they are cheap (small grids are the coarse ones
-  // whose simplification makes the area jump); large grids converge in the fixed point.
-  const refine = grid.values.length <= REFINE_CELLS ? REFINE_BUILDS : 0;
-  const found = volumeLevel(
-    levelBandModel(grid, o.saddle, [o.min, o.max]),
-    targetArea,
-    o.volumeTolerance,
-    (L) => {
-      const c = buildAt(L);
-      return { area: c.smoothed.areaAfter, rawArea: c.smoothed.areaBefore, value: c };
-    },
-    FIXED_POINT_BUILDS,
-    refine,
-  );
-  if (found.relativeError > o.volumeTolerance) {
-    const got = found.build.area / o.domainArea;
-    warnings.push(
-      `the volume search reached ${(100 * got).toFixed(3)} % against a target of ${(100 * o.target).toFixed(3)} % (relative error ${found.relativeError.toExponential(2)} > --volume-tolerance ${o.volumeTolerance}); the grid is too coarse or too binary for the area to vary smoothly with the level`,
-    );
-  }
-  return { mode: 'volume', level: found.level, chosen: found.build.value, warnings };
+  const search = new ThresholdSearch<S>(grid, o);
+  for (let q = search.next(); q; q = search.next()) search.record(buildAt(q.level));
+  return search.finish();
 }

@@ -1,28 +1,28 @@
 /**
- * The threshold stage and the outline stage it drives (docs/threshold.md). `outlineStage` contours a prepared
- * grid at one level and smooths the result; `thresholdStage` chooses the level (constant field, `--level`, or the
- * volume-preserving search on the smoothed area) by calling it. Both can be called alone.
+ * The threshold stage (docs/threshold.md): chooses the level (constant field, `--level`, or the
+ * volume-preserving search on the smoothed area). It asks for outlines and judges them, but never builds one:
+ * `next()` names the level of the next outline, `record()` takes it (src/smooth/stage.ts outlineStage), and
+ * `finish()` returns the record. src/pipeline.ts thresholdStage runs the loop.
  *
  * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
  */
-import { contourGrid } from '../contour/index.js';
-import { symmetricArea, type MirrorPlane } from '../geom/symmetry.js';
 import type { Settings } from '../settings.js';
-import { smoothPolygons, type SmoothResult } from '../smooth/smooth.js';
-import type { DensityGrid, Domain, PolygonSet, ThresholdSummary } from '../types.js';
-import { chooseThreshold } from './choose.js';
+import type { SmoothResult } from '../smooth/smooth.js';
+import type { DensityGrid, PolygonSet, ThresholdSummary } from '../types.js';
+import { ThresholdSearch, type LevelRequest } from './choose.js';
 
-/** What the outline stage needs of the prepared field (src/field/stage.ts PreparedField). */
-export interface OutlineInput {
+/** What the threshold stage needs of the prepared field (src/field/stage.ts PreparedField). */
+export interface ThresholdInput {
   readonly grid: DensityGrid;
-  readonly planes: readonly MirrorPlane[];
-  readonly domain: Domain;
-  /** mm: the outline's deviation budget. */
-  readonly tolerance: number;
+  readonly min: number;
+  readonly max: number;
+  readonly mean: number;
+  /** mm². */
+  readonly domainArea: number;
 }
 
-/** One outline: the raw iso-contour and what smoothing made of it, with the time each took (ms). */
-export interface OutlineRecord {
+/** What the threshold stage reads of one outline (src/smooth/stage.ts OutlineRecord). */
+export interface OutlineBuild {
   readonly raw: PolygonSet;
   readonly smoothed: SmoothResult;
   readonly contourMs: number;
@@ -43,31 +43,15 @@ export interface ThresholdRecord {
   readonly warnings: readonly string[];
 }
 
-type SmoothSettings = Pick<Settings, 'smooth' | 'smoothLambda' | 'smoothMu' | 'saddle'>;
+export type ThresholdSettings = Pick<Settings, 'volumeFraction' | 'level' | 'volumeTolerance' | 'saddle'>;
 
-const EMPTY: PolygonSet = { polygons: [] };
-
-/**
- * The same smoothing result judged by another area (mm²): a view that keeps its lazy members (copying it would
- * run the deviation measure).
- */
-function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
-  return Object.create(sm, { areaAfter: { value: areaAfter, enumerable: true } }) as SmoothResult;
-}
-
-/**
- * Contour `field.grid` at `level` (null: the empty part) and smooth it. With `--mirror` the outline written is
- * the symmetrized one, so its area is judged as such (exact, no booleans): the volume search then meets the
- * target with the geometry that is written (docs/symmetry.md).
- */
-export function outlineStage(field: OutlineInput, level: number | null, s: SmoothSettings): OutlineRecord {
-  const a = performance.now();
-  const raw = level === null ? EMPTY : contourGrid(field.grid, level, s.saddle);
-  const b = performance.now();
-  const opts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance: field.tolerance, domain: field.domain };
-  const smoothedHere = smoothPolygons(raw, opts);
-  const smoothed = field.planes.length > 0 ? withArea(smoothedHere, symmetricArea(smoothedHere.polygons, field.planes)) : smoothedHere;
-  return { raw, smoothed, contourMs: b - a, smoothMs: performance.now() - b };
+/** One run of the threshold stage: ask for levels, take the outlines built there, then finish. */
+export interface ThresholdRun {
+  /** The level of the next outline to build, or undefined when the choice is made. */
+  next(): LevelRequest | undefined;
+  /** The outline built at the level `next()` named. */
+  record(outline: OutlineBuild): void;
+  finish(): ThresholdRecord;
 }
 
 /** Share of samples at or above `level`; without a level, 1 for a solid constant field and 0 otherwise. */
@@ -79,47 +63,53 @@ function pixelFraction(grid: DensityGrid, level: number | null, solidConstant: b
   return pixels / v.length;
 }
 
-/** What the threshold stage needs of the prepared field. */
-export interface ThresholdInput extends OutlineInput {
-  readonly min: number;
-  readonly max: number;
-  readonly mean: number;
-  readonly domainArea: number;
-}
-
-/** Choose the level for a prepared field and build the outline there. */
-export function thresholdStage(field: ThresholdInput, s: SmoothSettings & Pick<Settings, 'volumeFraction' | 'level' | 'volumeTolerance'>): ThresholdRecord {
+/** Starts the threshold stage on a prepared field. */
+export function thresholdSearch(field: ThresholdInput, s: ThresholdSettings): ThresholdRun {
   const target = s.volumeFraction ?? Math.min(1, Math.max(0, field.mean));
+  const { grid, domainArea } = field;
+  const search = new ThresholdSearch<SmoothResult>(grid, {
+    target,
+    level: s.level,
+    saddle: s.saddle,
+    volumeTolerance: s.volumeTolerance,
+    min: field.min,
+    max: field.max,
+    domainArea,
+  });
   let builds = 0;
   let contourMs = 0;
   let smoothMs = 0;
-  const { grid, domainArea } = field;
-  const choice = chooseThreshold(
-    grid,
-    { target, level: s.level, saddle: s.saddle, volumeTolerance: s.volumeTolerance, min: field.min, max: field.max, domainArea },
-    (L) => {
-      const r = outlineStage(field, L, s);
-      if (L !== null) builds++;
-      contourMs += r.contourMs;
-      smoothMs += r.smoothMs;
-      return { raw: r.raw, smoothed: r.smoothed };
-    },
-  );
-  const { mode, level } = choice;
-  const { raw, smoothed } = choice.chosen;
+  let asked: LevelRequest | undefined;
   return {
-    summary: {
-      mode,
-      level,
-      targetFraction: target,
-      achievedFraction: domainArea > 0 ? smoothed.areaAfter / domainArea : 0,
-      pixelFraction: pixelFraction(grid, level, mode === 'constant' && field.min >= 0.5),
+    next() {
+      asked = search.next();
+      return asked;
     },
-    raw,
-    smoothed,
-    builds,
-    contourMs,
-    smoothMs,
-    warnings: choice.warnings,
+    record(outline) {
+      if (asked && asked.level !== null) builds++;
+      contourMs += outline.contourMs;
+      smoothMs += outline.smoothMs;
+      search.record(outline);
+    },
+    finish() {
+      const choice = search.finish();
+      const { mode, level } = choice;
+      const { raw, smoothed } = choice.chosen;
+      return {
+        summary: {
+          mode,
+          level,
+          targetFraction: target,
+          achievedFraction: domainArea > 0 ? smoothed.areaAfter / domainArea : 0,
+          pixelFraction: pixelFraction(grid, level, mode === 'constant' && field.min >= 0.5),
+        },
+        raw,
+        smoothed,
+        builds,
+        contourMs,
+        smoothMs,
+        warnings: choice.warnings,
+      };
+    },
   };
 }

@@ -38,9 +38,9 @@ export interface VolumeLevelResult<T> {
 export const FIXED_POINT_BUILDS = 6;
 
 /**
- * Choose the level so that the smoothed area equals `targetArea` within `relTol` (relative).
- * `build(level)` contours and smooths at a level. At most `maxBuilds` fixed-point builds; the best one is
- * returned.
+ * Chooses the level so that the smoothed area equals `targetArea` within `relTol` (relative), one build at a
+ * time: `next()` names the level to build at (undefined when done), `record()` takes that build's areas, and
+ * `result()` returns the closest build. At most `maxBuilds` fixed-point builds.
  *
  * On coarse grids simplification can make the smoothed area jump by more than the tolerance as the level
  * moves (a vertex kept or dropped changes a small ring's area by a percent), so the fixed point may circle the
@@ -48,6 +48,79 @@ export const FIXED_POINT_BUILDS = 6;
  * smoothed area itself between the closest builds on either side of the target (the area falls as the level
  * rises); it stops at the tolerance or when the bracket is a jump too narrow to split.
  */
+export class VolumeSearch<T> {
+  private readonly solver: LevelSolver;
+  private readonly scale: number;
+  private aim: number;
+  private best: { level: number; build: BuildAtLevel<T>; err: number } | undefined;
+  private builds = 0;
+  private extra = 0;
+  private phase: 'fixed' | 'refine' | 'done' = 'fixed';
+  /** Closest builds with the smoothed area above (level too low) and below (level too high) the target. */
+  private above: { level: number; area: number } | undefined;
+  private below: { level: number; area: number } | undefined;
+
+  constructor(
+    model: LevelAreaModel,
+    private readonly targetArea: number,
+    private readonly relTol: number,
+    private readonly maxBuilds = FIXED_POINT_BUILDS,
+    private readonly refineBuilds = 0,
+  ) {
+    this.solver = new LevelSolver(model);
+    this.aim = targetArea;
+    this.scale = targetArea > 0 ? targetArea : 1;
+  }
+
+  /** The level of the next build, or undefined when the search is over. */
+  next(): number | undefined {
+    if (this.phase === 'fixed') {
+      // The raw aim needs to be far more precise than the volume tolerance, not more.
+      if (this.builds < this.maxBuilds) return this.solver.solve(this.aim, Math.min(1e-6, this.relTol / 100)).level;
+      this.phase = 'refine';
+    }
+    if (this.phase === 'refine') {
+      const { best, above, below } = this;
+      if (this.extra < this.refineBuilds && best && best.err > this.relTol && above && below && below.level > above.level) {
+        const mid = 0.5 * (above.level + below.level);
+        if (mid > above.level && mid < below.level && below.level - above.level >= 1e-12) return mid;
+      }
+      this.phase = 'done';
+    }
+    return undefined;
+  }
+
+  /** The build at the level `next()` named. */
+  record(level: number, b: BuildAtLevel<T>): void {
+    this.builds++;
+    const err = Math.abs(b.area - this.targetArea) / this.scale;
+    if (!this.best || err < this.best.err) this.best = { level, build: b, err };
+    if (b.area >= this.targetArea) {
+      if (!this.above || level > this.above.level) this.above = { level, area: b.area };
+    } else if (!this.below || level < this.below.level) this.below = { level, area: b.area };
+    if (this.phase === 'refine') {
+      this.extra++;
+      if (err <= this.relTol) this.phase = 'done';
+      return;
+    }
+    if (err <= this.relTol) {
+      this.phase = 'done';
+      return;
+    }
+    // Smoothing changed the area by (b.area − b.rawArea): aim the raw area so that the smoothed one hits the target.
+    const nextAim = this.aim - (b.area - this.targetArea);
+    if (!(Math.abs(nextAim - this.aim) > 1e-12 * this.scale)) this.phase = 'refine';
+    else this.aim = nextAim;
+  }
+
+  /** The closest build. */
+  result(): VolumeLevelResult<T> {
+    if (!this.best) throw new Error('VolumeSearch: no build made');
+    return { level: this.best.level, build: this.best.build, builds: this.builds, relativeError: this.best.err };
+  }
+}
+
+/** VolumeSearch driven by a function that builds at a level (for callers that hold no state between builds). */
 export function volumeLevel<T>(
   model: LevelAreaModel,
   targetArea: number,
@@ -56,40 +129,7 @@ export function volumeLevel<T>(
   maxBuilds = FIXED_POINT_BUILDS,
   refineBuilds = 0,
 ): VolumeLevelResult<T> {
-  const solver = new LevelSolver(model);
-  let aim = targetArea;
-  let best: { level: number; build: BuildAtLevel<T>; err: number } | undefined;
-  let builds = 0;
-  const scale = targetArea > 0 ? targetArea : 1;
-  // Closest builds with the smoothed area above (level too low) and below (level too high) the target.
-  let above: { level: number; area: number } | undefined;
-  let below: { level: number; area: number } | undefined;
-  const record = (level: number, b: BuildAtLevel<T>): number => {
-    builds++;
-    const err = Math.abs(b.area - targetArea) / scale;
-    if (!best || err < best.err) best = { level, build: b, err };
-    if (b.area >= targetArea) {
-      if (!above || level > above.level) above = { level, area: b.area };
-    } else if (!below || level < below.level) below = { level, area: b.area };
-    return err;
-  };
-  for (; builds < maxBuilds; ) {
-    // The raw aim needs to be far more precise than the volume tolerance, not more.
-    const raw = solver.solve(aim, Math.min(1e-6, relTol / 100));
-    const b = build(raw.level);
-    const err = record(raw.level, b);
-    if (err <= relTol) break;
-    // Smoothing changed the area by (b.area − b.rawArea): aim the raw area so that the smoothed one hits the target.
-    const nextAim = aim - (b.area - targetArea);
-    if (!(Math.abs(nextAim - aim) > 1e-12 * scale)) break;
-    aim = nextAim;
-  }
-  for (let extra = 0; extra < refineBuilds && best && best.err > relTol && above && below; extra++) {
-    if (!(below.level > above.level)) break; // not a bracket: the area did not fall with the level here
-    const mid = 0.5 * (above.level + below.level);
-    if (!(mid > above.level && mid < below.level) || below.level - above.level < 1e-12) break;
-    if (record(mid, build(mid)) <= relTol) break;
-  }
-  if (!best) throw new Error('volumeLevel: no build made');
-  return { level: best.level, build: best.build, builds, relativeError: best.err };
+  const search = new VolumeSearch<T>(model, targetArea, relTol, maxBuilds, refineBuilds);
+  for (let L = search.next(); L !== undefined; L = search.next()) search.record(L, build(L));
+  return search.result();
 }

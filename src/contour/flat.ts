@@ -1,0 +1,68 @@
+/** A polygon set as flat rings, the form the contour hands to smoothing without nested `[x, y]` arrays. */
+import type { FlatRings } from '../geom/segments.js';
+import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
+
+/**
+ * Rings in polygon order: each outer ring followed by its holes. Frame: mm, y up; outer rings counter-clockwise,
+ * holes clockwise, implicitly closed.
+ */
+export interface FlatPolygonSet extends FlatRings {
+  /** 1 for a hole. */
+  readonly hole: Uint8Array;
+  /** For a hole, the index of its outer ring; −1 for an outer ring. */
+  readonly owner: Int32Array;
+}
+
+/** The nested form of a flat set (each vertex a fresh `[x, y]`). */
+export function nestedSet(set: FlatPolygonSet): PolygonSet {
+  const { xy, start, hole } = set;
+  const polygons: Polygon[] = [];
+  let holes: Ring[] = [];
+  for (let r = 0; r + 1 < start.length; r++) {
+    const pts: Point[] = new Array(start[r + 1] - start[r]);
+    for (let i = start[r]; i < start[r + 1]; i++) pts[i - start[r]] = [xy[2 * i], xy[2 * i + 1]];
+    if (hole[r] === 0) {
+      holes = [];
+      polygons.push({ outer: pts, holes });
+    } else holes.push(pts);
+  }
+  return { polygons };
+}
+
+/** The flat form of a nested set, vertex for vertex. */
+export function flatSet(set: PolygonSet): FlatPolygonSet {
+  let rings = 0;
+  let vertices = 0;
+  for (const p of set.polygons) {
+    rings += 1 + p.holes.length;
+    vertices += p.outer.length;
+    for (const h of p.holes) vertices += h.length;
+  }
+  const xy = new Float64Array(2 * vertices);
+  const start = new Int32Array(rings + 1);
+  const hole = new Uint8Array(rings);
+  const owner = new Int32Array(rings);
+  let r = 0;
+  let o = 0;
+  const put = (ring: Ring) => {
+    start[r] = o;
+    for (const p of ring) {
+      xy[2 * o] = p[0];
+      xy[2 * o + 1] = p[1];
+      o++;
+    }
+    r++;
+  };
+  for (const p of set.polygons) {
+    const outer = r;
+    owner[r] = -1;
+    put(p.outer);
+    for (const h of p.holes) {
+      hole[r] = 1;
+      owner[r] = outer;
+      put(h);
+    }
+  }
+  start[r] = o;
+  return { xy, start, hole, owner };
+}

@@ -1,0 +1,65 @@
+/**
+ * The outline stage: the raw iso-contour of a prepared grid at one level and what smoothing makes of it
+ * (docs/threshold.md). The threshold stage proposes the levels; the pipeline calls this stage for each.
+ *
+ * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
+ */
+import { contourFlat, nestedSet, type FlatPolygonSet } from '../contour/index.js';
+import { symmetricArea, type MirrorPlane } from '../geom/symmetry.js';
+import type { Settings } from '../settings.js';
+import type { DensityGrid, Domain, PolygonSet } from '../types.js';
+import { smoothFlat, type SmoothResult } from './smooth.js';
+
+/** What the outline stage needs of the prepared field (src/field/stage.ts PreparedField). */
+export interface OutlineInput {
+  readonly grid: DensityGrid;
+  readonly planes: readonly MirrorPlane[];
+  readonly domain: Domain;
+  /** mm: the outline's deviation budget. */
+  readonly tolerance: number;
+}
+
+/** One outline: the raw iso-contour and what smoothing made of it, with the time each took (ms). */
+export interface OutlineRecord {
+  /** The level (value units), or null for the empty part. */
+  readonly level: number | null;
+  /** The raw contour, nested on first read. */
+  readonly raw: PolygonSet;
+  readonly smoothed: SmoothResult;
+  readonly contourMs: number;
+  readonly smoothMs: number;
+}
+
+export type OutlineSettings = Pick<Settings, 'smooth' | 'smoothLambda' | 'smoothMu' | 'saddle'>;
+
+const EMPTY: FlatPolygonSet = { xy: new Float64Array(0), start: new Int32Array(1), hole: new Uint8Array(0), owner: new Int32Array(0) };
+
+/** The same smoothing result judged by another area (mm²), keeping its lazy members. */
+function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
+  return Object.create(sm, { areaAfter: { value: areaAfter, enumerable: true } }) as SmoothResult;
+}
+
+/**
+ * Contour `field.grid` at `level` (null: the empty part) and smooth it. With `--mirror` the outline written is
+ * the symmetrized one, so its area is judged as such (exact, no booleans): the volume search then meets the
+ * target with the geometry that is written (docs/symmetry.md).
+ */
+export function outlineStage(field: OutlineInput, level: number | null, s: OutlineSettings): OutlineRecord {
+  const a = performance.now();
+  const flat = level === null ? EMPTY : contourFlat(field.grid, level, s.saddle);
+  const b = performance.now();
+  const opts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance: field.tolerance, domain: field.domain };
+  const here = smoothFlat(flat, opts);
+  const smoothed = field.planes.length > 0 ? withArea(here, symmetricArea(here.polygons, field.planes)) : here;
+  const smoothMs = performance.now() - b;
+  let raw: PolygonSet | undefined;
+  return {
+    level,
+    get raw(): PolygonSet {
+      return (raw ??= nestedSet(flat));
+    },
+    smoothed,
+    contourMs: b - a,
+    smoothMs,
+  };
+}
