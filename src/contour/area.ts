@@ -1,23 +1,10 @@
-/**
- * Enclosed area of the raw contour, cell by cell, without stitching (the level search uses the same sum,
- * restricted to a band of cells: ./band.ts).
- *
- * The area lattice (./lattice.ts) has its nodes at the sample positions plus, for cell-centred grids, the
- * domain edges; it spans exactly the domain rectangle. Its cells are the only places the contour encloses
- * area (the contour's extra zero-width cells along the edge enclose none), and inside each cell the enclosed
- * area depends only on the cell's four corner values (./cell-area.ts). Hence
- *
- *   A(L) = Σ_cells area(cell, L),   area = full if the smallest corner value ≥ L, 0 if the largest < L.
- */
+/** Enclosed area of the raw contour, cell by cell, without stitching (why this is exact: docs/notes/outline.md §3). */
 import type { DensityGrid } from '../types.js';
 import { cellPolyArea } from './cell-area.js';
 import { checkLevel, fillRow, gridLattice } from './lattice.js';
 import type { SaddleRule } from './saddle.js';
 
-/**
- * Area in mm² of the region contourGrid(grid, level, saddle) encloses, summed cell by cell without stitching
- * (same conventions: values ≥ level solid, NaN void, hard domain edge). One pass over the grid, O(one row) memory.
- */
+/** mm² enclosed by contourGrid(grid, level, saddle). One pass, O(one row) memory. */
 export function regionArea(grid: DensityGrid, level: number, saddle: SaddleRule): number {
   checkLevel(level);
   const lat = gridLattice(grid);

@@ -1,13 +1,7 @@
 /**
- * The level search's view of the area lattice, computed by streaming the grid row by row (no per-cell arrays):
- *
- * - cellRangeHistogram: the area of the lattice cells binned by their smallest and by their largest corner
- *   value — bounds on the enclosed area A(L) at every bin edge;
- * - packBand: for a level bracket [lo, hi], the area of the cells surely full on it, and the corner values of
- *   the cells that meet it, packed for repeated evaluation (bandCellArea).
- *
- * Same lattice, sample placement, hard edge and saddle rules as contourGrid and regionArea (./area.ts):
- * Σ over packed cells of bandCellArea + fullBase equals regionArea for every level in [lo, hi].
+ * The level search's view of the area lattice (src/threshold/search.ts), streamed row by row: cell areas
+ * binned by corner range, and the cells that meet a level bracket, packed. Same lattice and rules as
+ * regionArea: fullBase + Σ bandCellArea over the packed cells equals regionArea at every level in the bracket.
  */
 import type { DensityGrid } from '../types.js';
 import { cellPolyArea } from './cell-area.js';
@@ -18,32 +12,25 @@ import type { SaddleRule } from './saddle.js';
 export const BAND_STRIDE = 8;
 
 export interface CellRangeHistogram {
-  /** Smallest and largest lattice value (NaN samples count as −∞). */
+  /** Lattice value range (NaN samples count as −∞). */
   readonly gmin: number;
   readonly gmax: number;
-  /** Total lattice area, mm² (the domain area). */
+  /** mm², the domain. */
   readonly total: number;
-  /**
-   * Area (mm²) of the cells whose smallest (resp. largest) corner value falls in bin k = ⌊(v − gmin)·bins/(gmax − gmin)⌋,
-   * k = 0 … bins (the last entry holds v = gmax). Empty when gmax ≤ gmin or a bound is not finite.
-   */
+  /** mm² of the cells whose smallest (largest) corner value is in bin ⌊(v − gmin)·bins/(gmax − gmin)⌋; empty when the range is. */
   readonly minHist: Float64Array;
   readonly maxHist: Float64Array;
 }
 
 export interface PackedBand {
-  /** Area (mm²) of the cells whose smallest corner value is ≥ hi: full at every level of the bracket. */
+  /** mm² of the cells whose smallest corner value is ≥ hi. */
   readonly fullBase: number;
   /** count × BAND_STRIDE floats. */
   readonly buf: Float64Array;
   readonly count: number;
 }
 
-/**
- * Streams the area lattice two rows at a time. `cell(i, j)` is called with the corner values already in
- * `lo`/`hi` (bottom/top row of lattice values); kept as a plain loop in each caller for speed, this helper
- * only prepares the rows.
- */
+/** The area lattice two value rows at a time (`lo` bottom, `hi` top); callers loop over the cells themselves. */
 class RowStream {
   readonly xs: Float64Array;
   readonly ys: Float64Array;
@@ -63,12 +50,11 @@ class RowStream {
     this.hi = new Float64Array(this.cols + 1);
   }
 
-  /** Number of lattice rows of cells. */
   get rows(): number {
     return this.ys.length - 1;
   }
 
-  /** Loads the bottom and top value rows of lattice cell row j (call with j = 0, 1, 2, … in order). */
+  /** Cell row j; call with j = 0, 1, 2, … in order. */
   load(j: number): void {
     if (j === 0) fillRow(this.grid, this.lat.x.sample, this.lat.y.sample[0], this.lo, 0);
     else {
@@ -80,7 +66,7 @@ class RowStream {
   }
 }
 
-/** Smallest / largest of four values (plain comparisons: much faster than Math.min with four arguments). */
+/** Plain comparisons: much faster than Math.min with four arguments. */
 function min4(a: number, b: number, c: number, d: number): number {
   const p = a < b ? a : b;
   const q = c < d ? c : d;
@@ -92,7 +78,7 @@ function max4(a: number, b: number, c: number, d: number): number {
   return p > q ? p : q;
 }
 
-/** Smallest and largest lattice value: the samples, NaN as −∞ (the edge nodes repeat edge samples). */
+/** Lattice value range; the edge nodes repeat edge samples, so the samples suffice. */
 function valueBounds(grid: DensityGrid): [number, number] {
   let gmin = Infinity;
   let gmax = -Infinity;
@@ -105,10 +91,7 @@ function valueBounds(grid: DensityGrid): [number, number] {
   return [gmin, gmax];
 }
 
-/**
- * Cell areas binned by their corner range (see CellRangeHistogram). One pass over the grid.
- * `bounds`: the smallest and largest sample value when the caller knows them (finite grids), saving a pass.
- */
+/** One pass. `bounds`: the sample range when the caller knows it (finite grids), saving a pass. */
 export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: readonly [number, number]): CellRangeHistogram {
   if (!gridLattice(grid)) return { gmin: 0, gmax: 0, total: 0, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
   const [gmin, gmax] = bounds ?? valueBounds(grid);
@@ -142,12 +125,12 @@ export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: rea
   return { gmin, gmax, total, minHist, maxHist };
 }
 
-/** The cells meeting [lo, hi], packed, and the area of those full on it. One pass over the grid. */
+/** The cells meeting [lo, hi], packed, and the area of those full on it. One pass. */
 export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand {
   if (!gridLattice(grid)) return { fullBase: 0, buf: new Float64Array(0), count: 0 };
   const r = new RowStream(grid);
   const { xs, ys, cols } = r;
-  // Grown by doubling: the band is usually a small share of the grid, so no counting pass.
+  // Grown by doubling rather than counted first: the band is usually a small share of the grid.
   let buf = new Float64Array(BAND_STRIDE * Math.max(1024, (cols * r.rows) >>> 4));
   let fullBase = 0;
   let o = 0;
@@ -187,17 +170,14 @@ export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand 
   return { fullBase, buf, count: o / BAND_STRIDE };
 }
 
-/** Area (mm²) at `level` of the packed cell at buf[o] (as cellArea would give for that cell). */
+/** mm² at `level` of the packed cell at buf[o]. */
 export function bandCellArea(buf: Float64Array, o: number, level: number, saddle: SaddleRule): number {
   if (buf[o + 6] >= level) return buf[o + 4] * buf[o + 5];
   if (buf[o + 7] < level) return 0;
   return cellPolyArea(buf[o], buf[o + 1], buf[o + 2], buf[o + 3], level, buf[o + 4], buf[o + 5], saddle);
 }
 
-/**
- * The level search's model of a grid (src/threshold/search.ts LevelAreaModel), with the saddle rule bound.
- * `bounds`: the smallest and largest sample value, when known (then NaN-free grids only).
- */
+/** The level search's LevelAreaModel of a grid. `bounds`: the sample range, for NaN-free grids. */
 export function levelBandModel(grid: DensityGrid, saddle: SaddleRule, bounds?: readonly [number, number]) {
   return {
     histogram: (bins: number) => cellRangeHistogram(grid, bins, bounds),

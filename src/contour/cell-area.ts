@@ -1,17 +1,12 @@
-/**
- * Area of the marching-squares region inside one lattice cell, from its four corner values alone.
- * This is exactly the area the stitched contour encloses inside that cell (same solid test, same edge
- * crossings, same saddle rule), so summing it over cells gives the contour's area without stitching.
- */
+/** Area of the marching-squares region inside one lattice cell, from its four corner values alone. */
 import { crossing, joinsSolid, type SaddleRule } from './saddle.js';
 
-/** Vertex scratch (x, y pairs) for the case polygon: at most 5 vertices. */
+/** x, y pairs of the case polygon: at most 5 vertices. */
 const SCRATCH = new Float64Array(12);
 
 /**
- * Area in mm² of {value ≥ level} inside a w × h cell (mm) as marching squares draws it: the polygon through the
- * solid corners and the linearly interpolated edge crossings. Corners: v00 bottom-left, v10 bottom-right,
- * v01 top-left, v11 top-right (lattice values: NaN already mapped to −∞).
+ * mm² of {value ≥ level} inside a w × h cell (mm) as marching squares draws it. Corners: v00 bottom-left,
+ * v10 bottom-right, v01 top-left, v11 top-right (lattice values).
  */
 export function cellPolyArea(
   v00: number,
@@ -31,16 +26,14 @@ export function cellPolyArea(
   const n = (a ? 1 : 0) + (b ? 1 : 0) + (c ? 1 : 0) + (d ? 1 : 0);
   if (n === 0) return 0;
   if (n === 4) return w * h;
-  // crossings in the unit cell, measured from the bottom-left / bottom-right / top-left / bottom-left corner
+  // crossings in the unit cell, from the bottom-left / bottom-right / top-left / bottom-left corner
   const xB = a === b ? 0 : a ? crossing(v00, v10, L) : 1 - crossing(v10, v00, L);
   const yR = b === c ? 0 : b ? crossing(v10, v11, L) : 1 - crossing(v11, v10, L);
   const xT = d === c ? 0 : d ? crossing(v01, v11, L) : 1 - crossing(v11, v01, L);
   const yL = a === d ? 0 : a ? crossing(v00, v01, L) : 1 - crossing(v01, v00, L);
   let s: number;
   if (n === 2 && a === c) {
-    // saddle
     const joined = a ? joinsSolid(v00, v11, v10, v01, L, rule) : joinsSolid(v10, v01, v00, v11, L, rule);
-    // triangles at each corner, unit cell
     const tBL = 0.5 * xB * yL;
     const tBR = 0.5 * (1 - xB) * yR;
     const tTR = 0.5 * (1 - xT) * (1 - yR);
@@ -48,7 +41,7 @@ export function cellPolyArea(
     if (a) s = joined ? 1 - tBR - tTL : tBL + tTR;
     else s = joined ? 1 - tBL - tTR : tBR + tTL;
   } else {
-    // one polygon: walk the cell counter-clockwise, taking solid corners and crossings (shoelace)
+    // walk the cell counter-clockwise through solid corners and crossings (shoelace)
     const P = SCRATCH;
     let m = 0;
     if (a) (P[m++] = 0), (P[m++] = 0);

@@ -1,23 +1,14 @@
 /**
- * The lattice that marching squares runs on, derived from a DensityGrid (docs/contour.md).
- *
- * Along each axis the lattice nodes are the sample positions plus, for cell-centred grids, the two domain
- * edges, which carry the edge sample again (zero-gradient extension past the domain):
- *
- * - placement 'cells' (n samples at (k + ½)·h): nodes x0, x0 + h/2, …, x0 + (n − ½)h, x0 + n·h  (n + 2 nodes;
- *   the first and last lattice cells are half as wide as the others);
- * - placement 'nodes' (n samples at k·h): nodes x0, x0 + h, …, x0 + (n − 1)h  (n nodes).
- *
- * This "area lattice" spans exactly the domain rectangle. The contour itself adds one more node at each end,
- * at the same coordinate as the domain edge and below every level (−∞), so every ring closes and runs
- * exactly along the domain edge where material touches it (lattice cells of zero width).
+ * The "area lattice" marching squares runs on: the sample positions plus, for cell-centred grids, the two
+ * domain edges carrying the edge sample again; it spans exactly the domain (docs/contour.md,
+ * docs/notes/outline.md §3).
  */
 import { RhoformError, show } from '../errors.js';
 import type { DensityGrid } from '../types.js';
 
 /** One axis of the area lattice. */
 export interface LatticeAxis {
-  /** Node coordinates in mm, non-decreasing; the first and last are the domain edges. */
+  /** mm, non-decreasing; the first and last are the domain edges. */
   readonly coords: Float64Array;
   /** For each node, the grid column (or row) whose sample it carries. */
   readonly sample: Int32Array;
@@ -47,16 +38,12 @@ export function latticeAxis(n: number, h: number, o: number, placement: DensityG
   return { coords, sample };
 }
 
-/** Both axes of the area lattice of a grid. */
 export interface GridLattice {
   readonly x: LatticeAxis;
   readonly y: LatticeAxis;
 }
 
-/**
- * Checks the grid's shape and returns its area lattice, or null when the domain has zero area
- * (a nodal grid with a single row or column): such a grid encloses nothing.
- */
+/** Checks the grid's shape; null when the domain has zero area (a nodal grid of one row or column). */
 export function gridLattice(grid: DensityGrid): GridLattice | null {
   const { nx, ny, values, cellSize, origin, placement } = grid;
   if (!(Number.isInteger(nx) && nx >= 1 && Number.isInteger(ny) && ny >= 1)) {
@@ -79,24 +66,17 @@ export function gridLattice(grid: DensityGrid): GridLattice | null {
   return { x: latticeAxis(nx, hx, origin[0], placement), y: latticeAxis(ny, hy, origin[1], placement) };
 }
 
-/** Throws unless the level is a finite number. */
 export function checkLevel(level: number): void {
   if (!Number.isFinite(level)) throw new RhoformError('E_USAGE', `level: expected a finite number, found ${show(level)}`);
 }
 
-/**
- * Sample value as the lattice sees it: NaN (void) becomes −∞, below every level; +∞ becomes the largest
- * finite number so that edge interpolation stays finite. Everything else is unchanged.
- */
+/** Sample value as the lattice sees it: NaN (void) → −∞; +∞ → the largest finite number (finite crossings). */
 export function latticeValue(v: number): number {
   if (v !== v) return -Infinity;
   return v === Infinity ? Number.MAX_VALUE : v;
 }
 
-/**
- * Fills out[offset + k] with the lattice values of lattice row `row` (an index into y.sample) for every
- * x node k.
- */
+/** out[offset + k] = lattice value of x node k in grid row `rowSample`. */
 export function fillRow(grid: DensityGrid, xs: Int32Array, rowSample: number, out: Float64Array, offset: number): void {
   const base = rowSample * grid.nx;
   const v = grid.values;

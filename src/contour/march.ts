@@ -1,23 +1,20 @@
 /**
- * Marching squares over the contour lattice (./lattice.ts, plus a −∞ node at each end of each axis):
- * finds every edge crossing of the level once, and links the crossings into directed boundary segments
- * through an Int32Array `next` (crossing id → following crossing id). Memory is O(one lattice row + boundary).
- *
- * Method: W.E. Lorensen, H.E. Cline, "Marching Cubes: A High Resolution 3D Surface Construction Algorithm",
- * SIGGRAPH '87, DOI 10.1145/37401.37422, in two dimensions; saddles per ./saddle.ts.
+ * Marching squares over the contour lattice (the area lattice plus a −∞ node at each end of each axis): every
+ * edge crossing once, linked into directed boundary segments by `next`. Memory O(one row + boundary).
+ * W.E. Lorensen, H.E. Cline, "Marching Cubes: A High Resolution 3D Surface Construction Algorithm",
+ * SIGGRAPH '87, DOI 10.1145/37401.37422, in two dimensions.
  */
 import type { DensityGrid } from '../types.js';
 import type { GridLattice } from './lattice.js';
 import { fillRow } from './lattice.js';
 import { crossing, ENTRY_EDGE, EXIT_EDGE, joinsSolid, type SaddleRule } from './saddle.js';
 
-/** The crossings of one level and how they link up. Coordinates in mm, y up. */
+/** The crossings of one level (mm, y up) and their links. */
 export interface Crossings {
-  /** Number of crossings. */
   readonly count: number;
   readonly x: Float64Array;
   readonly y: Float64Array;
-  /** Following crossing along the boundary (solid on the left); every crossing has exactly one. */
+  /** Following crossing along the boundary, solid on the left. */
   readonly next: Int32Array;
   /**
    * For a crossing on a horizontal lattice edge: 2·i + (1 if the left node is solid), i = the edge's column
@@ -29,7 +26,6 @@ export interface Crossings {
   readonly hEnd: Int32Array;
 }
 
-/** Growable typed-array store of crossings. */
 class Store {
   n = 0;
   x: Float64Array;
@@ -77,10 +73,7 @@ function padded(c: Float64Array): Float64Array {
   return out;
 }
 
-/**
- * Marching squares at `level` (solid: value ≥ level; NaN void). Returns the crossings and their links.
- * `lat` must be gridLattice(grid).
- */
+/** Marching squares at `level` (solid: value ≥ level; NaN void); `lat` = gridLattice(grid). */
 export function march(grid: DensityGrid, lat: GridLattice, level: number, rule: SaddleRule): Crossings {
   const L = level;
   const xs = padded(lat.x.coords);

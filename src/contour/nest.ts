@@ -1,16 +1,7 @@
 /**
- * Holes → owners, from the lattice structure instead of point-in-polygon tests (O(crossings), no O(n²)).
- *
- * Along a lattice row the crossings on horizontal edges come in x order and separate runs of solid and void
- * nodes. Work in lattice index space, where the rings are non-crossing curves through edge midpoints and
- * every ring crosses the row of each node it encloses. Take a ring's crossing with the smallest column i:
- * - if the node left of it is void, the ring is an outer boundary (outside on the left, solid on the right);
- * - if it is solid, the ring is a hole, and the solid run on its left belongs to the piece of material that
- *   the hole is cut from. The crossing that starts that run belongs to the same piece: either its outer ring
- *   (the owner) or another of its holes, whose own smallest column is smaller still, so following these links
- *   always ends at the owner (the smallest outer ring containing the hole).
- * Classification is topological; rings whose signed area (mm²) disagrees with it (zero-area rings produced by
- * values exactly at the level) are dropped.
+ * Holes → owners from the lattice rows instead of point-in-polygon tests, O(crossings) (why it is right:
+ * docs/notes/outline.md §4). Rings whose signed area disagrees with their class (zero-area rings from values
+ * exactly at the level) are dropped.
  */
 import type { Point, Ring } from '../types.js';
 import { ringContains } from '../geom/contains.js';
@@ -38,7 +29,7 @@ export function nest(cr: Crossings, sr: StitchedRings): FlatPolygonSet {
       prev = r;
     }
   }
-  // resolve owners (links strictly decrease the smallest column, so there are no cycles)
+  // links strictly decrease the smallest column: no cycles
   const owner = new Int32Array(n).fill(-1);
   const path: number[] = [];
   for (let r = 0; r < n; r++) {
@@ -73,7 +64,6 @@ export function nest(cr: Crossings, sr: StitchedRings): FlatPolygonSet {
   return gather(sr, outers, holes);
 }
 
-/** The kept rings in polygon order (each outer ring, then its holes) as one flat set. */
 function gather(sr: StitchedRings, outers: readonly number[], holes: readonly number[][]): FlatPolygonSet {
   let rings = outers.length;
   let vertices = 0;

@@ -1,23 +1,16 @@
 /**
- * Crossings → rings: follows the `next` links of ./march.ts round every cycle. Each cycle is one ring with the
- * solid on its left (outer boundaries counter-clockwise, holes clockwise, y up).
- *
- * Clean-up, all exact (no tolerance; smoothing and simplification come later): consecutive duplicate vertices,
- * zero-width spikes (a vertex whose two neighbours coincide) and vertices lying on an axis-parallel straight run
- * between their neighbours are removed. The zero-width cells along the domain edge produce such vertices; the
- * removal does not move the outline. A ring left with fewer than 3 vertices has zero area and is dropped by
- * the caller.
+ * Crossings → rings, one per cycle of `next`, solid on the left. Exact clean-up of what the zero-width edge
+ * cells produce: repeated vertices, zero-width spikes, vertices inside an axis-parallel straight run.
  */
 import { RhoformError } from '../errors.js';
 import type { Crossings } from './march.js';
 
 /** Rings in the order of their first crossing (bottom-up, left-to-right scan). */
 export interface StitchedRings {
-  /** Number of rings (cycles). */
   readonly count: number;
   /** Ring id of every crossing. */
   readonly ringOf: Int32Array;
-  /** Cleaned vertices of ring r (mm, interleaved x, y): xy[2·start[r]] … xy[2·start[r + 1]] − 1; fewer than 3 means degenerate (stored empty). */
+  /** Ring r: vertices start[r] … start[r + 1] − 1 of xy (mm); a degenerate ring is stored empty. */
   readonly xy: Float64Array;
   readonly start: Int32Array;
   /** Signed area (mm²) of each cleaned ring. */
@@ -37,7 +30,6 @@ export function stitch(cr: Crossings): StitchedRings {
   for (let c0 = 0; c0 < n; c0++) {
     if (ringOf[c0] !== -1) continue;
     const r = areas.length;
-    // walk the cycle, cleaning on the fly (stack in ox/oy)
     let m = 0;
     let c = c0;
     do {
@@ -54,7 +46,7 @@ export function stitch(cr: Crossings): StitchedRings {
       c = next[c];
     } while (c !== c0 && c >= 0);
     if (c < 0) throw new RhoformError('E_INTERNAL', `contour: expected closed rings, found an open boundary at crossing ${c0}`);
-    // close the cycle: re-check the seam between the last and the first vertices
+    // re-check the seam between the last and the first vertices
     let s = 0;
     for (let changed = true; changed && m - s >= 3; ) {
       changed = false;
@@ -101,10 +93,7 @@ function push(ox: Float64Array, oy: Float64Array, m: number, px: number, py: num
   return m + 1;
 }
 
-/**
- * True when vertex b can go without changing the outline: a spike (a = c), or b on the axis-parallel
- * segment a–c (same x or same y for all three, b between a and c).
- */
+/** True when vertex b can go without moving the outline: a spike (a = c), or b on the axis-parallel segment a–c. */
 function removable(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): boolean {
   if (ax === cx && ay === cy) return true;
   if (ax === bx && bx === cx) return (ay <= by && by <= cy) || (cy <= by && by <= ay);

@@ -1,17 +1,11 @@
 /**
- * The volume-vs-level curve of a density field: for each level L of an evenly spaced ladder over [0, 1], the
- * share of samples with value ≥ L (NaN counts as void). One O(cells) pass into fine bins, then a suffix sum;
- * exact at the ladder's levels when `bins` is a multiple of the ladder's steps.
- *
- * It counts samples, not polygon area: the report's achieved fraction (smoothed polygon area) differs from
- * it by a fraction of the boundary cells (docs/threshold.md).
+ * The volume-vs-level curve: for levels 0, 1/steps, …, 1 the share of samples ≥ L (NaN void). It counts
+ * samples, not polygon area (docs/threshold.md).
  */
 import type { DensityGrid } from '../types.js';
 
 export interface LevelCurve {
-  /** Levels 0, 1/steps, …, 1. */
   readonly levels: number[];
-  /** Share (0..1) of samples with value ≥ the level. */
   readonly fractions: number[];
 }
 

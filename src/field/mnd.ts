@@ -5,12 +5,12 @@
  * every ρ is ½. Sum `mndTerm` over the samples, then `mndPercent`.
  */
 
-/** One sample's share of the sum, ρ(1 − ρ), for ρ in [0, 1] (clip first). */
+/** ρ in [0, 1] (clip first). */
 export function mndTerm(rho: number): number {
   return rho * (1 - rho);
 }
 
-/** M_nd in % from the sum of `mndTerm` over `n` samples; NaN when there are none. */
+/** M_nd in % from the sum of `mndTerm` over `n` samples; NaN for none. */
 export function mndPercent(sum: number, n: number): number {
   return n > 0 ? (400 * sum) / n : NaN;
 }

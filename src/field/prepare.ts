@@ -1,12 +1,7 @@
 /**
- * Prepare a raw grid for thresholding: map the value range to 0..1, apply the non-finite policy, and clip.
- *
- * - `valueRange` [lo, hi] maps linearly to [0, 1] (e.g. 0,255 for 8-bit images).
- * - A mapped value below −overshoot or above 1 + overshoot is an error (E_GRID_RANGE) unless `clip` is set;
- *   smaller overshoots (filter ringing, solver round-off) are clipped with a warning.
- * - Non-finite samples: 'error' (E_GRID_NONFINITE naming the first in file order and the count) or 'void' (set to 0).
- *
- * The result is a new grid; the input is never modified. Sample placement and frame are unchanged.
+ * A raw grid made ready for thresholding: `valueRange` mapped to 0..1, the non-finite policy applied, small
+ * overshoots (filter ringing, round-off) clipped with a warning and larger ones refused unless `clip`.
+ * A new grid; the input is not modified.
  */
 import { RhoformError } from '../errors.js';
 import type { SamplePosition } from '../read/types.js';
@@ -33,11 +28,7 @@ export interface PrepareResult {
   readonly min: number;
   readonly max: number;
   readonly mean: number;
-  /**
-   * Statistics of the input as `inspect` gives them, gathered in the same pass: range of the raw finite values,
-   * mean / grey level / grey share of the range-mapped finite values (equal to describing the mapped field
-   * with fieldStats, except that min and max are the raw values).
-   */
+  /** The input as `inspect` describes it (min and max raw, the rest of the mapped values), from the same pass. */
   readonly inputStats: FieldStats;
   readonly warnings: string[];
 }

@@ -1,10 +1,6 @@
 /**
- * The prepare stage: the read grid made ready for the threshold (docs/threshold.md, docs/symmetry.md,
- * docs/passive.md) — range mapping, clipping and non-finite samples (prepare.ts), the `--mirror` unfolding
- * (mirror.ts), and the passive regions' first act on the samples (src/passive/cells.ts). It also describes the
- * input for the report (the same statistics, gathered in the same pass).
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid; the unfolded grid keeps that frame.
+ * The prepare stage: range mapping and non-finite samples, the `--mirror` unfolding and the passive regions'
+ * samples, plus the report's description of the input. Frame: mm, y up, origin at the input's lower left.
  */
 import { RhoformError } from '../errors.js';
 import { mirrorPlanes, unfoldGrid, unfoldLocate } from './mirror.js';
@@ -23,19 +19,17 @@ import { hypot } from '../geom/portable-math.js';
 /** The outline's deviation budget (mm) when `--tolerance` is not given: a quarter of the smaller cell side. */
 export const DEFAULT_TOLERANCE_CELLS = 0.25;
 
-/** What the prepare stage hands on. */
 export interface PreparedField {
   /** The report's `input` block (the file as read, before any change). */
   readonly input: Report['input'];
-  /** Layout read ('long' infers the cell size from the coordinates). */
   readonly layout: 'grid' | 'long';
-  /** Where the cell size came from: the options, or the file itself (a VTK file's spacing). */
+  /** The file's own spacing (VTK) or the options. */
   readonly cellSizeSource: 'options' | 'file';
   /** The grid the threshold sees: prepared, unfolded (`--mirror`), passive samples set. Values 0..1. */
   readonly grid: DensityGrid;
-  /** Maps a sample of `grid` to its place in the input file (through the unfolding). */
+  /** A sample of `grid` → its place in the input file. */
   readonly locate: (i: number, j: number) => SamplePosition;
-  /** Symmetry planes of the unfolding, in the order of `--mirror`; empty without. */
+  /** In the order of `--mirror`. */
   readonly planes: readonly MirrorPlane[];
   /** The passive regions with their mirror images; null without `--passive`. */
   readonly passive: PassiveRegions | null;
@@ -64,7 +58,6 @@ export function withFileName<T>(name: string, f: () => T): T {
   }
 }
 
-/** Smallest and largest finite value of a grid (after passive regions changed some samples). */
 function valueRange(values: Float64Array): { min: number; max: number } {
   let min = Infinity;
   let max = -Infinity;
@@ -76,10 +69,7 @@ function valueRange(values: Float64Array): { min: number; max: number } {
   return { min, max };
 }
 
-/**
- * Prepare a read grid. `file` is the input as given (its name and bytes, for the report's `input`); `regions`
- * the parsed `--passive` file, or null. Throws RhoformError on bad values (exit 2).
- */
+/** `regions`: the parsed `--passive` file, or null. Throws RhoformError on bad values (exit 2). */
 export function prepareStage(file: InputFile, read: ReadResult, s: Settings, regions: PassiveRegions | null): PreparedField {
   const prep = withFileName(file.name, () =>
     prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite }),

@@ -6,21 +6,14 @@ import type { DensityGrid } from '../types.js';
 import { mndPercent, mndTerm } from './mnd.js';
 
 export interface FieldStats {
-  /** Number of samples. */
   readonly count: number;
-  /** Number of non-finite samples (NaN, ±Infinity). */
   readonly nonFinite: number;
   /** Smallest and largest finite value (NaN when no finite value exists). */
   readonly min: number;
   readonly max: number;
   /** Mean of the finite values (NaN when none). */
   readonly mean: number;
-  /**
-   * Measure of non-discreteness M_nd in %, over the finite values clipped to [0, 1]:
-   * M_nd = 100 / n · Σ 4 ρ (1 − ρ). 0 % for a 0/1 design, 100 % when every ρ = 0.5.
-   * O. Sigmund, "Morphology-based black and white filters for topology optimization",
-   * Struct. Multidisc. Optim. 33(4–5):401–424, 2007, DOI 10.1007/s00158-006-0087-x.
-   */
+  /** M_nd in % (./mnd.ts, Sigmund 2007) over the finite values clipped to [0, 1]. */
   readonly greyLevel: number;
   /** Share (0..1) of finite samples with 0.1 < ρ < 0.9. */
   readonly greyShare: number;
@@ -68,10 +61,7 @@ export interface Histogram {
   readonly counts: number[];
 }
 
-/**
- * Histogram of the finite values over [lo, hi] in `bins` equal bins; values outside are put in the end bins.
- * Default range 0..1, the range densities live in.
- */
+/** Histogram of the finite values over [lo, hi] in `bins` equal bins; values outside go to the end bins. */
 export function histogram(grid: DensityGrid, bins = 10, lo = 0, hi = 1): Histogram {
   if (!(bins >= 1) || !(hi > lo)) throw new RangeError(`histogram: bad bins ${bins} or range ${lo}..${hi}`);
   const counts = new Array<number>(bins).fill(0);

@@ -1,8 +1,6 @@
 /**
- * Measures of how far a simplified outline is from the raw contour: ring area and the one-sided (directed)
- * Hausdorff distance from the final rings to the raw rings, sampled.
- *
- * Lengths in mm, areas in mm², y up. Rings are flat ({@link FlatRings}), implicitly closed.
+ * How far a simplified outline is from the raw contour: ring area and the sampled directed Hausdorff distance
+ * from the final rings to the raw rings. mm, mm², y up; flat rings, implicitly closed.
  */
 
 import { type FlatRings, SegmentGrid, sqSegDist } from '../geom/segments.js';
@@ -36,15 +34,9 @@ export function ringSegments(rings: FlatRings): { x0: Float64Array; y0: Float64A
 }
 
 /**
- * Directed Hausdorff distance (mm) from the final rings to the raw rings, sampled: the largest distance from a
- * sample point of any final segment to the nearest raw segment (any ring). Each final segment of length L is
- * sampled at its start and at m−1 interior points, m = ⌈L / spacing⌉, so every point of every final ring is
- * within spacing/2 of a sample; the distance function is 1-Lipschitz, so the true value is at most the result
- * plus spacing/2. Vertices are measured exactly. Returns 0 when there is nothing to measure, Infinity when
- * `final` has points but `raw` has none.
- *
- * Nearest raw segments come from a uniform grid searched ring by ring outward until no unvisited cell can be
- * closer than the best distance found, starting from the previous sample's nearest segment as an upper bound.
+ * Directed Hausdorff distance (mm) from the final rings to the raw rings (any ring), sampled every `spacing`
+ * or closer along each final segment: the true value is at most the result + spacing/2 (docs/notes/outline.md
+ * §6). 0 when there is nothing to measure, Infinity when `raw` is empty and `final` is not.
  */
 export function directedHausdorff(final: FlatRings, raw: FlatRings, spacing: number): number {
   const nf = final.start[final.start.length - 1];
@@ -124,19 +116,11 @@ const BRUTE = 32;
 const WINDOW = 8;
 
 /**
- * Directed distance (mm) from the final rings to the raw rings, measured span by span: final vertex f is raw
- * vertex index[f] (smoothed or not) of the same ring, so final segment f → f+1 replaces the raw vertices
- * index[f] … index[f+1]. Points of that segment are measured against the raw segments of that span plus one
- * raw segment on either side; a distance to some raw segments is never less than the distance to all of them,
- * so every measured value is an upper bound of the true distance to the raw rings. Spans of up to 32 raw
- * segments are searched in full; longer ones (runs along the domain edge that simplify to one chord) through a
- * window of ±8 segments that follows the nearest segment along the chord.
- *
- * Sampling (branch and bound on a 1-Lipschitz function): all final vertices are measured first; then each
- * final segment is split in halves while a piece can still beat the largest value found and is longer than
- * `spacing`. A piece is bounded by (d_a + d_b + length)/2 (the distance is 1-Lipschitz) and by the larger end
- * distance to the raw segment nearest to either end (the distance to one segment is convex along a line). The true directed Hausdorff distance is therefore at
- * most the result + spacing/2. `final.start` and `raw.start` list the same rings. Returns 0 for no rings.
+ * Directed distance (mm) from the final rings to the raw rings, span by span: final vertex f is raw vertex
+ * index[f], and final segment f → f+1 is measured against the raw segments it replaced (plus one each side),
+ * by branch and bound down to `spacing`. Every value is an upper bound of the true distance, and the true
+ * directed Hausdorff distance is at most the result + spacing/2 (docs/notes/outline.md §6). `final.start` and
+ * `raw.start` list the same rings.
  */
 export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRings, spacing: number): number {
   const step = spacing > 0 && Number.isFinite(spacing) ? spacing : Infinity;
@@ -184,8 +168,7 @@ export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRing
         const db = near.dist(bx, by);
         const jb = near.at;
         const L = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
-        // a stack of pieces (t0, t1, d0, d1, j0, j1), six floats each; written inline (a closure per segment
-        // was a fifth of this function's time, most of it allocation)
+        // pieces (t0, t1, d0, d1, j0, j1), six floats each, inline: a closure per segment cost a fifth of the time
         let top = 0;
         stack[0] = 0; stack[1] = 1; stack[2] = da; stack[3] = db; stack[4] = ja; stack[5] = jb;
         top = 6;

@@ -1,21 +1,15 @@
 /**
- * Helpers of the smoothing stage: domain-edge flags and one round of local repair after validation.
- *
- * State per raw vertex i (global index into the flat raw rings): keep[i] (the vertex is in the output) and
- * useRaw[i] (it is output at its raw position instead of its smoothed one). Repairs only ever set flags, so
- * the rounds terminate, and they keep the deviation guarantee of docs/smoothing.md §3: a chord that skips
- * vertices always has smoothed end points and smoothed skipped vertices; raw vertices are joined only to
- * their direct neighbours. Lengths in mm, y up.
+ * Domain-edge flags and one round of local repair after validation, on per-raw-vertex flags keep[i] and
+ * useRaw[i]. Repairs only set flags, so the rounds end, and keep the bound of docs/smoothing.md §3
+ * (docs/notes/outline.md §7). mm, y up.
  */
 
 import type { FlatRings } from '../geom/segments.js';
 import type { RingRoles, Validation } from './validate.js';
 
 /**
- * Domain-edge flags per raw vertex: fixed[i] = 1 when the vertex lies on an edge of the domain rectangle
- * (within 1e-9 of the domain size); anchor[i] = 1 for domain corners and for edge vertices with a neighbour
- * that does not share an edge with them (where the outline leaves the edge). Fixed vertices never move in
- * smoothing; anchors are always kept by simplification.
+ * fixed[i] = 1 on a domain edge (within 1e-9 of the domain size: never moved); anchor[i] = 1 at domain corners
+ * and where the outline leaves an edge (always kept).
  */
 export function edgeFlags(
   rings: FlatRings,

@@ -1,13 +1,7 @@
 /**
- * Simplification of a finished outline (after the repairs) within a tolerance, keeping it a valid polygon set.
- *
- * The repairs build their result from polygon booleans and offsets, whose outlines carry many collinear and
- * near-coincident vertices (slivers a fraction of a micrometre long, arcs polygonised finer than the outline
- * tolerance). Each ring is simplified by Ramer–Douglas–Peucker (src/smooth/simplify.ts; U. Ramer 1972,
- * Douglas & Peucker 1973) within `epsilon` mm — every dropped vertex lies within ε of the chord that replaces it
- * — and the rings are then united by the boolean engine with the positive fill rule (outer rings
- * counter-clockwise +1, holes clockwise −1), which turns any crossing the independent simplification made into
- * a valid set again with the same material. Frame: mm, y up. Pure.
+ * Simplification of a repaired outline (booleans and offsets leave slivers and finely polygonised arcs): RDP per
+ * ring within `epsilon` mm (Ramer 1972; Douglas & Peucker 1973), then a union with the positive fill rule, which
+ * makes any crossing the independent simplification made valid again with the same material. mm, y up.
  */
 import type { Point, PolygonSet, Ring } from '../types.js';
 import { simplifyRing } from './simplify.js';

@@ -1,24 +1,16 @@
 /**
- * Ramer–Douglas–Peucker simplification of open chains and closed rings, iterative (explicit stack).
+ * Ramer–Douglas–Peucker simplification of open chains and closed rings, with an explicit stack. Distances are
+ * to the closed segment, so every dropped vertex lies within ε of its chord and back (docs/smoothing.md §3).
  *
- * Method: U. Ramer, "An iterative procedure for the polygonal approximation of plane curves", Computer
+ * U. Ramer, "An iterative procedure for the polygonal approximation of plane curves", Computer
  * Graphics and Image Processing 1(3):244–256, 1972, DOI 10.1016/S0146-664X(72)80017-0; D.H. Douglas and
  * T.K. Peucker, "Algorithms for the reduction of the number of points required to represent a digitized line
- * or its caricature", Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727 [docs/references.md §4.3].
- *
- * Keep the end points of a span; find the interior vertex farthest from the segment joining them; if that
- * distance exceeds ε keep it and treat both halves the same way, else drop every interior vertex. Distances are
- * to the closed segment (not the infinite line), so every dropped vertex lies within ε of the chord that
- * replaces it, and every point of that chord lies within ε of the dropped polyline (docs/smoothing.md §3).
+ * or its caricature", Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727.
  */
 
 import { sqSegDist } from '../geom/segments.js';
 
-/**
- * Marks (keep[i mod n] = 1) the vertices RDP keeps strictly inside the span a … b of a closed ring of n
- * vertices (flat xy, mm). Indices are unwrapped: 0 ≤ a < b ≤ a + n; index k reads vertex k mod n.
- * The end points themselves are not marked here.
- */
+/** Marks keep[k mod n] for the vertices kept strictly inside the unwrapped span a … b (0 ≤ a < b ≤ a + n). */
 export function rdpSpan(
   xy: Float64Array,
   n: number,
@@ -63,10 +55,7 @@ export function rdpSpan(
   }
 }
 
-/**
- * RDP on an open chain (flat xy, mm) with tolerance ε (mm); keeps both end points. Returns the kept
- * coordinates as a new flat array. The input is not modified.
- */
+/** RDP on an open chain (flat xy, mm), ε in mm; keeps both end points. Returns a new flat array. */
 export function rdpOpen(xy: Float64Array, epsilon: number): Float64Array {
   const n = xy.length >> 1;
   if (n <= 2) return xy.slice();
@@ -79,12 +68,9 @@ export function rdpOpen(xy: Float64Array, epsilon: number): Float64Array {
 }
 
 /**
- * RDP on a closed ring (flat xy, mm, implicitly closed) with tolerance ε (mm). Returns keep flags.
- *
- * Vertices with anchors[i] ≠ 0 are always kept and split the ring into spans simplified independently. With
- * fewer than two anchors the ring is split at the first anchor (or vertex 0) and the vertex farthest from it.
- * At least three vertices are kept whenever the ring has three (the one farthest from the line through the
- * two split vertices is added), so a ring never collapses to a segment.
+ * RDP on a closed ring (flat xy, mm), ε in mm; returns keep flags. Anchors are kept and split the ring into
+ * spans (without two, it is split at the first anchor or vertex 0 and the vertex farthest from it). A ring of
+ * three or more vertices keeps at least three.
  */
 export function simplifyRing(
   xy: Float64Array,

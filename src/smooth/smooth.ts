@@ -1,10 +1,6 @@
 /**
- * The smoothing stage: Taubin λ|μ smoothing, then Ramer–Douglas–Peucker simplification, under one deviation
- * budget, followed by validation and local repair. docs/smoothing.md explains the method and its limits.
- *
- * Frame: mm, y up, origin at the lower-left corner of the grid. Input rings come from marching squares
- * (outer rings CCW, holes CW, implicitly closed, about one vertex per lattice-edge crossing); output rings keep
- * their orientation. Methods: G. Taubin, "Curve and surface smoothing without shrinkage", ICCV 1995,
+ * Taubin smoothing, then Ramer–Douglas–Peucker simplification under one deviation budget, then validation and
+ * local repair (docs/smoothing.md). Frame: mm, y up; rings keep their orientation. Methods: G. Taubin, "Curve and surface smoothing without shrinkage", ICCV 1995,
  * DOI 10.1109/ICCV.1995.466848; U. Ramer, CGIP 1(3):244–256, 1972, DOI 10.1016/S0146-664X(72)80017-0;
  * D.H. Douglas & T.K. Peucker, Cartographica 10(2):112–122, 1973, DOI 10.3138/FM57-6770-U75U-7727.
  */
@@ -22,15 +18,15 @@ import { edgeFlags, repairRound } from './repair.js';
 import { hypot } from '../geom/portable-math.js';
 
 export interface SmoothOptions {
-  /** Taubin λ|μ pairs (default 2); 0 = off. */
+  /** Taubin λ|μ pairs; 0 = off. */
   iterations: number;
   /** Taubin λ, 0 < λ < 1 (default 0.33). */
   lambda: number;
-  /** Taubin μ, −1 < μ ≤ 0 (default −0.34); Taubin takes λ < −μ; μ = 0 gives plain Laplacian smoothing. */
+  /** Taubin μ, −1 < μ ≤ 0 (default −0.34). */
   mu: number;
   /** mm: total budget for the largest distance of the final outline from the raw contour. */
   tolerance: number;
-  /** mm: the domain rectangle; vertices on its edges stay on them. */
+  /** mm; vertices on its edges stay on them. */
   domain: readonly [minX: number, minY: number, maxX: number, maxY: number];
 }
 
@@ -42,11 +38,7 @@ export interface SmoothResult {
    * Measured on first read (the volume search builds candidates it never reports).
    */
   readonly maxDeviation: number;
-  /**
-   * mm: how far the true directed Hausdorff distance may exceed `maxDeviation` — half the sample spacing of
-   * the measure (docs/smoothing.md §4); Infinity when the tolerance is 0 (only vertices are sampled then).
-   * `maxDeviation` itself is never below the distance at its samples.
-   */
+  /** mm: how far the true distance may exceed `maxDeviation` (docs/smoothing.md §4); Infinity at tolerance 0. */
   readonly deviationResolution: number;
   /** mm², raw (outer areas minus hole areas). */
   areaBefore: number;
@@ -54,7 +46,7 @@ export interface SmoothResult {
   areaAfter: number;
   verticesBefore: number;
   verticesAfter: number;
-  /** Rings dropped because they had fewer than three distinct vertices or zero area (with their holes). */
+  /** Rings with fewer than three distinct vertices or zero area (with their holes). */
   ringsDropped: number;
 }
 
@@ -64,15 +56,9 @@ export const SMOOTH_SHARE = 0.5;
 const LOCAL_FIX_ROUNDS = 8;
 
 /**
- * Smooths and simplifies a polygon set within a deviation budget and returns it with its measurements.
- *
- * Budget: smoothing clamps every vertex to within SMOOTH_SHARE·tolerance of its raw position; simplification
- * then uses ε = tolerance − (largest smoothing displacement). Together every final point lies within
- * `tolerance` of the raw rings (proof in docs/smoothing.md §3); `maxDeviation` measures it independently.
- * Vertices on the domain edges (within 1e-9 of the domain size) never move; domain corners and the vertices
- * where a ring leaves an edge are always kept. Invalid results (crossing or touching rings, misplaced holes,
- * flipped rings) are repaired by restoring dropped vertices, then raw vertices, around each problem.
- * The input is not modified.
+ * Smooths and simplifies a polygon set within `tolerance` (mm) of the raw rings: smoothing may move a vertex
+ * SMOOTH_SHARE of it, simplification gets the rest (docs/smoothing.md §3). Domain-edge vertices never move;
+ * invalid results are repaired by restoring dropped, then raw, vertices around each problem. Input unchanged.
  */
 export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothResult {
   return smoothFlat(flatSet(raw), options);
@@ -159,10 +145,7 @@ function checkOptions(o: SmoothOptions): void {
   }
 }
 
-/**
- * Copies the rings without repeated consecutive points. Rings with fewer than three distinct points, zero area or
- * non-finite coordinates are dropped (an outer with its holes).
- */
+/** Copies the rings without repeated points; drops degenerate or non-finite rings (an outer with its holes). */
 function flatten(raw: FlatPolygonSet): { rawFlat: FlatRings; roles: RingRoles; verticesBefore: number; ringsDropped: number } {
   const ringCount = raw.start.length - 1;
   const src = raw.xy;
@@ -220,7 +203,7 @@ function maxRingSize(start: Int32Array): number {
   return m;
 }
 
-/** The final rings: kept vertices, raw coordinates where useRaw is set; index maps final → raw vertex. */
+/** Kept vertices, raw where useRaw is set; index: final → raw vertex. */
 function assemble(raw: FlatRings, S: Float64Array, keep: Uint8Array, useRaw: Uint8Array): { rings: FlatRings; index: Int32Array } {
   let count = 0;
   for (let i = 0; i < keep.length; i++) count += keep[i];
@@ -256,7 +239,6 @@ function sampleSpacing(rings: FlatRings, tolerance: number): number {
   return Math.max(tolerance / 4, perimeter / 4e6);
 }
 
-/** Back to nested tuples: each outer ring followed by its holes. */
 function rebuild(rings: FlatRings, roles: RingRoles): PolygonSet {
   const { xy, start } = rings;
   const polygons: Polygon[] = [];

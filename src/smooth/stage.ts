@@ -1,9 +1,4 @@
-/**
- * The outline stage: the raw iso-contour of a prepared grid at one level and what smoothing makes of it
- * (docs/threshold.md). The threshold stage proposes the levels; the pipeline calls this stage for each.
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
- */
+/** The outline stage: the raw iso-contour at one level and what smoothing makes of it. mm, y up. */
 import { contourFlat, nestedSet, type FlatPolygonSet } from '../contour/index.js';
 import { symmetricArea, type MirrorPlane } from '../geom/symmetry.js';
 import type { Settings } from '../settings.js';
@@ -19,11 +14,11 @@ export interface OutlineInput {
   readonly tolerance: number;
 }
 
-/** One outline: the raw iso-contour and what smoothing made of it, with the time each took (ms). */
+/** One outline, with the ms each part took. */
 export interface OutlineRecord {
-  /** The level (value units), or null for the empty part. */
+  /** null: the empty part. */
   readonly level: number | null;
-  /** The raw contour, nested on first read. */
+  /** Nested on first read. */
   readonly raw: PolygonSet;
   readonly smoothed: SmoothResult;
   readonly contourMs: number;
@@ -34,15 +29,14 @@ export type OutlineSettings = Pick<Settings, 'smooth' | 'smoothLambda' | 'smooth
 
 const EMPTY: FlatPolygonSet = { xy: new Float64Array(0), start: new Int32Array(1), hole: new Uint8Array(0), owner: new Int32Array(0) };
 
-/** The same smoothing result judged by another area (mm²), keeping its lazy members. */
+/** The same result judged by another area (mm²), keeping its lazy members. */
 function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
   return Object.create(sm, { areaAfter: { value: areaAfter, enumerable: true } }) as SmoothResult;
 }
 
 /**
- * Contour `field.grid` at `level` (null: the empty part) and smooth it. With `--mirror` the outline written is
- * the symmetrized one, so its area is judged as such (exact, no booleans): the volume search then meets the
- * target with the geometry that is written (docs/symmetry.md).
+ * Contour and smooth at `level`. With `--mirror` the area is that of the symmetrized outline, the one written
+ * (docs/symmetry.md).
  */
 export function outlineStage(field: OutlineInput, level: number | null, s: OutlineSettings): OutlineRecord {
   const a = performance.now();

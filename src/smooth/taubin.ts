@@ -1,41 +1,28 @@
 /**
- * Taubin λ|μ smoothing of closed polylines with the umbrella (uniform) Laplacian.
- *
- * Method: G. Taubin, "Curve and surface smoothing without shrinkage", Proc. ICCV 1995 (IEEE Xplore document
- * 466848), DOI 10.1109/ICCV.1995.466848 [docs/references.md §4.1: link seen through a secondary source, DOI from
- * memory]. Also G. Taubin, "A signal processing approach to fair surface design", Proc. SIGGRAPH '95,
- * pp. 351–358, DOI 10.1145/218380.218473 [docs/references.md §4.1: DOI from memory].
- *
- * For a closed ring, Δx_i = ½(x_{i−1} + x_{i+1}) − x_i; one pair is x ← x + λΔx followed by x ← x + μΔx
- * (0 < λ < −μ), both steps computed from the positions before the step (Jacobi). A regular N-gon is an
- * eigenvector: one pair scales its radius by (1 − λk)(1 − μk), k = 1 − cos(2π/N).
+ * Taubin λ|μ smoothing of closed polylines with the umbrella Laplacian Δx_i = ½(x_{i−1} + x_{i+1}) − x_i, each
+ * step from the positions before it (Jacobi; a regular N-gon's behaviour: docs/notes/outline.md §7).
+ * G. Taubin, "Curve and surface smoothing without shrinkage", Proc. ICCV 1995, DOI 10.1109/ICCV.1995.466848;
+ * "A signal processing approach to fair surface design", SIGGRAPH '95, DOI 10.1145/218380.218473 (both DOIs
+ * from memory, docs/references.md §4.1).
  */
 
-/** Settings for {@link taubinRingInPlace}. Lengths in mm. */
+/** Lengths in mm. */
 export interface TaubinOptions {
-  /** Number of λ|μ pairs; 0 leaves the ring as it is. */
+  /** λ|μ pairs. */
   readonly iterations: number;
-  /** Positive shrinking factor λ (e.g. 0.33). */
+  /** Shrinking factor λ > 0 (e.g. 0.33). */
   readonly lambda: number;
-  /** Negative inflating factor μ (e.g. −0.34); 0 gives pure Laplacian smoothing with step λ. */
+  /** Inflating factor μ ≤ 0 (e.g. −0.34); 0 is plain Laplacian smoothing. */
   readonly mu: number;
-  /**
-   * Largest allowed distance (mm) of a vertex from its own starting position; every step clamps the
-   * displacement back to this radius. Infinity = unlimited.
-   */
+  /** Largest distance of a vertex from its starting position, enforced at every step; Infinity = none. */
   readonly maxShift: number;
-  /** Optional rectangle [minX, minY, maxX, maxY] (mm) that free vertices are clamped into. */
+  /** [minX, minY, maxX, maxY] that free vertices are clamped into. */
   readonly box?: readonly [number, number, number, number];
 }
 
 /**
- * Smooths one closed ring in place and returns the largest displacement (mm) of any vertex from `start`.
- *
- * @param xy interleaved coordinates of the ring (mm, y up), overwritten with the smoothed positions
- * @param start the positions the displacement budget is measured from (usually the raw ring; not modified)
- * @param fixed optional per-vertex flags; a vertex with fixed[i] ≠ 0 never moves (domain-edge vertices)
- * @param options λ, μ, number of pairs, displacement cap, clamping box
- * @param scratch optional buffer of at least xy.length numbers, reused between rings
+ * Smooths one closed ring (flat, mm, y up) in place; returns the largest displacement (mm) from `start`, the
+ * positions the cap is measured from. Vertices with fixed[i] ≠ 0 never move. `scratch`: ≥ xy.length numbers.
  */
 export function taubinRingInPlace(
   xy: Float64Array,
@@ -54,7 +41,6 @@ export function taubinRingInPlace(
   for (let it = 0; it < options.iterations; it++) {
     for (const f of steps) {
       if (f === 0) continue;
-      // umbrella Laplacian from the current positions
       let px = xy[2 * n - 2], py = xy[2 * n - 1];
       for (let i = 0; i < n; i++) {
         const j = i + 1 === n ? 0 : i + 1;
@@ -88,10 +74,7 @@ export function taubinRingInPlace(
   return maxShiftOf(xy, start);
 }
 
-/**
- * Pure form of {@link taubinRingInPlace}: returns a smoothed copy of a closed ring (flat, mm) and the largest
- * vertex displacement (mm). The input is not modified.
- */
+/** taubinRingInPlace on a copy. */
 export function taubinRing(
   ring: Float64Array,
   options: TaubinOptions,

@@ -1,11 +1,7 @@
 /**
- * Validity of a set of rings: no ring crosses or touches itself, no two rings cross or touch, every ring has
- * at least three vertices and the orientation of its role (outer CCW, hole CW), outers lie in no material and
- * holes lie inside their own outer ring and in no other hole.
- *
- * Intersections use a uniform grid of segments (each segment listed in the cells its line passes through):
- * O(segments + pairs sharing a cell), about O(n) for outlines whose segments are not much longer than the
- * cell size. Nesting uses one winding-number ray per ring cast through the same grid. Lengths in mm, y up.
+ * Validity of a set of rings: no crossing or touching, at least three vertices, the orientation of its role
+ * (outer CCW, hole CW), outers in no material, holes inside their own outer only. A uniform segment grid makes
+ * it about O(n); nesting casts one winding-number ray per ring. mm, y up.
  */
 
 import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
@@ -25,19 +21,13 @@ export interface Validation {
   readonly segmentHit: Uint8Array;
   /** ringHit[r] = 1 when ring r is degenerate, has the wrong orientation or the wrong nesting. */
   readonly ringHit: Uint8Array;
-  /**
-   * blamed[r] = 1 when ring r may cause a nesting failure of another ring: the owner of a misplaced hole and
-   * every ring crossed by the test ray of a misplaced ring.
-   */
+  /** blamed[r] = 1 when ring r may cause another's nesting failure (its misplaced hole, or crossing its ray). */
   readonly blamed: Uint8Array;
   /** Number of flagged segments plus flagged rings; 0 means valid. */
   readonly problems: number;
 }
 
-/**
- * Checks the rings (flat, mm) against their roles. Adjacent segments of one ring may share their common vertex
- * but must not fold back onto each other; every other pair of segments must be disjoint (closed segments).
- */
+/** Adjacent segments may share their vertex but not fold back; every other pair of closed segments is disjoint. */
 export function validateRings(rings: FlatRings, roles: RingRoles): Validation {
   const { xy, start } = rings;
   const nRings = start.length - 1;

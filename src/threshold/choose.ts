@@ -1,9 +1,6 @@
 /**
- * Which level, and how it was chosen (docs/threshold.md):
- * - a constant field has no search: solid everywhere when its value is ≥ 0.5, else empty ('constant');
- * - `--level` fixes the level ('level');
- * - a target of 0 gives an empty part; any other target is searched for on the smoothed area ('volume').
- * Degenerate cases are answers with a warning, never errors.
+ * Which level, and how it was chosen (docs/threshold.md): 'constant' (solid when the value is ≥ 0.5, else
+ * empty), 'level' (`--level`), 'volume' (a target of 0 is the empty part). Degenerate cases warn, never throw.
  */
 import { levelBandModel } from '../contour/index.js';
 import type { SaddleRuleName } from '../settings.js';
@@ -38,25 +35,20 @@ export interface ThresholdChoice<S extends { readonly areaBefore: number; readon
   readonly warnings: string[];
 }
 
-/** Grids up to this many samples may spend up to REFINE_BUILDS more builds bisecting on the smoothed area (volume.ts). */
+/** Grids up to this many samples may bisect on the smoothed area (volume.ts); larger ones converge without. */
 const REFINE_CELLS = 250_000;
-/** Bisection builds on small grids: halving the bracket 12 times narrows it 4096-fold (docs/threshold.md). */
+/** Halving the bracket 12 times narrows it 4096-fold (docs/threshold.md). */
 const REFINE_BUILDS = 12;
 
-/** The level of the next build; null asks for the empty part. */
 export interface LevelRequest {
   readonly level: number | null;
 }
 
-/**
- * Chooses the level for a prepared grid, one build at a time: `next()` names the level to build at (undefined
- * when done), `record()` takes that build, `finish()` returns the choice.
- */
+/** Chooses the level one build at a time: `next()`, `record()` each build, then `finish()`. */
 export class ThresholdSearch<S extends { readonly areaBefore: number; readonly areaAfter: number }> {
   readonly mode: Report['threshold']['mode'];
   private readonly warnings: string[] = [];
   private readonly volume: VolumeSearch<Candidate<S>> | null = null;
-  /** The single build of the modes without a search, until it is made. */
   private single: LevelRequest | null = null;
   private level: number | null = null;
   private pending: number | null = null;
@@ -82,8 +74,6 @@ export class ThresholdSearch<S extends { readonly areaBefore: number; readonly a
       this.single = { level: null };
     } else {
       this.mode = 'volume';
-      // Bisection on the smoothed area is worth its builds where they are cheap (small grids are the coarse ones
-      // whose simplification makes the area jump); large grids converge in the fixed point.
       const refine = grid.values.length <= REFINE_CELLS ? REFINE_BUILDS : 0;
       const model = levelBandModel(grid, o.saddle, [o.min, o.max]);
       this.volume = new VolumeSearch(model, o.target * o.domainArea, o.volumeTolerance, FIXED_POINT_BUILDS, refine);
@@ -127,10 +117,7 @@ export class ThresholdSearch<S extends { readonly areaBefore: number; readonly a
   }
 }
 
-/**
- * ThresholdSearch driven by `buildAt(level)`, which contours and smooths at a level (`buildAt(null)`: the empty
- * part).
- */
+/** ThresholdSearch driven by `buildAt(level)` (contour + smooth; null: the empty part). */
 export function chooseThreshold<S extends { readonly areaBefore: number; readonly areaAfter: number }>(
   grid: DensityGrid,
   o: ThresholdOptions,

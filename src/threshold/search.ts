@@ -1,25 +1,13 @@
 /**
- * Find the iso-level whose raw marching-squares region has a given area, without re-contouring.
- *
- * The enclosed area A(L) of the region {value ≥ L} is a sum over lattice cells: a cell whose smallest
- * corner value is ≥ L is full, one whose largest corner value is < L is empty, and only the cells whose
- * corner range straddles L need the piecewise-linear area of their case polygon. A(L) is continuous and
- * non-increasing in L.
- *
- * 1. One pass bins the cells by their smallest and largest corner value. The binned sums bound A from
- *    below (cells surely full) and above (cells possibly solid) at every bin edge, which brackets the answer
- *    without evaluating any cell polygon.
- * 2. One more pass keeps only the cells whose range meets that bracket (the "band": about the boundary of
- *    the part) and packs their corner values; the other cells are summed once.
- * 3. Regula falsi with the Illinois modification on the packed cells, narrowing them as the bracket shrinks.
+ * The iso-level whose raw marching-squares region has a given area, found without contouring: bracket from
+ * binned corner ranges, pack the cells that meet the bracket, regula falsi on them (docs/notes/outline.md §1).
  */
 
 import { BAND_STRIDE } from '../contour/band.js';
 
-/** Floats per packed cell: 4 corner values, width, height (mm), then the smallest and largest corner value. */
 export { BAND_STRIDE };
 
-/** Cell areas binned by corner range (see the contour stage's cellRangeHistogram). */
+/** Cell areas binned by corner range (src/contour/band.ts cellRangeHistogram). */
 export interface BandHistogram {
   readonly gmin: number;
   readonly gmax: number;
@@ -37,7 +25,7 @@ export interface Band {
   readonly count: number;
 }
 
-/** What the search needs of the lattice the contour is drawn on (provided by the contour stage). */
+/** What the search needs of the contour lattice (src/contour/band.ts levelBandModel). */
 export interface LevelAreaModel {
   histogram(bins: number): BandHistogram;
   pack(lo: number, hi: number): Band;
@@ -56,12 +44,11 @@ export interface RawLevelResult {
 
 const BINS = 1024;
 
-/** Bracket [lo, hi] with A(lo) ≥ target ≥ A(hi), from binned bounds on A (step 1 above). */
+/** Bracket [lo, hi] with A(lo) ≥ target ≥ A(hi), from binned bounds on A. */
 function bracket(h: BandHistogram, targetArea: number): { lo: number; hi: number } {
   const bins = h.minHist.length - 1;
   const minS = Float64Array.from(h.minHist);
   const maxS = Float64Array.from(h.maxHist);
-  // Suffix sums: S[k] = area of the cells whose value falls in bins ≥ k.
   for (let k = bins - 1; k >= 0; k--) {
     minS[k] += minS[k + 1];
     maxS[k] += maxS[k + 1];
@@ -86,20 +73,17 @@ function bracket(h: BandHistogram, targetArea: number): { lo: number; hi: number
   return hi > lo ? { lo, hi } : { lo: h.gmin, hi: h.gmax };
 }
 
-/** A bracket of the level with its cells classified: the start of every search that fits inside it. */
 interface PackedBracket {
   readonly lo: number;
   readonly hi: number;
   readonly aLo: number;
   readonly aHi: number;
-  /** Area of the cells surely full on [lo, hi], mm². */
+  /** mm²: the cells full on all of [lo, hi]. */
   readonly fullBase: number;
-  /** The other cells that meet [lo, hi], packed by model.pack. */
   readonly buf: Float64Array;
   readonly count: number;
 }
 
-/** Step 2: classify the cells once for the bracket [lo, hi]. */
 function packBracket(model: LevelAreaModel, lo: number, hi: number): PackedBracket {
   const band = model.pack(lo, hi);
   const at = (level: number) => {
@@ -111,15 +95,13 @@ function packBracket(model: LevelAreaModel, lo: number, hi: number): PackedBrack
 }
 
 /**
- * Finds levels for raw region areas on one model. The first search bins and packs the cells (steps 1–2);
- * later searches whose target lies in the same bracket — the volume search asks two or three times for
- * nearly the same area — start from the packed cells and cost only a few passes over the boundary cells.
+ * Levels for raw region areas on one model. Later searches whose target lies in the first one's bracket (the
+ * volume search asks two or three times for nearly the same area) reuse its packed cells.
  */
 export class LevelSolver {
   private packed: PackedBracket | undefined;
-  /** Working copy of the packed cells for one search (narrowed in place), reused across searches. */
   private scratch = new Float64Array(0);
-  /** Every (level, area) evaluated inside the packed bracket: later searches start from the tightest pair. */
+  /** Every (level, area) evaluated inside the packed bracket, for warm starts. */
   private known: { level: number; area: number }[] = [];
 
   constructor(private readonly model: LevelAreaModel) {}
@@ -129,10 +111,9 @@ export class LevelSolver {
    * or until the bracket can no longer shrink. Returns the end of the value range when the target lies
    * outside [A(max), A(min)].
    *
-   * Root finding by regula falsi with the Illinois modification (M. Dowell, P. Jarratt, "A modified regula falsi
-   * method for computing the root of an equation", BIT 11:168–174, 1971, DOI 10.1007/BF01934364): superlinear
-   * on the smooth pieces of A(L), never leaving the bracket; a bisection step only if rounding puts the
-   * interpolated level on an end of the bracket.
+   * Regula falsi with the Illinois modification (M. Dowell, P. Jarratt, "A modified regula falsi method for
+   * computing the root of an equation", BIT 11:168–174, 1971, DOI 10.1007/BF01934364); a bisection step only
+   * when rounding puts the interpolated level on an end of the bracket.
    */
   solve(targetArea: number, relTol = 1e-7): RawLevelResult {
     const model = this.model;
@@ -151,7 +132,7 @@ export class LevelSolver {
       if (targetArea <= p.aHi) return { level: p.hi, area: p.aHi, steps: 0 };
     }
     let { fullBase, count } = p;
-    // Warm start: the tightest known pair around the target (A is non-increasing in the level).
+    // A is non-increasing in the level: start from the tightest known pair around the target.
     let lo = p.lo;
     let aLo = p.aLo;
     let hi = p.hi;
@@ -161,7 +142,6 @@ export class LevelSolver {
       if (k.area <= targetArea && k.level < hi) ({ level: hi, area: aHi } = k);
     }
     const known = this.known;
-    // Evaluate on the shared packed cells until the first narrowing copies the survivors to the scratch buffer.
     let buf = p.buf;
     if (this.scratch.length < count * BAND_STRIDE) this.scratch = new Float64Array(count * BAND_STRIDE);
     const scratch = this.scratch;
@@ -170,7 +150,7 @@ export class LevelSolver {
       for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * k, level);
       return a;
     };
-    // Drop the packed cells that no longer meet [lo, hi] (full ones join fullBase).
+    // Cells that no longer meet [lo, hi] leave the band; full ones join fullBase.
     const narrow = () => {
       let keep = 0;
       for (let k = 0; k < count; k++) {
@@ -193,7 +173,7 @@ export class LevelSolver {
       narrow();
       narrowedWidth = hi - lo;
     }
-    // f = A − target: positive at lo, negative at hi. Illinois: halve the weight of the end that stays put.
+    // f = A − target: positive at lo, negative at hi. Illinois: halve f at the end that stays put.
     let fLo = aLo - targetArea;
     let fHi = aHi - targetArea;
     let side = 0;

@@ -1,10 +1,6 @@
 /**
- * The threshold stage (docs/threshold.md): chooses the level (constant field, `--level`, or the
- * volume-preserving search on the smoothed area). It asks for outlines and judges them, but never builds one:
- * `next()` names the level of the next outline, `record()` takes it (src/smooth/stage.ts outlineStage), and
- * `finish()` returns the record. src/pipeline.ts thresholdStage runs the loop.
- *
- * Frame: mm, y up, origin at the lower-left corner of the input grid (docs/conventions.md).
+ * The threshold stage (docs/threshold.md): chooses the level. It names levels and judges the outlines built
+ * there (src/smooth/stage.ts), but builds none; src/pipeline.ts thresholdStage runs the loop.
  */
 import type { Settings } from '../settings.js';
 import type { SmoothResult } from '../smooth/smooth.js';
@@ -29,7 +25,6 @@ export interface OutlineBuild {
   readonly smoothMs: number;
 }
 
-/** What the threshold stage hands on. */
 export interface ThresholdRecord {
   /** The report's `threshold` block. */
   readonly summary: ThresholdSummary;
@@ -37,7 +32,7 @@ export interface ThresholdRecord {
   readonly smoothed: SmoothResult;
   /** Full contour + smooth passes the choice needed (1 for --level). */
   readonly builds: number;
-  /** ms spent contouring and smoothing inside the choice. */
+  /** ms, over all builds. */
   readonly contourMs: number;
   readonly smoothMs: number;
   readonly warnings: readonly string[];
@@ -47,9 +42,7 @@ export type ThresholdSettings = Pick<Settings, 'volumeFraction' | 'level' | 'vol
 
 /** One run of the threshold stage: ask for levels, take the outlines built there, then finish. */
 export interface ThresholdRun {
-  /** The level of the next outline to build, or undefined when the choice is made. */
   next(): LevelRequest | undefined;
-  /** The outline built at the level `next()` named. */
   record(outline: OutlineBuild): void;
   finish(): ThresholdRecord;
 }
@@ -63,7 +56,6 @@ function pixelFraction(grid: DensityGrid, level: number | null, solidConstant: b
   return pixels / v.length;
 }
 
-/** Starts the threshold stage on a prepared field. */
 export function thresholdSearch(field: ThresholdInput, s: ThresholdSettings): ThresholdRun {
   const target = s.volumeFraction ?? Math.min(1, Math.max(0, field.mean));
   const { grid, domainArea } = field;
