@@ -177,11 +177,19 @@ export function bandCellArea(buf: Float64Array, o: number, level: number, saddle
   return cellPolyArea(buf[o], buf[o + 1], buf[o + 2], buf[o + 3], level, buf[o + 4], buf[o + 5], saddle);
 }
 
+/** base + Σ bandCellArea over the first `count` packed cells, in order: one frame for the whole band. */
+export function bandArea(buf: Float64Array, count: number, level: number, base: number, saddle: SaddleRule): number {
+  let a = base;
+  for (let k = 0; k < count; k++) a += bandCellArea(buf, BAND_STRIDE * k, level, saddle);
+  return a;
+}
+
 /** The level search's LevelAreaModel of a grid. `bounds`: the sample range, for NaN-free grids. */
 export function levelBandModel(grid: DensityGrid, saddle: SaddleRule, bounds?: readonly [number, number]) {
   return {
     histogram: (bins: number) => cellRangeHistogram(grid, bins, bounds),
     pack: (lo: number, hi: number) => packBand(grid, lo, hi),
     packedArea: (buf: Float64Array, o: number, level: number) => bandCellArea(buf, o, level, saddle),
+    bandArea: (buf: Float64Array, count: number, level: number, base: number) => bandArea(buf, count, level, base, saddle),
   };
 }

@@ -31,6 +31,8 @@ export interface LevelAreaModel {
   pack(lo: number, hi: number): Band;
   /** Area in mm² at `level` of the packed cell at buf[o] (0 if its max < level, full if its min ≥ level). */
   packedArea(buf: Float64Array, o: number, level: number): number;
+  /** base + Σ packedArea over the first `count` packed cells, added in order (one call per evaluation). */
+  bandArea?(buf: Float64Array, count: number, level: number, base: number): number;
 }
 
 export interface RawLevelResult {
@@ -43,6 +45,13 @@ export interface RawLevelResult {
 }
 
 const BINS = 1024;
+
+function sumBand(model: LevelAreaModel, buf: Float64Array, count: number, level: number, base: number): number {
+  if (model.bandArea) return model.bandArea(buf, count, level, base);
+  let a = base;
+  for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * k, level);
+  return a;
+}
 
 /** Bracket [lo, hi] with A(lo) ≥ target ≥ A(hi), from binned bounds on A. */
 function bracket(h: BandHistogram, targetArea: number): { lo: number; hi: number } {
@@ -86,11 +95,7 @@ interface PackedBracket {
 
 function packBracket(model: LevelAreaModel, lo: number, hi: number): PackedBracket {
   const band = model.pack(lo, hi);
-  const at = (level: number) => {
-    let a = band.fullBase;
-    for (let k = 0; k < band.count; k++) a += model.packedArea(band.buf, BAND_STRIDE * k, level);
-    return a;
-  };
+  const at = (level: number) => sumBand(model, band.buf, band.count, level, band.fullBase);
   return { lo, hi, aLo: at(lo), aHi: at(hi), fullBase: band.fullBase, buf: band.buf, count: band.count };
 }
 
@@ -145,11 +150,7 @@ export class LevelSolver {
     let buf = p.buf;
     if (this.scratch.length < count * BAND_STRIDE) this.scratch = new Float64Array(count * BAND_STRIDE);
     const scratch = this.scratch;
-    const areaAt = (level: number): number => {
-      let a = fullBase;
-      for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * k, level);
-      return a;
-    };
+    const areaAt = (level: number): number => sumBand(model, buf, count, level, fullBase);
     // Cells that no longer meet [lo, hi] leave the band; full ones join fullBase.
     const narrow = () => {
       let keep = 0;
