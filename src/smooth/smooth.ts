@@ -12,7 +12,7 @@ import type { FlatRings } from '../geom/segments.js';
 import { flatRingArea } from '../geom/area.js';
 import { spanDeviation, totalArea } from './deviation.js';
 import { simplifyRing } from './simplify.js';
-import { taubinRingsInPlace } from './taubin.js';
+import { taubinRingInPlace } from './taubin.js';
 import { type RingRoles, validateRings } from './validate.js';
 import { edgeFlags, repairRound } from './repair.js';
 import { hypot } from '../geom/portable-math.js';
@@ -80,7 +80,13 @@ export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions): SmoothR
   if (options.iterations > 0 && tolerance > 0) {
     const taubin = { iterations: options.iterations, lambda: options.lambda, mu: options.mu,
       maxShift: SMOOTH_SHARE * tolerance, box: domain };
-    used = taubinRingsInPlace(S, R, rawFlat.start, fixed, taubin);
+    const scratch = new Float64Array(2 * maxRingSize(rawFlat.start));
+    for (let r = 0; r < nRings; r++) {
+      const a = rawFlat.start[r], b = rawFlat.start[r + 1];
+      const shift = taubinRingInPlace(S.subarray(2 * a, 2 * b), R.subarray(2 * a, 2 * b),
+        fixed.subarray(a, b), taubin, scratch);
+      if (shift > used) used = shift;
+    }
   }
   // 2. RDP with the rest of the budget
   const eps = Math.max(0, tolerance - used);

@@ -32,75 +32,46 @@ export function taubinRingInPlace(
   scratch?: Float64Array,
 ): number {
   const n = xy.length >> 1;
-  return taubinRingsInPlace(xy, start, Int32Array.of(0, n), fixed ?? new Uint8Array(n), options, scratch);
-}
-
-/**
- * taubinRingInPlace on every ring of flat rings (ring r: vertices bounds[r] … bounds[r + 1] − 1), in one call:
- * the loops stay in one optimized frame instead of being entered anew per ring. Returns the largest
- * displacement (mm) over all rings.
- */
-export function taubinRingsInPlace(
-  xy: Float64Array,
-  start: Float64Array,
-  bounds: Int32Array,
-  fixed: Uint8Array,
-  options: TaubinOptions,
-  scratch?: Float64Array,
-): number {
-  let longest = 0;
-  for (let r = 0; r + 1 < bounds.length; r++) longest = Math.max(longest, bounds[r + 1] - bounds[r]);
-  const d = scratch && scratch.length >= 2 * longest ? scratch : new Float64Array(2 * longest);
+  if (n < 3 || !(options.iterations > 0)) return maxShiftOf(xy, start);
+  const d = scratch && scratch.length >= xy.length ? scratch : new Float64Array(xy.length);
   const cap = options.maxShift;
   const capSq = cap * cap;
   const box = options.box;
   const steps = [options.lambda, options.mu];
-  const iterations = options.iterations > 0 ? options.iterations : 0;
-  let maxSq = 0;
-  for (let r = 0; r + 1 < bounds.length; r++) {
-    const v0 = bounds[r];
-    const n = bounds[r + 1] - v0;
-    const o = 2 * v0;
-    for (let it = 0; n >= 3 && it < iterations; it++) {
-      for (const f of steps) {
-        if (f === 0) continue;
-        let px = xy[o + 2 * n - 2], py = xy[o + 2 * n - 1];
-        for (let i = 0; i < n; i++) {
-          const j = i + 1 === n ? 0 : i + 1;
-          const x = xy[o + 2 * i], y = xy[o + 2 * i + 1];
-          d[2 * i] = 0.5 * (px + xy[o + 2 * j]) - x;
-          d[2 * i + 1] = 0.5 * (py + xy[o + 2 * j + 1]) - y;
-          px = x; py = y;
+  for (let it = 0; it < options.iterations; it++) {
+    for (const f of steps) {
+      if (f === 0) continue;
+      let px = xy[2 * n - 2], py = xy[2 * n - 1];
+      for (let i = 0; i < n; i++) {
+        const j = i + 1 === n ? 0 : i + 1;
+        const x = xy[2 * i], y = xy[2 * i + 1];
+        d[2 * i] = 0.5 * (px + xy[2 * j]) - x;
+        d[2 * i + 1] = 0.5 * (py + xy[2 * j + 1]) - y;
+        px = x; py = y;
+      }
+      for (let i = 0; i < n; i++) {
+        if (fixed !== null && fixed[i] !== 0) continue;
+        let x = xy[2 * i] + f * d[2 * i];
+        let y = xy[2 * i + 1] + f * d[2 * i + 1];
+        if (box) {
+          x = x < box[0] ? box[0] : x > box[2] ? box[2] : x;
+          y = y < box[1] ? box[1] : y > box[3] ? box[3] : y;
         }
-        for (let i = 0; i < n; i++) {
-          if (fixed[v0 + i] !== 0) continue;
-          let x = xy[o + 2 * i] + f * d[2 * i];
-          let y = xy[o + 2 * i + 1] + f * d[2 * i + 1];
-          if (box) {
-            x = x < box[0] ? box[0] : x > box[2] ? box[2] : x;
-            y = y < box[1] ? box[1] : y > box[3] ? box[3] : y;
-          }
-          const ox = start[o + 2 * i], oy = start[o + 2 * i + 1];
-          const dx = x - ox, dy = y - oy;
-          const dd = dx * dx + dy * dy;
-          if (dd > capSq) {
-            // pull back onto the budget circle; the box is convex and holds the start, so this stays inside
-            const s = cap / Math.sqrt(dd);
-            x = ox + dx * s;
-            y = oy + dy * s;
-          }
-          xy[o + 2 * i] = x;
-          xy[o + 2 * i + 1] = y;
+        const ox = start[2 * i], oy = start[2 * i + 1];
+        const dx = x - ox, dy = y - oy;
+        const dd = dx * dx + dy * dy;
+        if (dd > capSq) {
+          // pull back onto the budget circle; the box is convex and holds the start, so this stays inside
+          const s = cap / Math.sqrt(dd);
+          x = ox + dx * s;
+          y = oy + dy * s;
         }
+        xy[2 * i] = x;
+        xy[2 * i + 1] = y;
       }
     }
-    for (let i = o; i < o + 2 * n; i += 2) {
-      const dx = xy[i] - start[i], dy = xy[i + 1] - start[i + 1];
-      const dd = dx * dx + dy * dy;
-      if (dd > maxSq) maxSq = dd;
-    }
   }
-  return Math.sqrt(maxSq);
+  return maxShiftOf(xy, start);
 }
 
 /** taubinRingInPlace on a copy. */
@@ -112,4 +83,14 @@ export function taubinRing(
   const xy = ring.slice();
   const maxShift = taubinRingInPlace(xy, ring, fixed, options);
   return { xy, maxShift };
+}
+
+function maxShiftOf(xy: Float64Array, start: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < xy.length; i += 2) {
+    const dx = xy[i] - start[i], dy = xy[i + 1] - start[i + 1];
+    const dd = dx * dx + dy * dy;
+    if (dd > m) m = dd;
+  }
+  return Math.sqrt(m);
 }
