@@ -1,6 +1,6 @@
 /** Raw iso-contour of a density grid: marching squares with a hard domain edge (docs/contour.md). */
 import type { DensityGrid, PolygonSet } from '../types.js';
-import { nestedSet, type FlatPolygonSet } from './flat.js';
+import { NO_RINGS, nestedSet, type FlatPolygonSet } from './flat.js';
 import { checkLevel, gridLattice } from './lattice.js';
 import { march } from './march.js';
 import { nest } from './nest.js';
@@ -20,8 +20,6 @@ import { stitch } from './stitch.js';
 export function contourGrid(grid: DensityGrid, level: number, saddle: SaddleRule): PolygonSet {
   return nestedSet(contourFlat(grid, level, saddle));
 }
-
-const NO_RINGS: FlatPolygonSet = { xy: new Float64Array(0), start: new Int32Array(1), hole: new Uint8Array(0), owner: new Int32Array(0) };
 
 /** contourGrid as flat rings, in the same order with the same coordinates. */
 export function contourFlat(grid: DensityGrid, level: number, saddle: SaddleRule): FlatPolygonSet {

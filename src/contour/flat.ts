@@ -13,6 +13,8 @@ export interface FlatPolygonSet extends FlatRings {
   readonly owner: Int32Array;
 }
 
+export const NO_RINGS: FlatPolygonSet = { xy: new Float64Array(0), start: new Int32Array(1), hole: new Uint8Array(0), owner: new Int32Array(0) };
+
 /** The nested form of a flat set (each vertex a fresh `[x, y]`). */
 export function nestedSet(set: FlatPolygonSet): PolygonSet {
   const { xy, start, hole } = set;

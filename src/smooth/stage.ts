@@ -1,5 +1,5 @@
 /** The outline stage: the raw iso-contour at one level and what smoothing makes of it. mm, y up. */
-import { contourFlat, nestedSet, type FlatPolygonSet } from '../contour/index.js';
+import { contourFlat, nestedSet, NO_RINGS } from '../contour/index.js';
 import { symmetricArea, type MirrorPlane } from '../geom/symmetry.js';
 import type { Settings } from '../settings.js';
 import type { DensityGrid, Domain, PolygonSet } from '../types.js';
@@ -27,8 +27,6 @@ export interface OutlineRecord {
 
 export type OutlineSettings = Pick<Settings, 'smooth' | 'smoothLambda' | 'smoothMu' | 'saddle'>;
 
-const EMPTY: FlatPolygonSet = { xy: new Float64Array(0), start: new Int32Array(1), hole: new Uint8Array(0), owner: new Int32Array(0) };
-
 /** The same result judged by another area (mm²), keeping its lazy members. */
 function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
   return Object.create(sm, { areaAfter: { value: areaAfter, enumerable: true } }) as SmoothResult;
@@ -40,7 +38,7 @@ function withArea(sm: SmoothResult, areaAfter: number): SmoothResult {
  */
 export function outlineStage(field: OutlineInput, level: number | null, s: OutlineSettings): OutlineRecord {
   const a = performance.now();
-  const flat = level === null ? EMPTY : contourFlat(field.grid, level, s.saddle);
+  const flat = level === null ? NO_RINGS : contourFlat(field.grid, level, s.saddle);
   const b = performance.now();
   const opts = { iterations: s.smooth, lambda: s.smoothLambda, mu: s.smoothMu, tolerance: field.tolerance, domain: field.domain };
   const here = smoothFlat(flat, opts);
