@@ -3,7 +3,7 @@
  * Cell grids: the plain mean of the samples. Nodal grids: the mean of the bilinear field over the domain,
  * i.e. trapezoidal weights (1/4 at corners, 1/2 on edges, 1 inside). Non-finite samples count as 0.
  */
-import type { DensityGrid } from '../types.js';
+import type { DensityGrid, Domain } from '../types.js';
 
 export function fieldMean(grid: DensityGrid): number {
   const { nx, ny, values } = grid;
@@ -29,7 +29,7 @@ export function fieldMean(grid: DensityGrid): number {
 }
 
 /** Domain rectangle [minX, minY, maxX, maxY] in mm for the grid's sample placement. */
-export function gridDomain(grid: DensityGrid): [number, number, number, number] {
+export function gridDomain(grid: DensityGrid): Domain {
   const [hx, hy] = grid.cellSize;
   const [ox, oy] = grid.origin;
   const cx = grid.placement === 'nodes' ? grid.nx - 1 : grid.nx;

@@ -2,6 +2,8 @@
  * The raster frame of the morphology engine: the domain plus `pad` pixels of open space on every side, square
  * pixels of `pixel` mm. Inside, pixel (i, j) is centred at (i, j): mm (x0 + (i + ½)·pixel, y0 + (j + ½)·pixel).
  */
+import type { Domain } from '../types.js';
+
 export interface Frame {
   /** Pixel size, mm. */
   readonly pixel: number;
@@ -14,13 +16,13 @@ export interface Frame {
   readonly x0: number;
   readonly y0: number;
   /** Domain rectangle in mm [minX, minY, maxX, maxY]. */
-  readonly domain: readonly [number, number, number, number];
+  readonly domain: Domain;
   /** Domain rectangle in pixel units [minU, minV, maxU, maxV]. */
   readonly box: readonly [number, number, number, number];
 }
 
 /** Builds the frame over `domain` (mm) with square pixels of `pixel` mm and `pad` void pixels on every side. */
-export function makeFrame(domain: readonly [number, number, number, number], pixel: number, pad: number): Frame {
+export function makeFrame(domain: Domain, pixel: number, pad: number): Frame {
   const w = domain[2] - domain[0];
   const h = domain[3] - domain[1];
   const cx = Math.max(1, Math.ceil(w / pixel - 1e-9));

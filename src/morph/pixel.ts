@@ -1,5 +1,7 @@
 /** Raster resolution of the morphology engine (mm, y up, origin at the lower-left corner of the grid). */
 
+import type { Domain } from '../types.js';
+
 /** Largest subdivision of a grid cell tried by choosePixel. */
 export const MAX_SUBDIVISION = 8;
 
@@ -10,7 +12,7 @@ export const MAX_SUBDIVISION = 8;
  */
 export function choosePixel(
   cellSize: readonly [number, number],
-  domain: readonly [number, number, number, number],
+  domain: Domain,
   maxPixels = 4_000_000,
 ): number {
   const [hx, hy] = cellSize;

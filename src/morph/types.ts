@@ -2,13 +2,13 @@
  * Public types of the morphology engine. Frame: mm, y up, origin at the lower-left corner of the grid; outside
  * the domain is open space (void) for both phases (docs/checks/README.md).
  */
-import type { PolygonSet } from '../types.js';
+import type { Domain, PolygonSet } from '../types.js';
 
 export type Phase = 'solid' | 'void';
 
 export interface MorphologyOptions {
   /** Domain rectangle [minX, minY, maxX, maxY], mm. */
-  readonly domain: readonly [number, number, number, number];
+  readonly domain: Domain;
   /** Square raster pixel, mm, > 0. */
   readonly pixel: number;
 }
@@ -59,7 +59,7 @@ export interface ThicknessMap {
   readonly nx: number;
   readonly ny: number;
   /** The rectangle the raster covers, mm [minX, minY, maxX, maxY]. */
-  readonly domain: readonly [number, number, number, number];
+  readonly domain: Domain;
   /** values[j * nx + i], j up: local thickness, mm; NaN on void. */
   readonly values: Float32Array;
 }

@@ -6,7 +6,7 @@
  */
 import type { StructureRecord } from '../fe/stage.js';
 import type { ThicknessMap } from '../morph/types.js';
-import type { DensityGrid, PolygonSet, Report } from '../types.js';
+import type { DensityGrid, Domain, PolygonSet, Report } from '../types.js';
 import { levelCurveSvg, thicknessLegendSvg } from './chart.js';
 import { escapeHtml } from './escape.js';
 import type { NumberedFinding } from '../check/findings.js';
@@ -36,7 +36,7 @@ export interface HtmlPictures {
   /** The final outline (mm, y up; outer CCW, holes CW). */
   readonly polygons?: PolygonSet;
   /** Domain [minX, minY, maxX, maxY] mm. */
-  readonly domain?: readonly [number, number, number, number];
+  readonly domain?: Domain;
   /** Local thickness of the solid (mm, NaN on void) — from the morphology engine. */
   readonly thickness?: ThicknessMap;
   /** Share of cells with value ≥ level, for levels 0..1 (the volume-vs-level curve). */
@@ -75,7 +75,7 @@ function densityPicture(grid: DensityGrid): { readonly raster: PlacedRaster; rea
 }
 
 /** The domain of the report frame: the pictures' domain, else the grid's cells, else from the report input. */
-export function pictureDomain(r: Report, p: HtmlPictures): [number, number, number, number] {
+export function pictureDomain(r: Report, p: HtmlPictures): Domain {
   if (p.domain) return [p.domain[0], p.domain[1], p.domain[2], p.domain[3]];
   const nodes = p.grid ? p.grid.placement === 'nodes' : r.settings.values === 'nodes';
   const nx = p.grid ? p.grid.nx : r.input.nx;

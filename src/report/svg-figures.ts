@@ -5,7 +5,7 @@
  * Frame: the report frame is mm, y up, origin lower-left. The figure frame is x' = x − minX,
  * y' = maxY − y (y flipped once, here), in mm; [minX, minY, maxX, maxY] is the domain.
  */
-import type { PolygonSet, Ring } from '../types.js';
+import type { Domain, PolygonSet, Ring } from '../types.js';
 import type { NumberedFinding } from '../check/findings.js';
 import { fmt } from './number.js';
 import { escapeHtml } from './escape.js';
@@ -30,7 +30,7 @@ export interface PlanFrame {
 }
 
 /** The figure frame of a domain [minX, minY, maxX, maxY] (mm). Throws a RangeError on an empty domain. */
-export function planFrame(domain: readonly [number, number, number, number]): PlanFrame {
+export function planFrame(domain: Domain): PlanFrame {
   const [minX, minY, maxX, maxY] = domain;
   const w = maxX - minX;
   const h = maxY - minY;

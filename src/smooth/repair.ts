@@ -4,6 +4,7 @@
  * (docs/notes/outline.md §7). mm, y up.
  */
 
+import type { Domain } from '../types.js';
 import type { FlatRings } from '../geom/segments.js';
 import type { RingRoles, Validation } from './validate.js';
 
@@ -13,7 +14,7 @@ import type { RingRoles, Validation } from './validate.js';
  */
 export function edgeFlags(
   rings: FlatRings,
-  domain: readonly [number, number, number, number],
+  domain: Domain,
 ): { fixed: Uint8Array; anchor: Uint8Array } {
   const { xy, start } = rings;
   const n = start[start.length - 1];
