@@ -46,6 +46,8 @@ export async function bundle(outdir = join(root, 'dist/web')) {
     logLevel: 'warning',
     plugins: [browserPlugin],
     inject: [join(root, 'web/shims/buffer.ts')],
+    // src/parallel names a pass's module by its URL for worker threads; the page has no lanes, so the URL is unused
+    define: { 'import.meta.url': '""' },
     absWorkingDir: root,
   };
   const worker = join(outdir, 'preview-worker.js');
