@@ -5,18 +5,17 @@
  */
 import { basename, extname, join, resolve } from 'node:path';
 import { RhoformError } from '../src/errors.js';
-import { parseLoadsBytes } from '../src/loads/parse.js';
 import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
 import { build } from '../src/pipeline.js';
-import { formatHtml } from '../src/report/html.js';
 import { formatJson } from '../src/report/json.js';
 import type { OutputFormat, Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
 import { readGridInput, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { displayPath, reportExitCode } from './io.js';
 import { outputNames } from './output-names.js';
+import { htmlFormatter, loadsParserLoaded } from './prepare.js';
 
 
 function stem(file: string): string {
@@ -37,7 +36,7 @@ function readPassive(path: string, name: string): PassiveRegions {
 
 /** Read and parse a loads file (docs/structure.md); `name` as the user gave it, for messages. */
 function readLoads(path: string, name: string): LoadsSpec {
-  return parseLoadsBytes(readInput(path, name, { what: 'loads file' }), name);
+  return loadsParserLoaded()(readInput(path, name, { what: 'loads file' }), name);
 }
 
 export interface BuildFileOptions {
@@ -57,7 +56,7 @@ export interface BuildFileOptions {
 /**
  * Build one grid file into `outDir` (the outputs of `formats`, geometry only when `writeGeometry`), atomically,
  * and return its report. Throws RhoformError on bad input or an unwritable output (then nothing is written).
- * The boolean engine must be loaded when the settings need it (src/pipeline.ts prepareBuild).
+ * What the settings need beyond the core must be loaded first (cli/prepare.ts prepareSettings).
  */
 export function buildFile(
   settings: Settings,
@@ -98,7 +97,7 @@ export function buildFile(
     else if (p.format === 'dxf') content[k] = timed('dxf', () => result.dxf());
     else if (p.format === 'stl' || p.format === '3mf') content[k] = timed(p.format, () => result.solid(p.format as 'stl' | '3mf'));
     else if (p.format === 'svg') content[k] = svg ??= timed('svg', () => result.svg());
-    else if (p.format === 'html') content[k] = timed('html', () => formatHtml(report, result.pictures()));
+    else if (p.format === 'html') content[k] = timed('html', () => htmlFormatter()(report, result.pictures()));
   });
   report.peakMemory = peakMemory();
   for (const k of Object.keys(timings)) timings[k] = Math.round(timings[k] * 100) / 100;

@@ -104,6 +104,19 @@ export function readInput(path: string, name = path, opts: { maxBytes?: number; 
   }
 }
 
+/** The first `n` bytes of a regular file (fewer when it is shorter), or null when it cannot be read now. */
+export function readHead(path: string, n: number): Uint8Array | null {
+  let fd: number | null = null;
+  try {
+    fd = openRegular(path, path, 'input');
+    return readUpTo(fd, n);
+  } catch {
+    return null;
+  } finally {
+    if (fd !== null) closeSync(fd);
+  }
+}
+
 /**
  * Reads a grid file: a regular file whose size fits `maxCells` samples (src/read/byte-limit.ts — NPY from its
  * declared header length and 8 bytes a sample, text at a generous 128 bytes a sample), judged from its first

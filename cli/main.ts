@@ -30,7 +30,7 @@ if (wantsSingleThreadedGc()) {
     process.exitCode = child.status ?? 2; // killed by a signal: the run did not finish
   }
 } else {
-  const { runAsync } = await import('./run.js');
+  const { runAsync } = await import('./start.js');
   process.exitCode = await runAsync(argv, {
     stdout: (t) => void process.stdout.write(t),
     stderr: (t) => void process.stderr.write(t),

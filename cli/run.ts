@@ -4,11 +4,11 @@
  */
 import { join, resolve } from 'node:path';
 import { UsageError } from '../src/errors.js';
-import { inspect, prepareBuild } from '../src/pipeline.js';
+import { inspect } from '../src/pipeline.js';
 import { formatJson } from '../src/report/json.js';
 import { fmt } from '../src/report/number.js';
 import { formatText } from '../src/report/text.js';
-import { REPAIR_IDS, resolveSettings, type Settings } from '../src/settings.js';
+import { resolveSettings } from '../src/settings.js';
 import { VERSION } from '../src/version.js';
 import { parseArgs, type ParsedArgs } from './args.js';
 import { buildFile } from './build-file.js';
@@ -17,30 +17,11 @@ import { readGridInput } from './files.js';
 import { EXIT_ERROR, EXIT_OK, reportError, useColor, type Io } from './io.js';
 import { HELP } from './messages.js';
 import { buildNotice, inputBytes, progressMode } from './batch/progress.js';
-import { runPreview } from './preview.js';
 import { packageRoot } from './package-root.js';
 import { laneTarget, startLanes } from '../src/parallel/node.js';
+import { DEMO } from './demo.js';
+import { previewCommand } from './prepare.js';
 
-
-/**
- * The bundled demo: a grid of our own scenario and the settings it is meant to be built with — 2 mm cells, and
- * the bracket is waterjet-cut from 8 mm aluminium sheet (fixtures/grids/demo-bracket.md), so the checks use
- * that process's generic limits; its bolt holes and motor pad are passive regions of its own file; and it is
- * repaired, so the report shows the findings before repair next to the repaired result; and it is re-analysed
- * under its service load case (fixtures/loads/demo-bracket.loads.json), so the report says what the
- * post-processing cost in stiffness.
- */
-export const DEMO = {
-  file: 'fixtures/grids/demo-bracket.npy',
-  settings: {
-    cellSize: [2, 2],
-    process: 'waterjet-cut',
-    thickness: 8,
-    passive: 'fixtures/passive/demo-bracket.passive.json',
-    repair: [...REPAIR_IDS],
-    loads: 'fixtures/loads/demo-bracket.loads.json',
-  } as Partial<Settings>,
-};
 
 function runBuild(
   args: ParsedArgs,
@@ -129,7 +110,10 @@ export function checkFiles(args: ParsedArgs): ParsedArgs {
   return { ...args, settings: { ...args.settings, formats: [] } };
 }
 
-/** Run one command line; returns the exit code. */
+/**
+ * Run one command line; returns the exit code. `batch` and `merge`, and the parts a command loads on demand,
+ * need `runAsync` (cli/start.ts), or cli/prepare.ts `prepareEverything` awaited once before.
+ */
 export function run(argv: readonly string[], io: Io): number {
   let args: ParsedArgs;
   try {
@@ -152,37 +136,12 @@ export function run(argv: readonly string[], io: Io): number {
         // These run on worker threads and the event loop: see runAsync.
         throw new UsageError(`${args.command} runs asynchronously; call runAsync (the rhoform binary does)`);
       case 'preview':
-        return runPreview(args, io);
+        return previewCommand()(args, io);
       case 'build':
         return runBuild(args, io, { file: args.files[0], writeGeometry: true, force: args.cli.force, outDir: args.cli.outDir ?? '.' });
       case 'check':
         return runBuild(checkFiles(args), io, { file: args.files[0], writeGeometry: false, force: args.cli.force, outDir: args.cli.outDir ?? '.' });
     }
-  } catch (e) {
-    return reportError(e, io);
-  }
-}
-
-/**
- * Run one command line, including the asynchronous commands (`batch` on worker threads, `merge`); the
- * rhoform binary calls this. Other commands run as in `run`.
- */
-export async function runAsync(argv: readonly string[], io: Io): Promise<number> {
-  let args: ParsedArgs;
-  try {
-    args = parseArgs(argv);
-  } catch (e) {
-    return run(argv, io);
-  }
-  if (args.command !== 'batch' && args.command !== 'merge') {
-    // What a build needs before it runs (the boolean engine, only when the settings use it).
-    const s = args.command === 'demo' ? { ...DEMO.settings, ...args.settings } : args.settings;
-    if (args.command !== 'help' && args.command !== 'version') await prepareBuild(resolveSettings(s));
-    return run(argv, io);
-  }
-  try {
-    const { runBatch, runMerge } = await import('./batch.js');
-    return args.command === 'batch' ? await runBatch(args, io) : await runMerge(args, io);
   } catch (e) {
     return reportError(e, io);
   }

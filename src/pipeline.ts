@@ -1,16 +1,17 @@
 /** The only place that knows the order of the stages (docs/architecture.md). Pure: the CLI does every file operation. */
 import { checkStage, planStage, type CheckRecord } from './check/stage.js';
-import { structureDesign, structureStage, structureStart, type StructureDesign, type StructureRecord, type StructureStart } from './fe/stage.js';
+import type { StructureDesign, StructureRecord, StructureStart } from './fe/stage.js';
 import { levelCurve } from './field/curve.js';
 import { prepareStage, withFileName } from './field/stage.js';
 import { loadBooleanEngine } from './geom/clipper.js';
-import { UsageError } from './errors.js';
+import { RhoformError, UsageError } from './errors.js';
 import { loadGrid, type InputFile } from './input.js';
+import { loadReaders } from './read/detect.js';
 import type { LoadsSpec } from './loads/types.js';
 import { buildMorphology } from './morph/index.js';
 import { passiveStage } from './passive/stage.js';
 import type { PassiveRegions } from './passive/types.js';
-import { repairStage, type RepairStageRecord } from './repair/stage.js';
+import type { RepairStageRecord } from './repair/stage.js';
 import { assembleReport } from './report/assemble.js';
 import type { HtmlPictures } from './report/html.js';
 import { startDensityPicture } from './report/figures.js';
@@ -20,7 +21,7 @@ import { outlineStage, type OutlineInput, type OutlineSettings } from './smooth/
 import { thresholdSearch, type ThresholdInput, type ThresholdRecord, type ThresholdSettings } from './threshold/stage.js';
 import type { StructureCheckInput } from './check/types.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
-import { writeStage, writtenShape, type WrittenShape } from './write/stage.js';
+import { loadSolidWriter, writeStage, writtenShape, type WrittenShape } from './write/stage.js';
 import { summarizeGeometry } from './report/geometry.js';
 
 export { inspect, loadGrid, type InputFile, type InspectResult } from './input.js';
@@ -77,9 +78,29 @@ function structureView(start: StructureStart, d: StructureDesign): StructureChec
   return { input: start.input.analysis, geometry: d.analysis, reach: d.reach, x0: start.grid.x0, y0: start.grid.y0 };
 }
 
-/** Loads the boolean engine when the settings need it; await once before `build`. */
-export async function prepareBuild(s: Pick<Settings, 'passive' | 'mirror' | 'repair'>): Promise<void> {
-  if (needsBooleanEngine(s)) await loadBooleanEngine();
+/** What prepareBuild reads of the settings; `loads` and `formats` may be left out when the build uses neither. */
+export type BuildNeeds = Pick<Settings, 'passive' | 'mirror' | 'repair'> & Partial<Pick<Settings, 'loads' | 'formats'>>;
+
+let feModule: typeof import('./fe/stage.js') | null = null;
+let repairModule: typeof import('./repair/stage.js') | null = null;
+
+function loaded<T>(part: T | null, what: string): T {
+  if (part === null) throw new RhoformError('E_INTERNAL', `${what} is not loaded: await prepareBuild(settings) before build()`);
+  return part;
+}
+
+/**
+ * Loads, once each, what a build needs: the boolean engine, the repairs, the re-check, the solid writers, and the
+ * input's reader (`input.bytes` may be its first DETECT_BYTES; every reader without an input). Await before `build`.
+ */
+export async function prepareBuild(s: BuildNeeds, input?: { readonly name: string; readonly bytes: Uint8Array }): Promise<void> {
+  await Promise.all([
+    needsBooleanEngine(s) ? loadBooleanEngine() : null,
+    s.repair.length > 0 ? import('./repair/stage.js').then((m) => void (repairModule = m)) : null,
+    s.loads !== null && s.loads !== undefined ? import('./fe/stage.js').then((m) => void (feModule = m)) : null,
+    s.formats?.some((f) => f === 'stl' || f === '3mf') ? loadSolidWriter() : null,
+    loadReaders(input),
+  ]);
 }
 
 /** The threshold stage with the outlines it asks for (docs/architecture.md). */
@@ -121,8 +142,9 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   // the structural re-check: the input design now, each outline before the checks that judge it
   const loads = more.loads ?? null;
   if ((loads === null) !== (s.loads === null)) throw new UsageError('the structural re-check needs both settings.loads (the file name) and the parsed loads file');
-  const fe = loads === null ? null : structureStart(field, loads, s);
-  let feFinal = fe === null ? null : structureDesign(fe, passive.polygons);
+  const feStage = loads === null ? null : loaded(feModule, 'the structural re-check');
+  const fe = loads === null || feStage === null ? null : feStage.structureStart(field, loads, s);
+  let feFinal = fe === null || feStage === null ? null : feStage.structureDesign(fe, passive.polygons);
   if (fe !== null) lap('structure');
   const checkInput = { ...field, raw: threshold.raw, smoothed: threshold.smoothed, threshold: threshold.summary, greyLevel: field.input.greyLevel };
   let checks: CheckRecord = checkStage(passive.polygons, passive.exact?.solidRings ?? null, checkInput, plan, fe && feFinal ? structureView(fe, feFinal) : null);
@@ -135,7 +157,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   let beforeRepair: CheckRecord | null = null;
   let shape: WrittenShape | undefined;
   if (s.repair.length > 0) {
-    repair = repairStage({
+    repair = loaded(repairModule, 'the repair stage').repairStage({
       polygons: final,
       settings: s,
       limits: plan.limits,
@@ -152,9 +174,9 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     final = repair.polygons;
     exact = repair.passive;
     lap('repair');
-    if (fe !== null) {
+    if (fe !== null && feStage !== null) {
       feBefore = feFinal;
-      feFinal = structureDesign(fe, final);
+      feFinal = feStage.structureDesign(fe, final);
       lap('structure');
     }
     beforeRepair = checks;
@@ -164,7 +186,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true, writtenArea }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
     lap('checks');
   }
-  const structure = fe !== null && feFinal !== null ? structureStage(fe, feBefore, feFinal, final) : null;
+  const structure = fe !== null && feStage !== null && feFinal !== null ? feStage.structureStage(fe, feBefore, feFinal, final) : null;
   if (structure !== null) lap('structure');
   const warnings = [...field.warnings, ...threshold.warnings, ...(structure?.warnings ?? [])];
   const files = writeStage(

@@ -16,7 +16,7 @@ import { parseLoadsBytes } from '../src/loads/parse.js';
 import type { LoadsSpec } from '../src/loads/types.js';
 import { parsePassiveBytes } from '../src/passive/parse.js';
 import type { PassiveRegions } from '../src/passive/types.js';
-import { build, buildStageCount, type BuildResult } from '../src/pipeline.js';
+import { build, buildStageCount, prepareBuild, type BuildResult } from '../src/pipeline.js';
 import { MAX_PICTURE_SIDE } from '../src/report/figures.js';
 import type { HtmlPictures } from '../src/report/html.js';
 import { formatHtml } from '../src/report/html.js';
@@ -193,6 +193,7 @@ function runBuild(s: Settings, progress: Progress, phase: ProgressMessage['phase
 }
 
 async function buildOne(v: number, s: Settings): Promise<void> {
+  await prepareBuild(s, { name: data!.file, bytes: bytes! }); // the input's reader, the repairs, the re-check: loaded once
   const withLoads = s.loads !== null;
   // with a load case: the checks first without the re-check; when they are light, that build gives the outline too
   const pre = withLoads ? { ...s, loads: null } : null;

@@ -5,9 +5,9 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { RhoformError } from '../../src/errors.js';
-import { prepareBuild } from '../../src/pipeline.js';
 import type { Settings } from '../../src/settings.js';
 import { buildFile } from '../build-file.js';
+import { prepareSettings } from '../prepare.js';
 import { errorRow, rowFromReport, type SummaryRow } from './summary.js';
 
 export interface WorkerSetup {
@@ -61,8 +61,8 @@ export function processTask(setup: WorkerSetup, task: WorkerTask): WorkerAnswer 
 
 const setupData = workerData as WorkerSetup | null | undefined;
 if (parentPort && setupData?.kind === 'rhoform-batch') {
-  // what the builds need (the boolean engine, when the settings use it); messages wait in the port meanwhile
-  await prepareBuild(setupData.settings);
+  // what the builds need, every reader included (files vary); messages wait in the port meanwhile
+  await prepareSettings(setupData.settings, null);
   const port = parentPort;
   const setup = setupData;
   port.on('message', (m: { id: number; task: WorkerTask }) => {

@@ -7,13 +7,10 @@
 import { RhoformError } from '../errors.js';
 import type { InputFormat } from '../types.js';
 import { readCsv } from './csv.js';
-import { hasHdf5Signature, readMat } from './mat.js';
 import { readNpy } from './npy.js';
-import { readPng } from './png.js';
+import { hasHdf5Signature, registeredReader } from './registry.js';
 import type { ReadOptions, ReadResult } from './types.js';
 import { firstInvalidUtf8 } from './utf8.js';
-import { readVtk } from './vtk.js';
-import { readVti } from './vti.js';
 
 const NPY_MAGIC = [0x93, 0x4e, 0x55, 0x4d, 0x50, 0x59];
 /** PNG signature (ISO/IEC 15948 / W3C PNG, §5.2). */
@@ -26,6 +23,9 @@ function startsWith(bytes: Uint8Array, magic: readonly number[], at = 0): boolea
 function asciiAt(bytes: Uint8Array, from: number, to: number): string {
   return String.fromCharCode(...bytes.subarray(from, Math.min(to, bytes.length)));
 }
+
+/** detectFormat reads no byte beyond this offset: a file's first DETECT_BYTES decide its format as the whole file does. */
+export const DETECT_BYTES = 8192;
 
 /** The format of a file: by content (docs/formats.md), then by the name's extension, else 'csv'. */
 export function detectFormat(bytes: Uint8Array, name: string): InputFormat {
@@ -48,10 +48,11 @@ export function readGrid(bytes: Uint8Array, name: string, options: ReadOptions):
   try {
     switch (format) {
       case 'npy': return readNpy(bytes, options);
-      case 'mat': return readMat(bytes, options);
-      case 'vtk': return readVtk(bytes, options);
-      case 'vti': return readVti(bytes, options);
-      case 'png': return readPng(bytes, options);
+      case 'mat':
+      case 'vtk':
+      case 'vti':
+      case 'png':
+        return registeredReader(format)(bytes, options);
       case 'csv': break;
     }
     let text: string;
@@ -67,6 +68,23 @@ export function readGrid(bytes: Uint8Array, name: string, options: ReadOptions):
     if (e instanceof RhoformError && e.where?.file === undefined) throw e.withFile(name);
     throw e;
   }
+}
+
+/** Loads the reader of `format` when it is one of those loaded on demand (registry.ts); once. */
+export async function loadReader(format: InputFormat): Promise<void> {
+  switch (format) {
+    case 'mat': await import('./mat.js'); break;
+    case 'vtk': await import('./vtk.js'); break;
+    case 'vti': await import('./vti.js'); break;
+    case 'png': await import('./png.js'); break;
+    default: break;
+  }
+}
+
+/** Loads the reader an input needs (`bytes` may be its first DETECT_BYTES), or every reader without an input. */
+export async function loadReaders(input?: { readonly name: string; readonly bytes: Uint8Array }): Promise<void> {
+  const formats: readonly InputFormat[] = input ? [detectFormat(input.bytes, input.name)] : ['mat', 'vtk', 'vti', 'png'];
+  await Promise.all(formats.map(loadReader));
 }
 
 /** Byte offset of the first byte that is not part of a well-formed UTF-8 sequence (-1 when all are). */

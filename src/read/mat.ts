@@ -14,9 +14,9 @@ import { kindSize, numbersAt, toGrid } from './binary.js';
 import { chooseCandidate, type Candidate } from './choose.js';
 import { className, MI_COMPRESSED, MI_MATRIX, miKind, readMatrixHeader, readTag, type MatrixHeader } from './mat-element.js';
 import { checkReadOptions, layoutWarning } from './options.js';
+import { hasHdf5Signature, registerReader } from './registry.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
 
-const HDF5_SIGNATURE = [0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a];
 const V73_ADVICE = "save it as a level-5 MAT-file instead: save(filename, 'x', '-v7') in MATLAB, or save -mat7-binary in Octave";
 
 /** One variable of the file: its header and where its bytes are. */
@@ -28,11 +28,6 @@ interface MatVariable {
   readonly compressed: Uint8Array | null;
   /** Declared byte count of the inflated matrix element (compressed variables). */
   readonly inflatedBytes: number;
-}
-
-/** True when the bytes carry the HDF5 signature at offset 512 (a -v7.3 MAT-file) or 0. */
-export function hasHdf5Signature(bytes: Uint8Array, at: number): boolean {
-  return bytes.length >= at + 8 && HDF5_SIGNATURE.every((b, k) => bytes[at + k] === b);
 }
 
 /**
@@ -221,3 +216,5 @@ function matrixShape(v: MatVariable, warnings: string[]): { rows: number; cols: 
   if (v.header.dims.length === 3) warnings.push(`the ${v.header.dims.join('×')} array ${JSON.stringify(v.header.name)} was read as ${s.rows}×${s.cols} (its dimension of 1 dropped)`);
   return s;
 }
+
+registerReader('mat', readMat);

@@ -11,6 +11,7 @@ import { decode } from 'fast-png';
 import { RhoformError } from '../errors.js';
 import type { DensityGrid } from '../types.js';
 import { checkReadOptions, layoutWarning } from './options.js';
+import { registerReader } from './registry.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
 
 const SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
@@ -188,3 +189,5 @@ function unpack(packed: Uint8Array, width: number, height: number, depth: number
   }
   return out;
 }
+
+registerReader('png', readPng);

@@ -13,6 +13,7 @@ import { chooseCandidate, type Candidate } from './choose.js';
 import { imageGeometry, overriddenOptions, sampleDims } from './image-data.js';
 import { checkReadOptions, layoutWarning } from './options.js';
 import { lineIndex, scanNumbers } from './text-scan.js';
+import { registerReader } from './registry.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
 import { decodeBase64, payloadBytes, type PayloadContext } from './vti-data.js';
 import { child, parseXml, type XmlElement } from './vti-xml.js';
@@ -240,3 +241,5 @@ function appendedOffsets(root: XmlElement): number[] {
   walk(root);
   return out.filter((x) => Number.isFinite(x)).sort((a, b) => a - b);
 }
+
+registerReader('vti', readVti);

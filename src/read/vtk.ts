@@ -14,6 +14,7 @@ import { chooseCandidate, type Candidate } from './choose.js';
 import { imageGeometry, overriddenOptions, sampleDims } from './image-data.js';
 import { checkReadOptions, layoutWarning } from './options.js';
 import { lineIndex, scanNumbers, skipTokens } from './text-scan.js';
+import { registerReader } from './registry.js';
 import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
 
 const TYPES: Record<string, NumKind> = {
@@ -240,3 +241,5 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
   if (!options.field && cands.length > 1) warnings.push(`read the array ${JSON.stringify(chosen.name)} (${chosen.label}); the file holds ${cands.length} arrays`);
   return { grid, format: 'vtk', layout: 'grid', locate, warnings, cellSizeSource: geo.cellSizeSource };
 }
+
+registerReader('vtk', readVtk);

@@ -8,6 +8,7 @@
  * writer does the only y-down flip.
  */
 import { numberFindings } from '../check/findings.js';
+import { RhoformError } from '../errors.js';
 import { fitOutlineArcs } from './arcs-outline.js';
 import type { RingCircle } from '../geom/circle.js';
 import { circleRings } from '../geom/circle-rings.js';
@@ -16,7 +17,6 @@ import type { Settings } from '../settings.js';
 import type { ArcFitSummary, CheckResult, Domain, PolygonSet, RepairRecord } from '../types.js';
 import { annotationExtras } from './annotations.js';
 import { writeDxf } from './dxf.js';
-import { writeSolid } from './solid.js';
 import { writeSvg } from './svg.js';
 import type { RingBulges, WriterInput } from './types.js';
 
@@ -58,6 +58,18 @@ export interface WriteRecord {
   solid(format: 'stl' | '3mf'): Uint8Array;
 }
 
+let writeSolid: typeof import('./solid.js').writeSolid | null = null;
+
+/** Loads the STL/3MF writers (with the extrusion and earcut), which `solid()` needs; once. */
+export async function loadSolidWriter(): Promise<void> {
+  writeSolid ??= (await import('./solid.js')).writeSolid;
+}
+
+function solidWriter(): typeof import('./solid.js').writeSolid {
+  if (writeSolid === null) throw new RhoformError('E_INTERNAL', 'the STL/3MF writers are not loaded: await prepareBuild(settings) with stl or 3mf in settings.formats (or loadSolidWriter())');
+  return writeSolid;
+}
+
 /**
  * The part as the files will hold it: true circles where rings are circles (`--circles`, passive circles),
  * and the arcs and lines of `--arcs`. The pipeline measures it before the final checks, so `volume-fraction`
@@ -95,6 +107,6 @@ export function writeStage(
     dxf: () => writeDxf(input),
     notesDxf: () => writeDxf({ polygons: { polygons: [] }, domain: w.domain, units: s.units, extras: extras() }),
     svg: () => writeSvg(s.annotations ? { ...input, extras: extras() } : input),
-    solid: (format) => writeSolid(format, { polygons: shape.polygons, ringCircles, ...(shape.arcs ? { arcs: shape.arcs } : {}), thickness: s.thickness, tolerance: w.tolerance }),
+    solid: (format) => solidWriter()(format, { polygons: shape.polygons, ringCircles, ...(shape.arcs ? { arcs: shape.arcs } : {}), thickness: s.thickness, tolerance: w.tolerance }),
   };
 }

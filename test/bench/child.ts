@@ -1,6 +1,6 @@
 /** Bench child: one build in this process, printing stage times (ms), wall time and peak RSS as JSON. */
 import { readFileSync } from 'node:fs';
-import { build } from '../../src/pipeline.js';
+import { build, prepareBuild } from '../../src/pipeline.js';
 import { formatJson } from '../../src/report/json.js';
 import { resolveSettings } from '../../src/settings.js';
 
@@ -10,6 +10,7 @@ const settings = resolveSettings(extra ? (JSON.parse(extra) as Record<string, un
 const t0 = performance.now();
 const bytes = readFileSync(file);
 const readFile = performance.now() - t0;
+await prepareBuild(settings, { name: file, bytes });
 const r = build({ name: file, bytes }, settings);
 const timings: Record<string, number> = { ...r.timings };
 timings.read += readFile;

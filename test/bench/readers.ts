@@ -10,7 +10,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { readGrid } from '../../src/read/detect.js';
+import { loadReaders, readGrid } from '../../src/read/detect.js';
 import { DEFAULT_READ_OPTIONS } from '../../src/read/types.js';
 import { matDouble, pngGrey, vti, vtkLegacy } from './format-writers.js';
 import { npyFloat64 } from './npy-write.js';
@@ -26,6 +26,7 @@ function median(xs: number[]): number {
 }
 
 const options = { ...DEFAULT_READ_OPTIONS, maxCells: 1e8 };
+await loadReaders();
 const gc = (globalThis as { gc?: () => void }).gc;
 
 function timeOnce(bytes: Uint8Array, name: string): number {

@@ -17,7 +17,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { runAsync } from '../../cli/run.js';
+import { runAsync } from '../../cli/start.js';
 import { loadGrid } from '../../src/input.js';
 import { parseLoads } from '../../src/loads/parse.js';
 import { parsePassive } from '../../src/passive/parse.js';
@@ -80,6 +80,7 @@ async function child(kind: string, size: string, withLoads: boolean): Promise<vo
   const bytes = resampledDemo(nx, ny);
   const s: Partial<Settings> = { cellSize: [240 / nx, 120 / ny], ...(withLoads ? { loads: 'demo-bracket.loads.json' } : {}) };
   const loads = withLoads ? parseLoads(readFileSync(DEMO_LOADS, 'utf8'), 'demo-bracket.loads.json') : null;
+  await prepareBuild(resolveSettings(s)); // module loading, as start-up was before the re-check was loaded on demand
   const cpu0 = cpuSeconds();
   const w0 = performance.now();
   const r = build({ name: `demo-${size}.npy`, bytes }, resolveSettings(s), { loads });

@@ -20,6 +20,7 @@ import type { Report } from '../../src/types.js';
 import { chromiumFound, launchChromium, missingMessage, underCi } from './chromium.js';
 import { watchContext, type PageLog } from './watch.js';
 import { changedShare, decodePixels, hideRasters, readPage, type PageFacts } from './in-page.js';
+import '../support/build-parts.js';
 
 const FIGURES = ['fig-density', 'fig-thickness', 'fig-curve'] as const;
 const SCREENSHOT = fileURLToPath(new URL('../../test-output/browser/html-report.png', import.meta.url));

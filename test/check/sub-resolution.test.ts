@@ -19,6 +19,7 @@ import { build } from '../../src/pipeline.js';
 import { resolveSettings, type Settings } from '../../src/settings.js';
 import type { CheckResult, Report } from '../../src/types.js';
 import '../support/boolean-engine.js';
+import '../support/build-parts.js';
 
 const h = 2.5; // mm, the cell size the fixture is meant for
 const NY = 80;

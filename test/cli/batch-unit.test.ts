@@ -23,7 +23,7 @@ import {
   summaryJson,
   type SummaryRow,
 } from '../../cli/batch/summary.js';
-import { runAsync } from '../../cli/run.js';
+import { runAsync } from '../../cli/start.js';
 import { rng } from '../support/random.js';
 import { readCsv } from './batch-csv-reader.js';
 

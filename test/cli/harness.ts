@@ -2,7 +2,11 @@
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { prepareEverything } from '../../cli/prepare.js';
 import { run } from '../../cli/run.js';
+
+// `run` is synchronous: what runAsync loads on demand (the HTML report, the preview command…) is loaded here once.
+await prepareEverything();
 
 export interface CliRun {
   code: number;

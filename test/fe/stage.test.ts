@@ -10,6 +10,7 @@ import { parseLoads } from '../../src/loads/parse.js';
 import { build } from '../../src/pipeline.js';
 import { resolveSettings, type Settings } from '../../src/settings.js';
 import type { LoadsSpec } from '../../src/loads/types.js';
+import '../support/build-parts.js';
 
 /** A CSV grid (file row 1 = top) of f(x, y) at the centres of nx × ny cells of 1 mm. */
 function csv(nx: number, ny: number, f: (x: number, y: number) => number): Uint8Array {

@@ -9,9 +9,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
-import { loadBooleanEngine } from '../../src/geom/clipper.js';
 import { parsePassive } from '../../src/passive/parse.js';
-import { build } from '../../src/pipeline.js';
+import { build, prepareBuild } from '../../src/pipeline.js';
 import { resolveSettings, REPAIR_IDS } from '../../src/settings.js';
 import { contourGrid } from '../../src/contour/index.js';
 import { choosePixel } from '../../src/morph/index.js';
@@ -25,7 +24,7 @@ import { applyFixedParts } from '../../src/passive/fixed-parts.js';
 import { shapeRing } from '../../src/passive/rings.js';
 import { randomPart, sizeChecks, type Box } from './support.js';
 
-await loadBooleanEngine();
+await prepareBuild({ passive: null, mirror: [], repair: [...REPAIR_IDS] });
 
 
 const root = process.cwd(); // run from the package root

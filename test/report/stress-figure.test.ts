@@ -10,6 +10,7 @@ import { build } from '../../src/pipeline.js';
 import { formatHtml } from '../../src/report/html.js';
 import { deformationScale, stressColor } from '../../src/report/stress-figure.js';
 import { resolveSettings } from '../../src/settings.js';
+import '../support/build-parts.js';
 
 const bytes = new TextEncoder().encode(Array.from({ length: 6 }, () => Array(30).fill('1').join(',')).join('\n') + '\n');
 const spec = parseLoads(

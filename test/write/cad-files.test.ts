@@ -16,6 +16,7 @@ import { REPAIR_IDS, resolveSettings } from '../../src/settings.js';
 import type { Point, Ring } from '../../src/types.js';
 import { parseDxf } from '../support/dxf-parser.js';
 import { dxfPairs } from './fixtures.js';
+import '../support/build-parts.js';
 
 const root = new URL('../../', import.meta.url);
 const bytes = readFileSync(new URL('fixtures/grids/demo-bracket.npy', root));

@@ -19,6 +19,7 @@ import { writeSolid } from '../../src/write/solid.js';
 import type { RingBulges, RingCircle } from '../../src/write/types.js';
 import type { PolygonSet } from '../../src/types.js';
 import { regularPolygon } from './fixtures.js';
+import '../support/build-parts.js';
 
 type Tri = [number, number, number][];
 
