@@ -7,11 +7,10 @@ import { fileURLToPath } from 'node:url';
 const argv = process.argv.slice(2);
 
 /**
- * `rhoform batch` with more than one worker thread runs in a Node started with `--single-threaded-gc`. The
- * worker threads share the process's V8 platform, whose parallel garbage-collection helper threads otherwise
- * compete with the workers for the cores: on 2 cores, 200 grids of 400×200 went from 1.55× to 1.8× faster with
- * 2 workers than with 1 (docs/performance.md, "Batch throughput"). A V8 flag cannot be set once V8 runs, so the
- * binary starts itself again, once, with the flag (RHOFORM_BATCH_GC=default keeps the default collector).
+ * `rhoform batch` with more than one worker thread runs in a Node started with `--single-threaded-gc`: the
+ * workers share one V8 platform, whose parallel GC helper threads would compete with them for the cores
+ * (docs/performance.md, "Batch throughput"). A V8 flag cannot be set once V8 runs, so the binary starts itself
+ * again, once, with the flag (RHOFORM_BATCH_GC=default keeps the default collector).
  */
 function wantsSingleThreadedGc(): boolean {
   if (argv[0] !== 'batch' || process.execArgv.includes('--single-threaded-gc')) return false;

@@ -88,10 +88,9 @@ function runDemo(args: ParsedArgs, io: Io): number {
   const file = join(root, DEMO.file);
   const outDir = args.cli.outDir ?? 'rhoform-demo';
   const demoArgs: ParsedArgs = { ...args, settings: { ...DEMO.settings, ...args.settings } };
-  // The demo replaces its own earlier output (and only that): the same names in its own folder.
-  // The demo's own passive-region file sits in the package; a --passive of the user's replaces it.
+  // force: the demo replaces its own earlier output in its own folder. Its passive-region and loads files sit in
+  // the package; the user's --passive or --loads replaces them.
   const passivePath = args.settings.passive === undefined ? join(root, DEMO.settings.passive as string) : undefined;
-  // Likewise its loads file.
   const loadsPath = args.settings.loads === undefined ? join(root, DEMO.settings.loads as string) : undefined;
   const code = runBuild(demoArgs, io, { file, name: DEMO.file, writeGeometry: true, force: true, outDir, passivePath, loadsPath });
   if (!args.cli.json && !args.cli.quiet) {
@@ -133,7 +132,7 @@ export function run(argv: readonly string[], io: Io): number {
       }
       case 'batch':
       case 'merge':
-        // These run on worker threads and the event loop: see runAsync.
+        // asynchronous: cli/start.ts runAsync
         throw new UsageError(`${args.command} runs asynchronously; call runAsync (the rhoform binary does)`);
       case 'preview':
         return previewCommand()(args, io);

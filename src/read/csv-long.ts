@@ -27,10 +27,7 @@ interface Axis {
 /** Above this many distinct values, sorting all coordinates beats collecting them in a Set. */
 const SET_CAP = 1 << 16;
 
-/**
- * The sorted distinct values of `coords` (or all of them sorted, when they are very many): a Set of the
- * few distinct coordinates of a lattice is ~2.5× faster than sorting millions of them (measured, 2M values).
- */
+/** The sorted distinct values of `coords` (or all of them sorted, when they are very many; docs/notes/read-write.md). */
 function distinctSorted(coords: Float64Array): Float64Array {
   const set = new Set<number>();
   let prev = NaN;

@@ -76,8 +76,7 @@ export function fastNumber(text: string, p: number, end: number, mark: number, s
     if (eneg) exp = -exp;
   }
   if (digits > 15) {
-    // The grammar is checked; Number() rounds the long digit string correctly (V8's own conversion,
-    // measured as fast as a double-double scheme here). A decimal comma takes the slow path.
+    // The grammar is checked; Number() rounds the long digit string correctly. A decimal comma takes the slow path.
     if (mark !== 46) return NaN;
     state.end = q;
     return Number(text.slice(p, q));

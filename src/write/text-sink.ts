@@ -63,44 +63,33 @@ export class TextSink {
     const k = Math.round(scaled);
     this.reserve(40);
     const buf = this.buf;
+    let len = this.len;
     if (k === 0) {
-      buf[this.len++] = 0x30;
+      buf[len] = 0x30;
+      this.len = len + 1;
       return this;
     }
-    if (value < 0) buf[this.len++] = 0x2d;
+    if (value < 0) buf[len++] = 0x2d;
     let frac = k % scale;
-    this.uint((k - frac) / scale);
+    len = putUint(buf, len, (k - frac) / scale);
     if (frac !== 0) {
       let digits = decimals;
       while (frac % 10 === 0) {
         frac /= 10;
         digits--;
       }
-      buf[this.len++] = 0x2e;
-      // frac < 10^digits: write exactly `digits` digits, zero-padded on the left
-      let end = this.len + digits;
-      this.len = end;
+      buf[len++] = 0x2e;
+      // frac < 10^digits ≤ 10^6: exactly `digits` digits, zero-padded on the left, in int32 arithmetic
+      let end = len + digits;
+      len = end;
       for (let i = 0; i < digits; i++) {
-        const q = Math.floor(frac / 10);
+        const q = (frac / 10) | 0;
         buf[--end] = 0x30 + (frac - q * 10);
         frac = q;
       }
     }
+    this.len = len;
     return this;
-  }
-
-  /** Appends a non-negative integer below 2^53 in decimal. */
-  private uint(n: number): void {
-    let digits = 1;
-    for (let p = 10; p <= n; p *= 10) digits++;
-    const buf = this.buf;
-    let end = this.len + digits;
-    this.len = end;
-    do {
-      const q = Math.floor(n / 10);
-      buf[--end] = 0x30 + (n - q * 10);
-      n = q;
-    } while (n > 0);
   }
 
   /** Bytes written so far. */
@@ -117,4 +106,26 @@ export class TextSink {
   text(): string {
     return decoder.decode(this.buf.subarray(0, this.len));
   }
+}
+
+/** Writes a non-negative integer below 2^53 in decimal at `buf[at]`; returns the end. */
+function putUint(buf: Uint8Array, at: number, n: number): number {
+  let digits = 1;
+  for (let p = 10; p <= n; p *= 10) digits++;
+  let end = at + digits;
+  if (n <= 0x7fffffff) {
+    let m = n | 0;
+    do {
+      const q = (m / 10) | 0;
+      buf[--end] = 0x30 + (m - q * 10);
+      m = q;
+    } while (m > 0);
+  } else {
+    do {
+      const q = Math.floor(n / 10);
+      buf[--end] = 0x30 + (n - q * 10);
+      n = q;
+    } while (n > 0);
+  }
+  return at + digits;
 }
