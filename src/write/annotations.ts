@@ -41,7 +41,6 @@ export function annotationExtras(a: AnnotationInput): WriterExtra[] {
   if (a.repaired) {
     // Where the repairs acted: the material they changed, and R<k> markers as in the HTML report.
     const markers: WriterMarker[] = a.repairs.flatMap((r, k) => r.locations.map((L) => ({ x: L.x, y: L.y, label: `R${k + 1}`, note: r.id })));
-    // a repair ran, so the boolean engine is loaded (prepareBuild)
     const rings = a.repaired.polygons.length > 0 ? simpleRegions(a.repaired) : [];
     if (rings.length + markers.length > 0) extras.push({ layer: 'repair', rings, markers });
   }

@@ -49,17 +49,11 @@ export function declaredLayers(input: WriterInput): DxfLayer[] {
 }
 
 /**
- * Writes the part and the optional annotation layers as a DXF string (CRLF line ends), R2000 unless
- * `input.dxfVersion` is 'r12'.
- *
- * Input: mm, y up, origin at the lower-left corner of the grid; outer rings counter-clockwise, holes
- * clockwise, rings implicitly closed (a repeated closing point is dropped; rings that clean to fewer than 3
- * points are skipped). Rings listed in `input.ringCircles` are written as CIRCLE entities (centre and radius in
- * mm, converted like every coordinate). Output coordinates and lengths are in `input.units`; `$EXTMIN`/`$EXTMAX`
- * are the bounds of what is drawn (the domain corners for an empty drawing), `$LIMMIN`/`$LIMMAX` the domain.
- * Throws RhoformError `E_INTERNAL` for a RingCircle naming no ring, a radius ≤ 0 or a non-finite value, and
- * for annotation layers asked in R12 (which has no plot flag to keep them from plotting).
- * Pure and deterministic: the same input gives byte-identical output.
+ * Writes the part and the optional annotation layers as a DXF string, R2000 unless `input.dxfVersion` is 'r12'.
+ * Rings that clean to fewer than 3 points are skipped; `$EXTMIN`/`$EXTMAX` are the bounds of what is drawn (the
+ * domain corners for an empty drawing), `$LIMMIN`/`$LIMMAX` the domain. Throws RhoformError `E_INTERNAL` for a
+ * RingCircle naming no ring, a radius ≤ 0 or a non-finite value, and for annotation layers asked in R12 (which
+ * has no plot flag to keep them from plotting).
  */
 export function writeDxf(input: WriterInput): string {
   const drawing = collectDrawing(input);

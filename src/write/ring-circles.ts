@@ -15,8 +15,7 @@ const NONE: RingCircleLookup = () => undefined;
  *
  * A RingCircle must name an existing ring (integer polygon index in range; ring 0 for the outer ring or
  * k ≥ 1 for hole k − 1 of that polygon), have a finite centre (mm) and a finite radius > 0 (mm), and be the
- * only entry for its ring. Anything else is a programming error of the caller: RhoformError `E_INTERNAL`
- * with the offending entry's index and values. Linear in the number of entries; the input is not mutated.
+ * only entry for its ring; anything else throws RhoformError `E_INTERNAL` with the entry's index and values.
  */
 export function ringCircleLookup(polygons: PolygonSet, circles: readonly RingCircle[] | undefined): RingCircleLookup {
   if (circles === undefined || circles.length === 0) return NONE;

@@ -1,24 +1,17 @@
 /**
- * SVG writer: PolygonSet (mm, y up) → a standalone SVG 1.1 document with a physical page size.
+ * SVG writer: PolygonSet (mm, y up) → a standalone SVG 1.1 document whose page is the domain, one user unit one
+ * millimetre (or inch) on paper.
  *
- * - The page is the domain: `width`/`height` in the output unit (`mm` or `in`) and a `viewBox` in the same
- *   unit, so one user unit is one millimetre (or inch) on paper.
- * - This is the only y-down conversion of the tool: y' = maxY − y (then divided by 25.4 for inches);
- *   x stays as in the model. The viewBox is `minX 0 width height`.
- * - The part is one `<path>` with `fill-rule="evenodd"`: every outer ring and hole is a sub-path `M … Z`, so
- *   holes cut whatever their winding (SVG 1.1 §11.3 'fill-rule'; docs/references.md §7.4). A ring listed in
- *   `ringCircles` is a sub-path of two half-circle elliptical arcs (SVG 1.1 §8.3.8 'A'):
- *   `M cx+r cy' A r r 0 1 s cx−r cy' A r r 0 1 s cx+r cy' Z`, in the same path, so a circular hole still cuts;
- *   its sweep flag s keeps the model's orientation (outer rings counter-clockwise on screen: s = 0; holes: s = 1).
- * - Rings are written as the file holds them (src/geom/clean-ring.ts): rounded to the written decimals, no
- *   repeated point and no segment shorter than 1 µm (or one unit of the last decimal, if larger). An edge with a
- *   bulge (`arcs`) is an `A` command: radius from the bulge, large-arc flag |θ| > π, sweep 0 for a
- *   counter-clockwise arc of the model (the flip keeps it counter-clockwise on screen).
- * - Optional groups, bottom to top: `underlay` (caller markup), the part, then the annotation groups `passive`,
- *   `repair`, `finding` (numbered circle markers), each a separate `<g class="annotation">`, never part of
- *   the part's path. A label that would run past the page's edge is turned to the other side of its marker,
- *   so no label is cut off.
- * - Numbers: at most 3 decimals in mm, 4 in inches (1 µm / 2.5 µm), no exponent, no "-0"; deterministic.
+ * - The tool's only y-down conversion: y' = maxY − y (then ÷ 25.4 for inches).
+ * - The part is one `<path>` with `fill-rule="evenodd"`, one sub-path per ring, so holes cut whatever their
+ *   winding (SVG 1.1 §11.3; docs/references.md §7.4). A ring in `ringCircles` is two half-circle arcs in the
+ *   same path (SVG 1.1 §8.3.8 'A'), sweep flag 0 for outer rings and 1 for holes; a bulged edge (`arcs`) is
+ *   an `A` command, large-arc flag |θ| > π.
+ * - Rings are written as the file holds them (src/geom/clean-ring.ts): rounded, no repeated point, no segment
+ *   shorter than 1 µm (or one unit of the last decimal).
+ * - Groups bottom to top: `underlay`, the part, then `passive`, `repair`, `finding` as separate
+ *   `<g class="annotation">`; a label that would leave the page turns to the other side of its marker.
+ * - Numbers: at most 3 decimals in mm, 4 in inches, no exponent, no "-0"; deterministic.
  */
 import { bulgeRadius } from '../geom/bulge.js';
 import { cleanRing, MIN_SEGMENT_MM } from '../geom/clean-ring.js';
@@ -154,13 +147,8 @@ class SvgFrame {
 }
 
 /**
- * Writes the part and the optional extra layers as an SVG document (LF line ends).
- *
- * Input: mm, y up, origin at the lower-left corner of the grid; outer rings counter-clockwise, holes
- * clockwise, rings implicitly closed (a repeated closing point is dropped; rings of fewer than 3 points are
- * skipped). Rings listed in `input.ringCircles` (centre and radius in mm) are written as two half-circle
- * arcs inside the part's path. Output: viewBox in `input.units`, y down (y' = maxY − y). Pure and
- * deterministic. Throws RhoformError `E_INTERNAL` for a RingCircle naming no ring, a radius ≤ 0 or a
+ * Writes the part and the optional extra layers as an SVG document (LF line ends). Rings of fewer than 3
+ * points are skipped. Throws RhoformError `E_INTERNAL` for a RingCircle naming no ring, a radius ≤ 0 or a
  * non-finite value.
  */
 export function writeSvg(input: WriterInput): string {

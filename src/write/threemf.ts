@@ -23,10 +23,7 @@ const RELS =
   ' <Relationship Target="/3D/3dmodel.model" Id="rel0" Type="http://schemas.microsoft.com/3dmanufacturing/2013/01/3dmodel"/>\n' +
   '</Relationships>\n';
 
-/**
- * The model XML (UTF-8 bytes). The mesh's vertices are written as they are indexed (each polygon's ring points
- * once per face level), coordinates with at most 6 decimals.
- */
+/** The model XML (UTF-8 bytes); vertices in the mesh's own order. */
 export function modelXml(mesh: Mesh): Uint8Array {
   const { vertices: v, triangles: t } = mesh;
   const out = new TextSink(256 + 60 * (v.length / 3) + 50 * (t.length / 3));
