@@ -2,7 +2,8 @@
  * The binary's entry (cli/start.ts `runAsync`) loads on demand what a run needs: a fresh module graph, as a new
  * process has, reads a MAT file through runAsync with the MAT reader loaded for it, and a plain NPY build loads
  * neither the other readers nor the HTML report. The grids: fixtures/mat/double.mat and double.npy hold the same
- * matrix (both written by scipy/numpy, fixtures/make/), so the DXF drawn from each must be the same bytes.
+ * matrix (scipy.io.savemat and numpy.save, fixtures/make/make_mat_fixtures.py; fixtures/mat/manifest.json pairs them),
+ * so the DXF drawn from each must be the same bytes.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
