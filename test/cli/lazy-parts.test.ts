@@ -59,5 +59,7 @@ describe('parts loaded on demand', () => {
     expect(await start.runAsync(['build', join(FIXTURES, 'double.npy'), '--formats', 'dxf,json', '--quiet'], sink)).toBeLessThan(2);
     expect(out.stderr).toBe('');
     for (const f of ['mat', 'vtk', 'vti', 'png'] as const) expect(() => registry.registeredReader(f)).toThrow(/not loaded/);
+    const prepare = await import('../../cli/prepare.js'); // the same fresh graph
+    expect(() => prepare.htmlFormatter()).toThrow(/the HTML report is not loaded/);
   });
 });
