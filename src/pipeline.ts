@@ -14,7 +14,6 @@ import type { PassiveRegions } from './passive/types.js';
 import type { RepairStageRecord } from './repair/stage.js';
 import { assembleReport } from './report/assemble.js';
 import type { HtmlPictures } from './report/html.js';
-import { startDensityPicture } from './report/figures.js';
 import { needsBooleanEngine, type Settings } from './settings.js';
 import type { SmoothResult } from './smooth/smooth.js';
 import { outlineStage, type OutlineInput, type OutlineSettings } from './smooth/stage.js';
@@ -83,6 +82,7 @@ export type BuildNeeds = Pick<Settings, 'passive' | 'mirror' | 'repair'> & Parti
 
 let feModule: typeof import('./fe/stage.js') | null = null;
 let repairModule: typeof import('./repair/stage.js') | null = null;
+let figures: typeof import('./report/figures.js') | null = null;
 
 function loaded<T>(part: T | null, what: string): T {
   if (part === null) throw new RhoformError('E_INTERNAL', `${what} is not loaded: await prepareBuild(settings) before build()`);
@@ -99,6 +99,7 @@ export async function prepareBuild(s: BuildNeeds, input?: { readonly name: strin
     s.repair.length > 0 ? import('./repair/stage.js').then((m) => void (repairModule = m)) : null,
     s.loads !== null && s.loads !== undefined ? import('./fe/stage.js').then((m) => void (feModule = m)) : null,
     s.formats?.some((f) => f === 'stl' || f === '3mf') ? loadSolidWriter() : null,
+    s.formats?.includes('html') ? import('./report/figures.js').then((m) => void (figures = m)) : null,
     loadReaders(input),
   ]);
 }
@@ -129,7 +130,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   lap('read');
   const field = prepareStage(input, read, s, more.passive ?? null);
   lap('prepare');
-  if (s.formats.includes('html')) startDensityPicture(field.grid);
+  if (s.formats.includes('html')) figures?.startDensityPicture(field.grid); // a head start only: the same bytes without it
   const threshold = thresholdStage(field, s);
   lap('threshold');
   timings.threshold -= threshold.contourMs + threshold.smoothMs;
