@@ -1,4 +1,5 @@
 /** A polygon set as flat rings, the form the contour hands to smoothing without nested `[x, y]` arrays. */
+import { flattenSet } from '../geom/flat.js';
 import type { FlatRings } from '../geom/segments.js';
 import type { Point, Polygon, PolygonSet, Ring } from '../types.js';
 
@@ -33,38 +34,18 @@ export function nestedSet(set: FlatPolygonSet): PolygonSet {
 
 /** The flat form of a nested set, vertex for vertex. */
 export function flatSet(set: PolygonSet): FlatPolygonSet {
-  let rings = 0;
-  let vertices = 0;
-  for (const p of set.polygons) {
-    rings += 1 + p.holes.length;
-    vertices += p.outer.length;
-    for (const h of p.holes) vertices += h.length;
-  }
-  const xy = new Float64Array(2 * vertices);
-  const start = new Int32Array(rings + 1);
+  const { xy, start } = flattenSet(set);
+  const rings = start.length - 1;
   const hole = new Uint8Array(rings);
   const owner = new Int32Array(rings);
   let r = 0;
-  let o = 0;
-  const put = (ring: Ring) => {
-    start[r] = o;
-    for (const p of ring) {
-      xy[2 * o] = p[0];
-      xy[2 * o + 1] = p[1];
-      o++;
-    }
-    r++;
-  };
   for (const p of set.polygons) {
     const outer = r;
-    owner[r] = -1;
-    put(p.outer);
-    for (const h of p.holes) {
+    owner[r++] = -1;
+    for (let k = 0; k < p.holes.length; k++) {
       hole[r] = 1;
-      owner[r] = outer;
-      put(h);
+      owner[r++] = outer;
     }
   }
-  start[r] = o;
   return { xy, start, hole, owner };
 }
