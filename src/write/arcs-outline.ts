@@ -12,7 +12,7 @@
  */
 import { passiveCircleTolerance } from '../passive/exact.js';
 import type { PassiveRegions } from '../passive/types.js';
-import type { ArcFitSummary, Point, Polygon, PolygonSet, Ring } from '../types.js';
+import type { ArcFitSummary, Domain, Point, Polygon, PolygonSet, Ring } from '../types.js';
 import type { RingBulges } from '../geom/bulge.js';
 import type { RingCircle } from '../geom/circle.js';
 import { fitRingArcs } from '../geom/arcs.js';
@@ -26,7 +26,7 @@ export interface OutlineArcsInput {
   readonly polygons: PolygonSet;
   readonly ringCircles: readonly RingCircle[];
   readonly passive: PassiveRegions | null;
-  readonly domain: readonly [number, number, number, number];
+  readonly domain: Domain;
   /** mm: the outline tolerance. */
   readonly tolerance: number;
   /** The raw iso-contour the tolerance is measured from. */

@@ -6,7 +6,7 @@
  */
 import type { RingBulges } from '../geom/bulge.js';
 import type { RingCircle } from '../geom/circle.js';
-import type { PolygonSet, Ring } from '../types.js';
+import type { Domain, PolygonSet, Ring } from '../types.js';
 
 export type { RingCircle } from '../geom/circle.js';
 export type { RingBulges } from '../geom/bulge.js';
@@ -53,7 +53,7 @@ export interface WriterInput {
   /** The part in mm, y up; outer rings counter-clockwise, holes clockwise; rings implicitly closed. */
   polygons: PolygonSet;
   /** The domain rectangle in mm (y up); sets the drawing extents and the SVG page. */
-  domain: readonly [minX: number, minY: number, maxX: number, maxY: number];
+  domain: Domain;
   /** Output units: coordinates are divided by 25.4 for 'in'. */
   units: 'mm' | 'in';
   /** Rings of the part written as true circles (at most one entry per ring). */
