@@ -3,6 +3,7 @@ import { RhoformError } from '../../src/errors.js';
 import { prepareGrid } from '../../src/field/prepare.js';
 import type { SamplePosition } from '../../src/read/types.js';
 import type { DensityGrid } from '../../src/types.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 // A 3×2 grid written top-down: file row 1 is grid row j = 1.
 const nx = 3;
@@ -16,13 +17,7 @@ const grid = (values: number[]): DensityGrid => ({ nx, ny, cellSize: [1, 1], ori
 const opts = { valueRange: [0, 1] as [number, number], clip: false, nonFinite: 'error' as const };
 
 function error(f: () => unknown): RhoformError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected a RhoformError');
+  return rhoformErrorOf(f, 'expected a RhoformError');
 }
 
 describe('prepare', () => {

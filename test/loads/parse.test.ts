@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { RhoformError } from '../../src/errors.js';
 import { analyse } from '../../src/fe/analyse.js';
 import { parseLoads } from '../../src/loads/parse.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 const bad = (name: string): string => readFileSync(new URL(`../../fixtures/loads/bad/${name}`, import.meta.url), 'utf8');
 
@@ -23,13 +24,7 @@ function positionOf(text: string, needle: string, nth = 1): { line: number; col:
 }
 
 function errorOf(f: () => unknown): RhoformError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected a RhoformError');
+  return rhoformErrorOf(f, 'expected a RhoformError');
 }
 
 // The demo grid: 120 × 60 cells of 2 mm (fixtures/grids/demo-bracket.md).

@@ -5,15 +5,10 @@
 import { describe, expect, it } from 'vitest';
 import { RhoformError } from '../../src/errors.js';
 import { parsePassive, parsePassiveBytes } from '../../src/passive/parse.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 function errorOf(f: () => unknown): RhoformError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
+  return rhoformErrorOf(f, 'expected an error');
 }
 // eslint-disable-next-line no-control-regex
 const CONTROL = /[\u0000-\u001f\u007f-\u009f]/;

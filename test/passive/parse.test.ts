@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { RhoformError } from '../../src/errors.js';
 import { parsePassive } from '../../src/passive/parse.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 const fixture = (name: string): string => readFileSync(new URL(`../../fixtures/passive/${name}`, import.meta.url), 'utf8');
 
@@ -25,13 +26,7 @@ function positionOf(text: string, needle: string, nth = 1): { line: number; col:
 }
 
 function errorOf(text: string, file = 'p.json'): RhoformError {
-  try {
-    parsePassive(text, file);
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected parsePassive to throw');
+  return rhoformErrorOf(() => parsePassive(text, file), 'expected parsePassive to throw');
 }
 
 describe('parsePassive: the demo bracket scenario', () => {

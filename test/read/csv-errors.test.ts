@@ -6,15 +6,10 @@ import { describe, it, expect } from 'vitest';
 import { readCsv } from '../../src/read/csv.js';
 import { RhoformError } from '../../src/errors.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 function fail(text: string, o: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    readCsv(text, { ...DEFAULT_READ_OPTIONS, ...o });
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
+  return rhoformErrorOf(() => readCsv(text, { ...DEFAULT_READ_OPTIONS, ...o }), 'expected an error');
 }
 
 describe('readCsv errors', () => {

@@ -6,16 +6,11 @@ import { describe, it, expect } from 'vitest';
 import { readCsv } from '../../src/read/csv.js';
 import { RhoformError } from '../../src/errors.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 const read = (text: string, o: Partial<ReadOptions> = {}) => readCsv(text, { ...DEFAULT_READ_OPTIONS, ...o });
 function fail(text: string, o: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    read(text, o);
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected an error');
+  return rhoformErrorOf(() => read(text, o), 'expected an error');
 }
 
 /** Lines "x,y,value" of centroids ((i + ½)hx + ox, (j + ½)hy + oy) with value i + 10j, in a seeded shuffled order. */

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { RhoformError, type ErrorCode } from '../../src/errors.js';
 import { readNpy } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 interface ErrorEntry {
   file: string;
@@ -24,13 +25,7 @@ const opts = (o: Partial<ReadOptions> = {}): ReadOptions => ({ ...DEFAULT_READ_O
 
 /** Runs readNpy and returns the RhoformError it throws (fails the test if it does not throw one). */
 function refusal(bytes: Uint8Array, o: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    readNpy(bytes, opts(o));
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected readNpy to throw a RhoformError');
+  return rhoformErrorOf(() => readNpy(bytes, opts(o)), 'expected readNpy to throw a RhoformError');
 }
 
 /** A v1.0 file with this header text, padded to 64 bytes as numpy does (NEP 1 layout). */

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { RhoformError } from '../../src/errors.js';
 import { readNpy } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { rhoformErrorOf } from '../support/errors.js';
 
 function npyV1(header: string, data: Uint8Array = new Uint8Array(0)): Uint8Array {
   const h = new Uint8Array([...header].map((c) => c.charCodeAt(0) & 0xff));
@@ -18,13 +19,7 @@ function npyV1(header: string, data: Uint8Array = new Uint8Array(0)): Uint8Array
 }
 
 function refusal(bytes: Uint8Array, o: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    readNpy(bytes, { ...DEFAULT_READ_OPTIONS, ...o });
-  } catch (e) {
-    if (e instanceof RhoformError) return e;
-    throw e;
-  }
-  throw new Error('expected a refusal');
+  return rhoformErrorOf(() => readNpy(bytes, { ...DEFAULT_READ_OPTIONS, ...o }), 'expected a refusal');
 }
 
 // eslint-disable-next-line no-control-regex
