@@ -80,7 +80,9 @@ function structureView(start: StructureStart, d: StructureDesign): StructureChec
 /** What prepareBuild reads of the settings; `loads` and `formats` may be left out when the build uses neither. */
 export type BuildNeeds = Pick<Settings, 'passive' | 'mirror' | 'repair'> & Partial<Pick<Settings, 'loads' | 'formats'>>;
 
-let feModule: typeof import('./fe/stage.js') | null = null;
+type FeStage = typeof import('./fe/stage.js');
+
+let feModule: FeStage | null = null;
 let repairModule: typeof import('./repair/stage.js') | null = null;
 let figures: typeof import('./report/figures.js') | null = null;
 
@@ -111,18 +113,52 @@ export function thresholdStage(field: ThresholdInput & OutlineInput, s: Threshol
   return search.finish();
 }
 
-/** `rhoform build`. Throws RhoformError on bad input (exit 2). */
-export function build(input: InputFile, s: Settings, more: BuildExtras = {}): BuildResult {
+/** Stage times and progress: `lap(name)` closes the stage that just ran. */
+function stageClock(total: number, onStage: BuildExtras['onStage']) {
   const timings: Record<string, number> = {};
   let t0 = performance.now();
-  const total = buildStageCount(s, (more.loads ?? null) !== null);
   let done = 0;
-  const lap = (name: string) => {
+  const lap = (name: string): void => {
     const t = performance.now();
     timings[name] = (timings[name] ?? 0) + (t - t0);
-    more.onStage?.(name, ++done, total);
+    onStage?.(name, ++done, total);
     t0 = performance.now();
   };
+  return { timings, lap };
+}
+
+/** The structural re-check through a build (`--loads`): the input design at once, then each outline the checks judge. */
+interface Recheck {
+  /** Analyses `polygons` as the part now; the outline analysed before becomes the before-repair design. */
+  analyse(polygons: PolygonSet): StructureCheckInput;
+  /** The report's record of the designs analysed, `final` the written part. */
+  finish(final: PolygonSet): StructureRecord;
+}
+
+function startRecheck(field: Parameters<FeStage['structureStart']>[0], loads: LoadsSpec | null, s: Settings): Recheck | null {
+  if ((loads === null) !== (s.loads === null)) throw new UsageError('the structural re-check needs both settings.loads (the file name) and the parsed loads file');
+  if (loads === null) return null;
+  const fe = loaded(feModule, 'the structural re-check');
+  const start = fe.structureStart(field, loads, s);
+  let before: StructureDesign | null = null;
+  let current: StructureDesign | null = null;
+  return {
+    analyse(polygons) {
+      before = current;
+      current = fe.structureDesign(start, polygons);
+      return structureView(start, current);
+    },
+    finish(final) {
+      if (current === null) throw new RhoformError('E_INTERNAL', 'the structural re-check finished before any outline was analysed');
+      return fe.structureStage(start, before, current, final);
+    },
+  };
+}
+
+/** `rhoform build`. Throws RhoformError on bad input (exit 2). */
+export function build(input: InputFile, s: Settings, more: BuildExtras = {}): BuildResult {
+  const loads = more.loads ?? null;
+  const { timings, lap } = stageClock(buildStageCount(s, loads !== null), more.onStage);
   if (s.thickness === null && s.formats.some((f) => f === 'stl' || f === '3mf')) {
     throw new UsageError(`--formats ${s.formats.filter((f) => f === 'stl' || f === '3mf').join(',')}: expected --thickness <mm> (the extrusion of the solid), found none`);
   }
@@ -140,17 +176,17 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   lap('passive');
 
   const plan = withFileName(input.name, () => planStage(field, threshold.summary.mode, s));
-  // the structural re-check: the input design now, each outline before the checks that judge it
-  const loads = more.loads ?? null;
-  if ((loads === null) !== (s.loads === null)) throw new UsageError('the structural re-check needs both settings.loads (the file name) and the parsed loads file');
-  const feStage = loads === null ? null : loaded(feModule, 'the structural re-check');
-  const fe = loads === null || feStage === null ? null : feStage.structureStart(field, loads, s);
-  let feFinal = fe === null || feStage === null ? null : feStage.structureDesign(fe, passive.polygons);
-  if (fe !== null) lap('structure');
+  const recheck = startRecheck(field, loads, s);
+  const recheckView = (polygons: PolygonSet): StructureCheckInput | null => {
+    if (recheck === null) return null;
+    const view = recheck.analyse(polygons);
+    lap('structure');
+    return view;
+  };
   const checkInput = { ...field, raw: threshold.raw, smoothed: threshold.smoothed, threshold: threshold.summary, greyLevel: field.input.greyLevel };
-  let checks: CheckRecord = checkStage(passive.polygons, passive.exact?.solidRings ?? null, checkInput, plan, fe && feFinal ? structureView(fe, feFinal) : null);
+  const view = recheckView(passive.polygons);
+  let checks: CheckRecord = checkStage(passive.polygons, passive.exact?.solidRings ?? null, checkInput, plan, view);
   lap('checks');
-  let feBefore: StructureDesign | null = null;
 
   let final = passive.polygons;
   let exact = passive.exact;
@@ -175,19 +211,15 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
     final = repair.polygons;
     exact = repair.passive;
     lap('repair');
-    if (fe !== null && feStage !== null) {
-      feBefore = feFinal;
-      feFinal = feStage.structureDesign(fe, final);
-      lap('structure');
-    }
+    const repairedView = recheckView(final);
     beforeRepair = checks;
     // after a repair, volume-fraction judges the area the files will hold
     shape = writtenShape({ polygons: final, domain: field.domain, tolerance: field.tolerance, passiveCircles: exact?.ringCircles ?? [], passive: field.passive, raw: threshold.raw }, s);
     const writtenArea = summarizeGeometry(shape.polygons, field.domainArea, shape).area;
-    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true, writtenArea }, plan, fe && feFinal ? structureView(fe, feFinal) : null);
+    checks = checkStage(final, exact?.solidRings ?? null, { ...checkInput, repaired: true, writtenArea }, plan, repairedView);
     lap('checks');
   }
-  const structure = fe !== null && feStage !== null && feFinal !== null ? feStage.structureStage(fe, feBefore, feFinal, final) : null;
+  const structure = recheck === null ? null : recheck.finish(final);
   if (structure !== null) lap('structure');
   const warnings = [...field.warnings, ...threshold.warnings, ...(structure?.warnings ?? [])];
   const files = writeStage(
