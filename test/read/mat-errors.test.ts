@@ -6,7 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { deflateSync } from 'node:zlib';
-import { RhoformError } from '../../src/errors.js';
+import type { RhoformError } from '../../src/errors.js';
+import { rhoformErrorOf } from '../support/errors.js';
 import { readMat } from '../../src/read/mat.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
 import { loadFixture, read } from './same-as-npy.js';
@@ -14,14 +15,9 @@ import { loadFixture, read } from './same-as-npy.js';
 const DIR = new URL('../../fixtures/mat/', import.meta.url);
 
 function fail(bytes: Uint8Array, options: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    read(bytes, 'bad.mat', options);
-  } catch (e) {
-    expect(e).toBeInstanceOf(RhoformError);
-    expect((e as Error).message).not.toMatch(/\n/);
-    return e as RhoformError;
-  }
-  throw new Error('expected an error');
+  const e = rhoformErrorOf(() => read(bytes, 'bad.mat', options), 'expected an error');
+  expect(e.message).not.toMatch(/\n/); // one line, as every refusal
+  return e;
 }
 
 describe('refused variables are named, with the reason', () => {

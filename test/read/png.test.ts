@@ -7,7 +7,8 @@
 import { readFileSync } from 'node:fs';
 import { deflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { RhoformError } from '../../src/errors.js';
+import type { RhoformError } from '../../src/errors.js';
+import { rhoformErrorOf } from '../support/errors.js';
 import type { ReadOptions } from '../../src/read/types.js';
 import { expectSameDxf, expectSameGrid, loadFixture, read } from './same-as-npy.js';
 
@@ -16,14 +17,9 @@ interface Entry { file: string; ref: string; options: Partial<ReadOptions> }
 const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { width: number; height: number; ok: Entry[] };
 
 function fail(bytes: Uint8Array, options: Partial<ReadOptions> = {}): RhoformError {
-  try {
-    read(bytes, 'bad.png', options);
-  } catch (e) {
-    expect(e).toBeInstanceOf(RhoformError);
-    expect((e as Error).message).not.toMatch(/\n/);
-    return e as RhoformError;
-  }
-  throw new Error('expected an error');
+  const e = rhoformErrorOf(() => read(bytes, 'bad.png', options), 'expected an error');
+  expect(e.message).not.toMatch(/\n/); // one line, as every refusal
+  return e;
 }
 
 describe('PNG images written by PIL read as numpy mapped the same pixels', () => {

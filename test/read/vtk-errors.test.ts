@@ -4,21 +4,17 @@
  * written inline from the VTK file-format document, or are fixtures with bytes changed.
  */
 import { describe, expect, it } from 'vitest';
-import { RhoformError } from '../../src/errors.js';
+import type { RhoformError } from '../../src/errors.js';
+import { rhoformErrorOf } from '../support/errors.js';
 import { loadFixture, read } from './same-as-npy.js';
 
 const DIR = new URL('../../fixtures/vtk/', import.meta.url);
 const enc = (s: string): Uint8Array => new TextEncoder().encode(s);
 
 function fail(bytes: Uint8Array, name = 'bad.vtk', options = {}): RhoformError {
-  try {
-    read(bytes, name, options);
-  } catch (e) {
-    expect(e).toBeInstanceOf(RhoformError);
-    expect((e as Error).message).not.toMatch(/\n/);
-    return e as RhoformError;
-  }
-  throw new Error('expected an error');
+  const e = rhoformErrorOf(() => read(bytes, name, options), 'expected an error');
+  expect(e.message).not.toMatch(/\n/); // one line, as every refusal
+  return e;
 }
 
 const legacy = (dataset: string, dims: string, body: string, mode = 'ASCII'): string =>
