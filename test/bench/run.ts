@@ -67,7 +67,7 @@ const mb = (b: number) => `${(b / 2 ** 20).toFixed(0)} MB`;
 
 /** Issue 15's table: each case and the floor on its file, interleaved, medians of `n`. */
 function issueTable(): string[] {
-  const table = ['| grid | what | wall (median) | CPU (median) | peak RSS | floor wall | floor CPU | wall / floor | CPU / floor | target |', '|---|---|---|---|---|---|---|---|---|---|'];
+  const table = ['| grid | what | wall (median) | CPU (median) | peak RSS | minor faults | floor wall | floor CPU | floor faults | wall / floor | CPU / floor | target |', '|---|---|---|---|---|---|---|---|---|---|---|---|'];
   const p2 = join(dir, 'issue-plate-2000x1000-f8.npy');
   const p4 = join(dir, 'issue-plate-4000x2000-f4.npy');
   writeFileSync(p2, npyFloat64(platePattern(2000, 1000), 1000, 2000));
@@ -89,7 +89,8 @@ function issueTable(): string[] {
     }
     const w = median(runs.map((m) => m.wallMs)), c = median(runs.map((m) => m.cpuMs));
     const fw = median(floors.map((m) => m.wallMs)), fc = median(floors.map((m) => m.cpuMs));
-    table.push(`| ${grid} | ${what} | ${s(w)} | **${s(c)}** | ${mb(median(runs.map((m) => m.maxRss)))} | ${s(fw)} | ${s(fc)} | ${(w / fw).toFixed(1)}× | ${(c / fc).toFixed(1)}× | ${target} |`);
+    const flt = (ms: Measured[]) => median(ms.map((m) => m.faults)).toFixed(0);
+    table.push(`| ${grid} | ${what} | ${s(w)} | **${s(c)}** | ${mb(median(runs.map((m) => m.maxRss)))} | ${flt(runs)} | ${s(fw)} | ${s(fc)} | ${flt(floors)} | ${(w / fw).toFixed(1)}× | ${(c / fc).toFixed(1)}× | ${target} |`);
     console.error(`done issue case: ${grid} ${what}`);
   }
   return table;
