@@ -75,7 +75,8 @@ export function buildFile(
   const passive = passivePath === null || settings.passive === null ? null : readPassive(passivePath, settings.passive);
   const loadsPath = settings.loads === null ? null : (opts.loadsPath ?? resolve(opts.cwd, settings.loads));
   const loads = loadsPath === null || settings.loads === null ? null : readLoads(loadsPath, settings.loads);
-  const result = build({ name, bytes }, settings, { passive, loads });
+  // The buffer is this function's own and is not read again: the build may flip an NPY file's rows inside it.
+  const result = build({ name, bytes, consumable: true }, settings, { passive, loads });
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));

@@ -5,17 +5,25 @@ import { fieldStats, histogram, type FieldStats, type Histogram } from './field/
 import { readGrid } from './read/detect.js';
 import type { ReadOptions, ReadResult } from './read/types.js';
 import type { Settings } from './settings.js';
-import type { DensityGrid, Report } from './types.js';
+import type { Report } from './types.js';
 import { VERSION } from './version.js';
 
 export interface InputFile {
   /** As the user gave it (messages, the report). */
   readonly name: string;
   readonly bytes: Uint8Array;
+  /**
+   * True when the caller hands `bytes` over and will not read them again (the CLI, which read the file into a
+   * buffer of its own): the build may then rearrange them in place instead of copying them (an NPY file's rows
+   * flipped into grid order). The report's `input.sha256` is still of the bytes as given, taken first.
+   * Absent or false (the default): `bytes` are never written.
+   */
+  readonly consumable?: boolean;
 }
 
-function readOptions(s: Settings): ReadOptions {
+function readOptions(s: Settings, consumeBytes: boolean): ReadOptions {
   return {
+    consumeBytes,
     cellSize: s.cellSize,
     rowOrder: s.rowOrder,
     values: s.values,
@@ -29,16 +37,20 @@ function readOptions(s: Settings): ReadOptions {
   };
 }
 
-/** Reads and validates the grid file; errors carry its name. */
+/**
+ * Reads and validates the grid file; errors carry its name. The file's SHA-256 is taken first (`sha256` of the
+ * result), since a consumable input's bytes may be changed by the reader.
+ */
 export function loadGrid(input: InputFile, s: Settings): ReadResult {
-  const read = readGrid(input.bytes, input.name, readOptions(s));
+  const hash = sha256(input.bytes);
+  const read = readGrid(input.bytes, input.name, readOptions(s, input.consumable === true));
   const g = read.grid;
   if (g.placement === 'nodes' && (g.nx < 2 || g.ny < 2)) {
     throw new RhoformError('E_GRID_SIZE', `expected at least 2×2 nodal values (--values nodes), found ${g.ny}×${g.nx}`, {
       file: input.name,
     });
   }
-  return read;
+  return { ...read, sha256: hash };
 }
 
 export interface InspectResult {
@@ -57,13 +69,6 @@ function sha256(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
 }
 
-function mapRange(grid: DensityGrid, [lo, hi]: readonly [number, number]): DensityGrid {
-  const out = new Float64Array(grid.values.length);
-  const scale = 1 / (hi - lo);
-  for (let k = 0; k < out.length; k++) out[k] = (grid.values[k] - lo) * scale;
-  return { ...grid, values: out };
-}
-
 /** `known`: statistics gathered while preparing; otherwise computed here. */
 export function describeInput(
   input: InputFile,
@@ -73,11 +78,11 @@ export function describeInput(
 ): { input: Report['input']; greyShare: number } {
   const g = read.grid;
   const raw = known ?? fieldStats(g);
-  const st = known ?? (isIdentity(s) ? raw : fieldStats(mapRange(g, s.valueRange)));
+  const st = known ?? (isIdentity(s) ? raw : fieldStats(g, s.valueRange));
   return {
     input: {
       file: input.name,
-      sha256: sha256(input.bytes),
+      sha256: read.sha256 ?? sha256(input.bytes),
       format: read.format,
       nx: g.nx,
       ny: g.ny,
@@ -100,12 +105,11 @@ function isIdentity(s: Settings): boolean {
 export function inspect(input: InputFile, s: Settings): InspectResult {
   const read = loadGrid(input, s);
   const d = describeInput(input, read, s);
-  const mapped = isIdentity(s) ? read.grid : mapRange(read.grid, s.valueRange);
   return {
     schemaVersion: 1,
     tool: { name: 'rhoform', version: VERSION },
     input: d.input,
-    histogram: histogram(mapped, 10, 0, 1),
+    histogram: histogram(read.grid, 10, 0, 1, isIdentity(s) ? undefined : s.valueRange),
     greyShare: d.greyShare,
     layout: read.layout,
     cellSizeSource: read.cellSizeSource ?? 'options',

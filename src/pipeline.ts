@@ -164,7 +164,7 @@ export function build(input: InputFile, s: Settings, more: BuildExtras = {}): Bu
   }
   const read = loadGrid(input, s);
   lap('read');
-  const field = prepareStage(input, read, s, more.passive ?? null);
+  const field = prepareStage(input, read, s, more.passive ?? null, { consume: true }); // `read` is not used again
   lap('prepare');
   if (s.formats.includes('html')) figures?.startDensityPicture(field.grid); // a head start only: the same bytes without it
   const threshold = thresholdStage(field, s);

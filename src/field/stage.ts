@@ -69,10 +69,20 @@ function valueRange(values: Float64Array): { min: number; max: number } {
   return { min, max };
 }
 
+export interface PrepareStageOptions {
+  /**
+   * The caller hands `read` over (build does): when its values are its own (`read.ownsValues`), they are
+   * prepared in place, and `read.grid` must not be used afterwards (it then holds the prepared values).
+   * Default false: `read` is left as it is.
+   */
+  readonly consume?: boolean;
+}
+
 /** `regions`: the parsed `--passive` file, or null. Throws RhoformError on bad values (exit 2). */
-export function prepareStage(file: InputFile, read: ReadResult, s: Settings, regions: PassiveRegions | null): PreparedField {
+export function prepareStage(file: InputFile, read: ReadResult, s: Settings, regions: PassiveRegions | null, opts: PrepareStageOptions = {}): PreparedField {
+  const inPlace = opts.consume === true && read.ownsValues === true;
   const prep = withFileName(file.name, () =>
-    prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite }),
+    prepareGrid(read.grid, read.locate, { valueRange: s.valueRange, clip: s.clip, nonFinite: s.nonFinite, inPlace }),
   );
   const desc = describeInput(file, read, s, prep.inputStats);
   const planes = s.mirror.length > 0 ? mirrorPlanes(prep.grid, s.mirror) : [];

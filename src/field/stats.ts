@@ -19,9 +19,14 @@ export interface FieldStats {
   readonly greyShare: number;
 }
 
-/** Statistics of the raw values of a grid (before any range mapping). */
-export function fieldStats(grid: DensityGrid): FieldStats {
+/**
+ * Statistics of the raw values of a grid, or with `range` [lo, hi] of the values mapped to (x − lo) / (hi − lo)
+ * as prepare maps them (computed on the fly: no mapped copy of the grid).
+ */
+export function fieldStats(grid: DensityGrid, range?: readonly [number, number]): FieldStats {
   const v = grid.values;
+  const lo = range ? range[0] : 0;
+  const scale = range ? 1 / (range[1] - range[0]) : 1;
   let n = 0;
   let nonFinite = 0;
   let min = Infinity;
@@ -30,7 +35,7 @@ export function fieldStats(grid: DensityGrid): FieldStats {
   let mnd = 0;
   let grey = 0;
   for (let k = 0; k < v.length; k++) {
-    const x = v[k];
+    const x = range ? (v[k] - lo) * scale : v[k];
     if (!Number.isFinite(x)) {
       nonFinite++;
       continue;
@@ -61,14 +66,19 @@ export interface Histogram {
   readonly counts: number[];
 }
 
-/** Histogram of the finite values over [lo, hi] in `bins` equal bins; values outside go to the end bins. */
-export function histogram(grid: DensityGrid, bins = 10, lo = 0, hi = 1): Histogram {
+/**
+ * Histogram of the finite values over [lo, hi] in `bins` equal bins; values outside go to the end bins. With
+ * `range` [a, b], of the values mapped to (x − a) / (b − a) (on the fly, as fieldStats).
+ */
+export function histogram(grid: DensityGrid, bins = 10, lo = 0, hi = 1, range?: readonly [number, number]): Histogram {
   if (!(bins >= 1) || !(hi > lo)) throw new RangeError(`histogram: bad bins ${bins} or range ${lo}..${hi}`);
   const counts = new Array<number>(bins).fill(0);
   const scale = bins / (hi - lo);
+  const a = range ? range[0] : 0;
+  const mapScale = range ? 1 / (range[1] - range[0]) : 1;
   const v = grid.values;
   for (let k = 0; k < v.length; k++) {
-    const x = v[k];
+    const x = range ? (v[k] - a) * mapScale : v[k];
     if (!Number.isFinite(x)) continue;
     let b = Math.floor((x - lo) * scale);
     if (b < 0) b = 0;

@@ -91,5 +91,6 @@ export function readGridLayout(cur: LineCursor, sep: number, ncols: number, opti
     layout: 'grid',
     locate,
     warnings: [],
+    ownsValues: true, // parsed into a fresh array
   };
 }

@@ -230,5 +230,6 @@ export function readLongLayout(
     layout: 'long',
     locate,
     warnings,
+    ownsValues: true, // placed into a fresh array
   };
 }

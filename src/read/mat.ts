@@ -104,7 +104,8 @@ export function readMat(bytes: Uint8Array, options: ReadOptions): ReadResult {
     return { fileRow: r + 1, fileCol: i + 1, where: { byteOffset: dataOffset >= 0 ? dataOffset + (i * rows + r) * size : v.offset } };
   };
   if (!options.field && vars.length > 1) warnings.push(`read the variable ${JSON.stringify(header.name)}; the file holds ${vars.length} variables`);
-  return { grid, format: 'mat', layout: 'grid', locate, warnings };
+  // toGrid never returns a view of the file's bytes
+  return { grid, format: 'mat', layout: 'grid', locate, warnings, ownsValues: true };
 }
 
 /** Checks the 128-byte header; returns true for a little-endian file. */

@@ -8,7 +8,8 @@
  * Two paths give identical results: a typed-array path for little-endian data on a little-endian host
  * (rows copied with `TypedArray.set`, which converts element types natively; f8 C-order rows are plain
  * byte copies, so any data offset works; aligned f8 C-order data stored bottom row first is returned as a
- * view of `bytes`, without a copy) and a general DataView path for everything else.
+ * view of `bytes`, without a copy — and so is top-down data when the caller lets the decoder consume `bytes`:
+ * the rows are then swapped in place) and a general DataView path for everything else.
  * Non-finite values are kept as they are (NaN, ±Infinity); booleans become 0/1; 64-bit integers are
  * rounded to the nearest float64 (exact below 2^53).
  */
@@ -28,13 +29,25 @@ export type NpyDecodePath = 'auto' | 'general';
 
 const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
+/** Grid values, and whether they are a view of the file's bytes (shared memory) rather than a fresh array. */
+export interface NpyValues {
+  readonly values: Float64Array;
+  readonly view: boolean;
+}
+
 /**
  * Decodes rows × cols elements into grid order. The caller has checked that the data fit in `bytes`.
  * @param topDown true: array row 0 is the top grid row (j = rows − 1); false: it is the bottom row.
+ * @param consume true: the caller hands `bytes` over, and the decoder may rearrange them in place (only the
+ *   data; the header is left as it is) to return a view instead of a copy.
  */
-export function decodeNpyData(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, path: NpyDecodePath = 'auto'): Float64Array {
+export function decodeNpyData(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, path: NpyDecodePath = 'auto', consume = false): NpyValues {
   const { dtype } = layout;
   const typed = path === 'auto' && HOST_LITTLE_ENDIAN && dtype.littleEndian && !(dtype.kind === 'i' && dtype.size === 8) && !(dtype.kind === 'u' && dtype.size === 8);
+  if (typed) {
+    const view = viewF8(bytes, layout, topDown, consume);
+    if (view !== null) return { values: view, view: true };
+  }
   const out = typed ? decodeTyped(bytes, layout, topDown) : decodeGeneral(bytes, layout, topDown);
   if (dtype.kind === 'f' && dtype.size === 2) {
     const half = halfTable();
@@ -42,7 +55,7 @@ export function decodeNpyData(bytes: Uint8Array, layout: NpyDataLayout, topDown:
   } else if (dtype.kind === 'b') {
     for (let k = 0; k < out.length; k++) out[k] = out[k] !== 0 ? 1 : 0;
   }
-  return out;
+  return { values: out, view: false };
 }
 
 type TypedCtor = Float64ArrayConstructor | Float32ArrayConstructor | Int8ArrayConstructor | Int16ArrayConstructor | Int32ArrayConstructor | Uint8ArrayConstructor | Uint16ArrayConstructor | Uint32ArrayConstructor;
@@ -61,14 +74,33 @@ function ctorOf(dtype: NpyDtype): TypedCtor {
   }
 }
 
+/**
+ * Little-endian f8 in C order, 8-byte aligned: a Float64Array view of the data, or null. Stored bottom row first,
+ * the bytes are already the grid; stored top row first, they become the grid when the rows are swapped in place,
+ * which only a decoder that may consume `bytes` does.
+ */
+function viewF8(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, consume: boolean): Float64Array | null {
+  const { dtype, dataOffset, rows, cols, fortranOrder } = layout;
+  const abs = bytes.byteOffset + dataOffset;
+  if (!(dtype.kind === 'f' && dtype.size === 8 && !fortranOrder && abs % 8 === 0) || (topDown && !consume)) return null;
+  const view = new Float64Array(bytes.buffer as ArrayBuffer, abs, rows * cols);
+  if (topDown) {
+    const row = new Float64Array(cols);
+    for (let a = 0, b = rows - 1; a < b; a++, b--) {
+      const ra = view.subarray(a * cols, (a + 1) * cols);
+      row.set(ra);
+      view.copyWithin(a * cols, b * cols, (b + 1) * cols);
+      view.set(row, b * cols);
+    }
+  }
+  return view;
+}
+
 function decodeTyped(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean): Float64Array {
   const { dtype, dataOffset, rows, cols, fortranOrder } = layout;
   const n = rows * cols;
   const size = dtype.size;
   const abs = bytes.byteOffset + dataOffset;
-  // f8 in C order, bottom row first, 8-byte aligned: the file's bytes are already the grid — a view, no copy.
-  // The values then share memory with `bytes`; no stage writes into a grid's values (prepare writes a new array).
-  if (dtype.kind === 'f' && size === 8 && !fortranOrder && !topDown && abs % 8 === 0) return new Float64Array(bytes.buffer as ArrayBuffer, abs, n);
   const out = new Float64Array(n);
   if (dtype.kind === 'f' && size === 8 && !fortranOrder) {
     // byte copies: no alignment needed, no per-element work

@@ -25,6 +25,9 @@ import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
  * `options.values`. Values are not mapped or clipped: NaN and ±Infinity stay as they are, booleans
  * become 0/1, integers become float64 (64-bit integers rounded to the nearest double above 2^53).
  *
+ * With `options.consumeBytes`, aligned little-endian f8 C-order data are flipped into grid order inside `bytes`
+ * and viewed there (no copy); `bytes` then no longer hold the file as it was.
+ *
  * `locate(i, j)` gives the 1-based array row and column as numpy shows the 2-D array, and the byte
  * offset of that element in the file (Fortran order accounted for).
  *
@@ -71,7 +74,8 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
   }
   if (have > need) warnings.push(`${have - need} bytes after the array data (from byte ${header.dataOffset + need}) were ignored`);
 
-  const values = decodeNpyData(bytes, { dtype, dataOffset: header.dataOffset, rows, cols, fortranOrder: header.fortranOrder }, topDown, path);
+  const consume = options.consumeBytes === true;
+  const { values, view } = decodeNpyData(bytes, { dtype, dataOffset: header.dataOffset, rows, cols, fortranOrder: header.fortranOrder }, topDown, path, consume);
   const grid: DensityGrid = { nx: cols, ny: rows, cellSize: [hx, hy], origin: [0, 0], values, placement: options.values };
 
   const { dataOffset, fortranOrder } = header;
@@ -85,7 +89,7 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
     const k = fortranOrder ? i * rows + r : r * cols + i;
     return { fileRow: r + 1, fileCol: i + 1, where: { byteOffset: dataOffset + k * size } };
   };
-  return { grid, format: 'npy', layout: 'grid', locate, warnings };
+  return { grid, format: 'npy', layout: 'grid', locate, warnings, ownsValues: !view || consume };
 }
 
 

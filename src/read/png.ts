@@ -105,7 +105,7 @@ export function readPng(bytes: Uint8Array, options: ReadOptions): ReadResult {
     const r = topDown ? height - 1 - j : j;
     return { fileRow: r + 1, fileCol: i + 1, where: { line: r + 1, col: i + 1 } };
   };
-  return { grid, format: 'png', layout: 'grid', locate, warnings };
+  return { grid, format: 'png', layout: 'grid', locate, warnings, ownsValues: true }; // densities() fills a fresh array
 }
 
 /**

@@ -27,6 +27,12 @@ export interface ReadOptions {
   readonly imageSolid?: 'dark' | 'light';
   /** PNG: the channel of a colour image to read (`--image-channel`); colour images are refused without it. */
   readonly imageChannel?: 'luminance' | 'r' | 'g' | 'b' | null;
+  /**
+   * The caller hands the file's bytes over (it will not read them again): a reader may rearrange them in place
+   * and return a view of them as the grid's values instead of a copy (NPY: aligned little-endian f8 in C order).
+   * Absent or false: the bytes are never written.
+   */
+  readonly consumeBytes?: boolean;
 }
 
 export const DEFAULT_READ_OPTIONS: ReadOptions = {
@@ -58,4 +64,16 @@ export interface ReadResult {
   readonly warnings: readonly string[];
   /** Where the grid's cell size came from: the options (default), or the file itself (VTK spacing). */
   readonly cellSizeSource?: 'options' | 'file';
+  /**
+   * True when `grid.values` belong to this result alone: a reader's fresh array, or a view of bytes the caller
+   * handed over (`consumeBytes`). Whoever holds the result may then overwrite them (prepare in place, the
+   * `consume` option of prepareStage). Absent or false: they may share memory with the caller's bytes (a
+   * zero-copy view of an NPY file) and must never be written.
+   */
+  readonly ownsValues?: boolean;
+  /**
+   * SHA-256 (hex) of the file's bytes as read, taken by loadGrid before any reader could change them (the
+   * report's `input.sha256`); absent from a bare reader's result, when describeInput hashes the bytes itself.
+   */
+  readonly sha256?: string;
 }

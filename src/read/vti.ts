@@ -187,7 +187,8 @@ export function readVti(bytes: Uint8Array, options: ReadOptions): ReadResult {
     return { fileRow: j + 1, fileCol: i + 1, where: locateAt(j * geo.cols + i) };
   };
   if (!options.field && list.length > 1) warnings.push(`read the array ${JSON.stringify(chosen.name)} (${chosen.label}); the file holds ${list.length} arrays`);
-  return { grid, format: 'vti', layout: 'grid', locate, warnings, cellSizeSource: geo.cellSizeSource };
+  // toGrid never returns a view of the file's bytes
+  return { grid, format: 'vti', layout: 'grid', locate, warnings, cellSizeSource: geo.cellSizeSource, ownsValues: true };
 }
 
 function ints(el: XmlElement, attr: string, n: number, where: (o: number) => Where): number[] {

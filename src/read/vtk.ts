@@ -239,7 +239,8 @@ export function readVtk(bytes: Uint8Array, options: ReadOptions): ReadResult {
     return { fileRow: j + 1, fileCol: i + 1, where: at };
   };
   if (!options.field && cands.length > 1) warnings.push(`read the array ${JSON.stringify(chosen.name)} (${chosen.label}); the file holds ${cands.length} arrays`);
-  return { grid, format: 'vtk', layout: 'grid', locate, warnings, cellSizeSource: geo.cellSizeSource };
+  // toGrid never returns a view of the file's bytes
+  return { grid, format: 'vtk', layout: 'grid', locate, warnings, cellSizeSource: geo.cellSizeSource, ownsValues: true };
 }
 
 registerReader('vtk', readVtk);
