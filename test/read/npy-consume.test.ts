@@ -1,0 +1,125 @@
+/**
+ * Handing the file's bytes over (`consumeBytes`, `InputFile.consumable`): the NPY reader flips aligned
+ * little-endian f8 C-order rows inside the caller's buffer and returns a view of it; everything else is read as
+ * before. Expected values are numpy 2.4's (fixtures/npy/manifest.json, fixtures/make/make_npy_fixtures.py).
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { loadGrid } from '../../src/input.js';
+import { readNpy, readNpyWith } from '../../src/read/npy.js';
+import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { resolveSettings } from '../../src/settings.js';
+
+interface OkEntry {
+  file: string;
+  descr: string;
+  fortran: boolean;
+  rows: number;
+  cols: number;
+  dataOffset: number;
+  values: (number | string)[];
+}
+
+const DIR = new URL('../../fixtures/npy/', import.meta.url);
+const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { ok: OkEntry[] };
+const load = (file: string): Uint8Array => new Uint8Array(readFileSync(new URL(file, DIR)));
+const num = (v: number | string): number => (typeof v === 'number' ? v : Number(v));
+const opts = (o: Partial<ReadOptions> = {}): ReadOptions => ({ ...DEFAULT_READ_OPTIONS, ...o });
+
+/** numpy's row-major values (top row first) in grid order. */
+function expectedGrid(e: OkEntry, topDown: boolean): number[] {
+  const out = new Array<number>(e.rows * e.cols);
+  for (let r = 0; r < e.rows; r++) {
+    const j = topDown ? e.rows - 1 - r : r;
+    for (let c = 0; c < e.cols; c++) out[j * e.cols + c] = num(e.values[r * e.cols + c]);
+  }
+  return out;
+}
+
+/** Little-endian f8 in C order at an 8-byte aligned offset: the case read in place. */
+const inPlaceCase = (e: OkEntry): boolean => e.descr === '<f8' && !e.fortran && e.dataOffset % 8 === 0;
+
+describe('readNpy with consumeBytes', () => {
+  it('covers files read in place and files copied (the matrix has aligned <f8 C order and others)', () => {
+    expect(manifest.ok.filter(inPlaceCase).length).toBeGreaterThanOrEqual(3);
+    expect(manifest.ok.filter((e) => !inPlaceCase(e)).length).toBeGreaterThanOrEqual(3);
+  });
+
+  for (const e of manifest.ok) {
+    it(`reads ${e.file} (${e.descr}, ${e.fortran ? 'F' : 'C'}) as numpy does, and owns its values`, () => {
+      for (const rowOrder of ['top-down', 'bottom-up'] as const) {
+        const bytes = load(e.file);
+        const res = readNpy(bytes, opts({ rowOrder, consumeBytes: true }));
+        // numpy 2.4 values, -0, NaN and ±Infinity kept (toEqual uses Object.is)
+        expect(Array.from(res.grid.values)).toEqual(expectedGrid(e, rowOrder === 'top-down'));
+        expect(res.ownsValues).toBe(true);
+        const view = res.grid.values.buffer === bytes.buffer;
+        expect(view).toBe(inPlaceCase(e));
+        if (view) expect(res.grid.values.byteOffset).toBe(bytes.byteOffset + e.dataOffset);
+        // the header is left as it is: locate still reads numpy's offsets from it
+        expect(res.locate(0, rowOrder === 'top-down' ? e.rows - 1 : 0).where.byteOffset).toBe(e.dataOffset);
+      }
+    });
+  }
+
+  it('swaps every row pair of an odd and an even row count in place (the middle row stays)', () => {
+    // m-f8-le-C-v1.npy and big-endian-f8's shapes differ; a hand-made odd count checks the middle row
+    for (const rows of [1, 2, 3, 7]) {
+      const cols = 3;
+      const header = "{'descr': '<f8', 'fortran_order': False, 'shape': (" + rows + ', ' + cols + '), }';
+      const pad = 64 - ((10 + header.length + 1) % 64);
+      const head = header + ' '.repeat(pad) + '\n';
+      const bytes = new Uint8Array(10 + head.length + rows * cols * 8);
+      bytes.set([0x93, 0x4e, 0x55, 0x4d, 0x50, 0x59, 1, 0, head.length & 0xff, head.length >> 8]);
+      for (let k = 0; k < head.length; k++) bytes[10 + k] = head.charCodeAt(k);
+      const data = new Float64Array(bytes.buffer, 10 + head.length, rows * cols);
+      for (let k = 0; k < data.length; k++) data[k] = k; // array row r holds r·cols … r·cols + cols − 1
+      const res = readNpy(bytes, opts({ consumeBytes: true }));
+      expect(res.grid.values.buffer).toBe(bytes.buffer);
+      for (let j = 0; j < rows; j++) {
+        const r = rows - 1 - j; // top-down: grid row j is array row rows − 1 − j (NEP 1 row-major order)
+        expect(Array.from(res.grid.values.subarray(j * cols, (j + 1) * cols))).toEqual([r * cols, r * cols + 1, r * cols + 2]);
+      }
+    }
+  });
+
+  it('without consumeBytes never writes the bytes, and says when the values are a view of them', () => {
+    for (const e of manifest.ok) {
+      for (const rowOrder of ['top-down', 'bottom-up'] as const) {
+        const bytes = load(e.file);
+        const before = Uint8Array.from(bytes);
+        const res = readNpy(bytes, opts({ rowOrder }));
+        expect(bytes).toEqual(before);
+        const view = res.grid.values.buffer === bytes.buffer;
+        // only the zero-copy view of bottom-up aligned <f8 C-order data shares memory with the caller
+        expect(view).toBe(inPlaceCase(e) && rowOrder === 'bottom-up');
+        expect(res.ownsValues).toBe(!view);
+      }
+    }
+  });
+
+  it("the general (DataView) path ignores consumeBytes: a copy, the caller's bytes untouched", () => {
+    const e = manifest.ok.find(inPlaceCase)!;
+    const bytes = load(e.file);
+    const before = Uint8Array.from(bytes);
+    const res = readNpyWith(bytes, opts({ consumeBytes: true }), 'general');
+    expect(Array.from(res.grid.values)).toEqual(expectedGrid(e, true));
+    expect(res.grid.values.buffer).not.toBe(bytes.buffer);
+    expect(bytes).toEqual(before);
+  });
+});
+
+describe('loadGrid with a consumable input', () => {
+  it("reports the SHA-256 of the file as read, though its rows were flipped in place", () => {
+    const bytes = new Uint8Array(readFileSync(new URL('../../fixtures/grids/realistic-cantilever-100x50.npy', import.meta.url)));
+    const before = Uint8Array.from(bytes);
+    const read = loadGrid({ name: 'c.npy', bytes, consumable: true }, resolveSettings({}));
+    // `sha256sum fixtures/grids/realistic-cantilever-100x50.npy` (GNU coreutils 9)
+    expect(read.sha256).toBe('5d5ced1da6397385f2ff2e7e8f97ebd1bc3a97b1634e519293c90a74c7a9b062');
+    expect(read.grid.values.buffer).toBe(bytes.buffer);
+    expect(bytes).not.toEqual(before); // the rows were swapped inside the buffer
+    const copy = loadGrid({ name: 'c.npy', bytes: before }, resolveSettings({}));
+    expect(copy.sha256).toBe(read.sha256);
+    expect(Array.from(read.grid.values)).toEqual(Array.from(copy.grid.values));
+  });
+});
