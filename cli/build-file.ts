@@ -12,7 +12,7 @@ import { build } from '../src/pipeline.js';
 import { formatJson } from '../src/report/json.js';
 import type { OutputFormat, Settings } from '../src/settings.js';
 import type { Report } from '../src/types.js';
-import { readGridInput, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
+import { readGridFile, readInput, writeOutputsAtomically, type PlannedOutput } from './files.js';
 import { displayPath, reportExitCode } from './io.js';
 import { outputNames } from './output-names.js';
 import { htmlFormatter, loadsParserLoaded } from './prepare.js';
@@ -70,13 +70,13 @@ export function buildFile(
 } {
   const inputPath = resolve(opts.cwd, opts.file);
   const name = opts.name ?? opts.file;
-  const bytes = readGridInput(inputPath, name, settings.maxCells);
+  const { bytes, room } = readGridFile(inputPath, name, settings.maxCells);
   const passivePath = settings.passive === null ? null : (opts.passivePath ?? resolve(opts.cwd, settings.passive));
   const passive = passivePath === null || settings.passive === null ? null : readPassive(passivePath, settings.passive);
   const loadsPath = settings.loads === null ? null : (opts.loadsPath ?? resolve(opts.cwd, settings.loads));
   const loads = loadsPath === null || settings.loads === null ? null : readLoads(loadsPath, settings.loads);
-  // The buffer is this function's own and is not read again: the build may flip an NPY file's rows inside it.
-  const result = build({ name, bytes, consumable: true }, settings, { passive, loads });
+  // The buffer is this function's own and is not read again: the build may flip (and widen) an NPY file's data inside it.
+  const result = build({ name, bytes, consumable: true, room }, settings, { passive, loads });
   const report = result.report;
   const formats: OutputFormat[] = opts.writeGeometry ? settings.formats : settings.formats.filter((f) => f === 'json' || f === 'html');
   const base = join(resolve(opts.cwd, opts.outDir), stem(opts.file));

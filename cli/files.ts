@@ -27,6 +27,7 @@ import {
 import { basename, dirname, join, resolve } from 'node:path';
 import { RhoformError } from '../src/errors.js';
 import { maxGridBytes } from '../src/read/byte-limit.js';
+import { npyInPlaceBytes } from '../src/read/npy.js';
 
 /** Largest side file (passive regions, loads, batch summaries) read whole, bytes. */
 export const MAX_SIDE_FILE_BYTES = 256 << 20;
@@ -65,16 +66,19 @@ function openRegular(path: string, name: string, what: string): number {
   return fd;
 }
 
-/** Reads up to `n` bytes from the start of `fd` (fewer at the end of the file). */
-function readUpTo(fd: number, n: number): Uint8Array {
-  const buf = Buffer.allocUnsafeSlow(n); // not pooled: byte offset 0, so typed-array views of the data stay aligned
+/**
+ * Reads up to `n` bytes from the start of `fd` (fewer at the end of the file), into a buffer of at least
+ * `capacity` bytes (the rest is left for the reader to use: npyInPlaceBytes; never touched, so never paid for).
+ */
+function readUpTo(fd: number, n: number, capacity = 0): Uint8Array {
+  const buf = Buffer.allocUnsafeSlow(Math.max(n, capacity)); // not pooled: byte offset 0, so typed-array views of the data stay aligned
   let got = 0;
   while (got < n) {
     const k = readSync(fd, buf, got, n - got, got);
     if (k === 0) break;
     got += k;
   }
-  return got === n ? buf : buf.subarray(0, got);
+  return got === buf.length ? buf : buf.subarray(0, got);
 }
 
 function tooLarge(name: string, what: string, size: number, max: number, why: string): RhoformError {
@@ -85,7 +89,7 @@ function tooLarge(name: string, what: string, size: number, max: number, why: st
  * Reads a regular file whole, refusing anything else by what it is (directory, FIFO, device, socket) and a file
  * larger than `maxBytes` before reading it (`why` says where the bound comes from). Errors name `name`.
  */
-export function readInput(path: string, name = path, opts: { maxBytes?: number; why?: string; what?: string } = {}): Uint8Array {
+export function readInput(path: string, name = path, opts: { maxBytes?: number; why?: string; what?: string; capacity?: number } = {}): Uint8Array {
   const what = opts.what ?? 'input';
   const maxBytes = opts.maxBytes ?? MAX_SIDE_FILE_BYTES;
   let fd: number | null = null;
@@ -94,7 +98,7 @@ export function readInput(path: string, name = path, opts: { maxBytes?: number; 
     const size = fstatSync(fd).size;
     if (size > maxBytes) throw tooLarge(name, what, size, maxBytes, opts.why ?? 'a file of this kind');
     // One byte more than the bound: a file that grew while being read is refused too.
-    const bytes = readUpTo(fd, Math.min(maxBytes, Math.max(size, 0)) + 1);
+    const bytes = readUpTo(fd, Math.min(maxBytes, Math.max(size, 0)) + 1, opts.capacity);
     if (bytes.length > maxBytes) throw tooLarge(name, what, bytes.length, maxBytes, opts.why ?? 'a file of this kind');
     return bytes;
   } catch (e) {
@@ -117,24 +121,45 @@ export function readHead(path: string, n: number): Uint8Array | null {
   }
 }
 
+/** Largest NPY header read ahead to size the buffer (numpy writes 128 bytes for a 2-D array). */
+const NPY_HEAD_BYTES = 1 << 16;
+
 /**
  * Reads a grid file: a regular file whose size fits `maxCells` samples (src/read/byte-limit.ts — NPY from its
  * declared header length and 8 bytes a sample, text at a generous 128 bytes a sample), judged from its first
- * bytes before the rest is read.
+ * bytes before the rest is read. The buffer is this process's own (never pooled), and for NPY f4 data it has
+ * `room` bytes after the file so that a build given `{ consumable: true, room }` widens them in place.
  */
-export function readGridInput(path: string, name: string, maxCells: number): Uint8Array {
+export function readGridFile(path: string, name: string, maxCells: number): { bytes: Uint8Array; room: number } {
   let head: Uint8Array;
   let fd: number | null = null;
   try {
     fd = openRegular(path, name, 'input');
     head = readUpTo(fd, 16);
+    const end = npyHeaderEnd(head);
+    if (end > head.length && end <= NPY_HEAD_BYTES) head = readUpTo(fd, end);
   } catch (e) {
     throw readError(e, name, 'input');
   } finally {
     if (fd !== null) closeSync(fd);
   }
   const max = maxGridBytes(head, name, maxCells);
-  return readInput(path, name, { maxBytes: max, why: `for --max-cells ${maxCells}` });
+  const capacity = npyInPlaceBytes(head, maxCells);
+  const bytes = readInput(path, name, { maxBytes: max, why: `for --max-cells ${maxCells}`, capacity });
+  return { bytes, room: Math.max(0, capacity - bytes.length) };
+}
+
+/** readGridFile's bytes. */
+export function readGridInput(path: string, name: string, maxCells: number): Uint8Array {
+  return readGridFile(path, name, maxCells).bytes;
+}
+
+/** Where an NPY file's data start, from its first 12 bytes (NEP 1 preamble); 0 when they are not an NPY preamble. */
+function npyHeaderEnd(head: Uint8Array): number {
+  const magic = [0x93, 0x4e, 0x55, 0x4d, 0x50, 0x59];
+  if (head.length < 12 || !magic.every((b, k) => head[k] === b)) return 0;
+  const dv = new DataView(head.buffer, head.byteOffset, head.byteLength);
+  return head[6] === 1 ? 10 + dv.getUint16(8, true) : 12 + dv.getUint32(8, true);
 }
 
 function canonical(path: string): string {

@@ -19,11 +19,17 @@ export interface InputFile {
    * Absent or false (the default): `bytes` are never written.
    */
   readonly consumable?: boolean;
+  /**
+   * With `consumable`: bytes of `bytes.buffer` right after `bytes` that the caller hands over too (default 0), so
+   * that an NPY file's f4 data can be widened to f8 where they are (src/read/npy.ts npyInPlaceBytes).
+   */
+  readonly room?: number;
 }
 
-function readOptions(s: Settings, consumeBytes: boolean): ReadOptions {
+function readOptions(s: Settings, consumeBytes: boolean, room: number): ReadOptions {
   return {
     consumeBytes,
+    room,
     cellSize: s.cellSize,
     rowOrder: s.rowOrder,
     values: s.values,
@@ -43,7 +49,7 @@ function readOptions(s: Settings, consumeBytes: boolean): ReadOptions {
  */
 export function loadGrid(input: InputFile, s: Settings): ReadResult {
   const hash = sha256(input.bytes);
-  const read = readGrid(input.bytes, input.name, readOptions(s, input.consumable === true));
+  const read = readGrid(input.bytes, input.name, readOptions(s, input.consumable === true, input.consumable === true ? (input.room ?? 0) : 0));
   const g = read.grid;
   if (g.placement === 'nodes' && (g.nx < 2 || g.ny < 2)) {
     throw new RhoformError('E_GRID_SIZE', `expected at least 2×2 nodal values (--values nodes), found ${g.ny}×${g.nx}`, {

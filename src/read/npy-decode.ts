@@ -9,7 +9,8 @@
  * (rows copied with `TypedArray.set`, which converts element types natively; f8 C-order rows are plain
  * byte copies, so any data offset works; aligned f8 C-order data stored bottom row first is returned as a
  * view of `bytes`, without a copy — and so is top-down data when the caller lets the decoder consume `bytes`:
- * the rows are then swapped in place) and a general DataView path for everything else.
+ * the rows are then swapped in place; aligned f4 C-order data are widened to f8 in place when the caller's
+ * buffer has room for them after the file, see npyInPlaceBytes) and a general DataView path for everything else.
  * Non-finite values are kept as they are (NaN, ±Infinity); booleans become 0/1; 64-bit integers are
  * rounded to the nearest float64 (exact below 2^53).
  */
@@ -40,12 +41,13 @@ export interface NpyValues {
  * @param topDown true: array row 0 is the top grid row (j = rows − 1); false: it is the bottom row.
  * @param consume true: the caller hands `bytes` over, and the decoder may rearrange them in place (only the
  *   data; the header is left as it is) to return a view instead of a copy.
+ * @param room with `consume`: bytes of `bytes.buffer` right after `bytes` that the decoder may use as well.
  */
-export function decodeNpyData(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, path: NpyDecodePath = 'auto', consume = false): NpyValues {
+export function decodeNpyData(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, path: NpyDecodePath = 'auto', consume = false, room = 0): NpyValues {
   const { dtype } = layout;
   const typed = path === 'auto' && HOST_LITTLE_ENDIAN && dtype.littleEndian && !(dtype.kind === 'i' && dtype.size === 8) && !(dtype.kind === 'u' && dtype.size === 8);
   if (typed) {
-    const view = viewF8(bytes, layout, topDown, consume);
+    const view = viewF8(bytes, layout, topDown, consume) ?? (consume ? widenF4(bytes, layout, topDown, room) : null);
     if (view !== null) return { values: view, view: true };
   }
   const out = typed ? decodeTyped(bytes, layout, topDown) : decodeGeneral(bytes, layout, topDown);
@@ -84,16 +86,37 @@ function viewF8(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, cons
   const abs = bytes.byteOffset + dataOffset;
   if (!(dtype.kind === 'f' && dtype.size === 8 && !fortranOrder && abs % 8 === 0) || (topDown && !consume)) return null;
   const view = new Float64Array(bytes.buffer as ArrayBuffer, abs, rows * cols);
-  if (topDown) {
-    const row = new Float64Array(cols);
-    for (let a = 0, b = rows - 1; a < b; a++, b--) {
-      const ra = view.subarray(a * cols, (a + 1) * cols);
-      row.set(ra);
-      view.copyWithin(a * cols, b * cols, (b + 1) * cols);
-      view.set(row, b * cols);
-    }
-  }
+  if (topDown) swapRows(view, rows, cols);
   return view;
+}
+
+/**
+ * Little-endian f4 in C order, 8-byte aligned, when `bytes` and the `room` after them hold 8 bytes a sample from
+ * the data offset: the values widened to f8 where they are, from the last to the first (value k is written over
+ * the f4 values 2k and 2k + 1, which are read by then), then the rows swapped when stored top row first.
+ * Otherwise null.
+ */
+function widenF4(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean, room: number): Float64Array | null {
+  const { dtype, dataOffset, rows, cols, fortranOrder } = layout;
+  const n = rows * cols;
+  const abs = bytes.byteOffset + dataOffset;
+  const fits = dataOffset + 8 * n <= bytes.length + room && abs + 8 * n <= bytes.buffer.byteLength;
+  if (!(dtype.kind === 'f' && dtype.size === 4 && !fortranOrder && abs % 8 === 0 && fits)) return null;
+  const narrow = new Float32Array(bytes.buffer as ArrayBuffer, abs, n);
+  const wide = new Float64Array(bytes.buffer as ArrayBuffer, abs, n);
+  for (let k = n - 1; k >= 0; k--) wide[k] = narrow[k];
+  if (topDown) swapRows(wide, rows, cols);
+  return wide;
+}
+
+/** Reverses the order of the rows of a rows × cols array in place. */
+function swapRows(values: Float64Array, rows: number, cols: number): void {
+  const row = new Float64Array(cols);
+  for (let a = 0, b = rows - 1; a < b; a++, b--) {
+    row.set(values.subarray(a * cols, (a + 1) * cols));
+    values.copyWithin(a * cols, b * cols, (b + 1) * cols);
+    values.set(row, b * cols);
+  }
 }
 
 function decodeTyped(bytes: Uint8Array, layout: NpyDataLayout, topDown: boolean): Float64Array {

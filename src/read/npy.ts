@@ -26,7 +26,8 @@ import type { ReadOptions, ReadResult, SamplePosition } from './types.js';
  * become 0/1, integers become float64 (64-bit integers rounded to the nearest double above 2^53).
  *
  * With `options.consumeBytes`, aligned little-endian f8 C-order data are flipped into grid order inside `bytes`
- * and viewed there (no copy); `bytes` then no longer hold the file as it was.
+ * and viewed there (no copy), and so are f4 data, widened to f8 in place, when `options.room` leaves space for
+ * them (npyInPlaceBytes); `bytes` then no longer hold the file as it was.
  *
  * `locate(i, j)` gives the 1-based array row and column as numpy shows the 2-D array, and the byte
  * offset of that element in the file (Fortran order accounted for).
@@ -75,7 +76,7 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
   if (have > need) warnings.push(`${have - need} bytes after the array data (from byte ${header.dataOffset + need}) were ignored`);
 
   const consume = options.consumeBytes === true;
-  const { values, view } = decodeNpyData(bytes, { dtype, dataOffset: header.dataOffset, rows, cols, fortranOrder: header.fortranOrder }, topDown, path, consume);
+  const { values, view } = decodeNpyData(bytes, { dtype, dataOffset: header.dataOffset, rows, cols, fortranOrder: header.fortranOrder }, topDown, path, consume, options.room ?? 0);
   const grid: DensityGrid = { nx: cols, ny: rows, cellSize: [hx, hy], origin: [0, 0], values, placement: options.values };
 
   const { dataOffset, fortranOrder } = header;
@@ -92,6 +93,26 @@ export function readNpyWith(bytes: Uint8Array, options: ReadOptions, path: NpyDe
   return { grid, format: 'npy', layout: 'grid', locate, warnings, ownsValues: !view || consume };
 }
 
+/**
+ * How many bytes, from the start of an NPY file, a buffer needs so that readNpy with `consumeBytes` widens its
+ * data to f8 in place: the data offset plus 8 bytes a sample, for little-endian f4 in C order at an 8-byte
+ * aligned offset (the buffer itself starting 8-byte aligned). 0 when the file's own bytes suffice (f8), when its
+ * data are converted into a new array anyway, when it has more than `maxCells` samples, or when `head` (the
+ * file's first bytes, the whole header) cannot be read: the reader reports those. A caller that reads the file
+ * into a buffer this large passes the bytes after the file as `room`.
+ */
+export function npyInPlaceBytes(head: Uint8Array, maxCells: number): number {
+  try {
+    const header = parseNpyHeader(head);
+    const dtype = parseNpyDtype(header.descr, { byteOffset: header.descrOffset });
+    const count = header.shape.reduce((a, b) => a * b, 1);
+    const f4 = dtype.kind === 'f' && dtype.size === 4 && dtype.littleEndian;
+    if (!f4 || header.fortranOrder || header.dataOffset % 8 !== 0 || !(count > 0 && count <= maxCells)) return 0;
+    return header.dataOffset + 8 * count;
+  } catch {
+    return 0;
+  }
+}
 
 /** (rows, cols) of a 2-D array, or of a 3-D array squeezed along its one unit axis. */
 function gridShape(shape: readonly number[], byteOffset: number, warnings: string[]): { rows: number; cols: number } {

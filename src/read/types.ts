@@ -33,6 +33,11 @@ export interface ReadOptions {
    * Absent or false: the bytes are never written.
    */
   readonly consumeBytes?: boolean;
+  /**
+   * With `consumeBytes`: this many bytes of the same ArrayBuffer right after the file's bytes are the caller's
+   * too and may be used (NPY f4 data widened to f8 in place; npyInPlaceBytes says how many). Default 0.
+   */
+  readonly room?: number;
 }
 
 export const DEFAULT_READ_OPTIONS: ReadOptions = {

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { loadGrid } from '../../src/input.js';
-import { readNpy, readNpyWith } from '../../src/read/npy.js';
+import { npyInPlaceBytes, readNpy, readNpyWith } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
 import { resolveSettings } from '../../src/settings.js';
 
@@ -107,6 +107,52 @@ describe('readNpy with consumeBytes', () => {
     expect(res.grid.values.buffer).not.toBe(bytes.buffer);
     expect(bytes).toEqual(before);
   });
+});
+
+/** Little-endian f4 in C order at an 8-byte aligned offset: widened in place when the buffer has room. */
+const widenCase = (e: OkEntry): boolean => e.descr === '<f4' && !e.fortran && e.dataOffset % 8 === 0;
+
+describe('readNpy with consumeBytes and room: f4 widened to f8 in place', () => {
+  it('npyInPlaceBytes asks for 8 bytes a sample after the header for aligned <f4 C order only', () => {
+    let widened = 0;
+    for (const e of manifest.ok) {
+      const bytes = load(e.file);
+      const want = widenCase(e) ? e.dataOffset + 8 * e.rows * e.cols : 0;
+      expect(npyInPlaceBytes(bytes, 1e9)).toBe(want);
+      if (want > 0) widened++;
+    }
+    expect(widened).toBeGreaterThanOrEqual(2);
+    const f4 = manifest.ok.find(widenCase)!;
+    expect(npyInPlaceBytes(load(f4.file), f4.rows * f4.cols - 1)).toBe(0); // more samples than maxCells
+    expect(npyInPlaceBytes(load(f4.file).subarray(0, 20), 1e9)).toBe(0); // a header cut short
+    expect(npyInPlaceBytes(new TextEncoder().encode('0.5,0.5\n'), 1e9)).toBe(0); // not NPY
+  });
+
+  for (const e of manifest.ok.filter(widenCase)) {
+    it(`widens ${e.file} in place to numpy's values, both row orders`, () => {
+      for (const rowOrder of ['top-down', 'bottom-up'] as const) {
+        const file = load(e.file);
+        const capacity = npyInPlaceBytes(file, 1e9);
+        const buffer = new Uint8Array(capacity);
+        buffer.set(file);
+        const bytes = buffer.subarray(0, file.length);
+        const res = readNpy(bytes, opts({ rowOrder, consumeBytes: true, room: capacity - file.length }));
+        expect(res.grid.values.buffer).toBe(buffer.buffer);
+        expect(res.grid.values.byteOffset).toBe(e.dataOffset);
+        expect(res.ownsValues).toBe(true);
+        // numpy 2.4: a.astype(float64) (f4 → f8 is exact)
+        expect(Array.from(res.grid.values)).toEqual(expectedGrid(e, rowOrder === 'top-down'));
+        // with a byte too little room, or without consumeBytes, the values are a new array and the bytes as read
+        for (const o of [{ consumeBytes: true, room: capacity - file.length - 1 }, { room: capacity - file.length }]) {
+          const again = Uint8Array.from(file);
+          const copy = readNpy(again, opts({ rowOrder, ...o }));
+          expect(copy.grid.values.buffer).not.toBe(again.buffer);
+          expect(again).toEqual(file);
+          expect(Array.from(copy.grid.values)).toEqual(expectedGrid(e, rowOrder === 'top-down'));
+        }
+      }
+    });
+  }
 });
 
 describe('loadGrid with a consumable input', () => {
