@@ -20,6 +20,11 @@ export interface CellRangeHistogram {
   /** mm² of the cells whose smallest (largest) corner value is in bin ⌊(v − gmin)·bins/(gmax − gmin)⌋; empty when the range is. */
   readonly minHist: Float64Array;
   readonly maxHist: Float64Array;
+  /** The cells (not their area) binned the same way: they bound the cells a bracket packs (bandCellBound). */
+  readonly minCount: Int32Array;
+  readonly maxCount: Int32Array;
+  /** All cells of the lattice. */
+  readonly cells: number;
 }
 
 export interface PackedBand {
@@ -93,16 +98,18 @@ function valueBounds(grid: DensityGrid): [number, number] {
 
 /** One pass. `bounds`: the sample range when the caller knows it (finite grids), saving a pass. */
 export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: readonly [number, number]): CellRangeHistogram {
-  if (!gridLattice(grid)) return { gmin: 0, gmax: 0, total: 0, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
+  const none = { minHist: new Float64Array(0), maxHist: new Float64Array(0), minCount: new Int32Array(0), maxCount: new Int32Array(0) };
+  if (!gridLattice(grid)) return { gmin: 0, gmax: 0, total: 0, cells: 0, ...none };
   const [gmin, gmax] = bounds ?? valueBounds(grid);
   const r = new RowStream(grid);
   const { xs, ys, cols } = r;
   const total = (xs[cols] - xs[0]) * (ys[r.rows] - ys[0]);
-  if (!(gmax > gmin) || !Number.isFinite(gmin) || !Number.isFinite(gmax)) {
-    return { gmin, gmax, total, minHist: new Float64Array(0), maxHist: new Float64Array(0) };
-  }
+  const cells = cols * r.rows;
+  if (!(gmax > gmin) || !Number.isFinite(gmin) || !Number.isFinite(gmax)) return { gmin, gmax, total, cells, ...none };
   const minHist = new Float64Array(bins + 1);
   const maxHist = new Float64Array(bins + 1);
+  const minCount = new Int32Array(bins + 1);
+  const maxCount = new Int32Array(bins + 1);
   const scale = bins / (gmax - gmin);
   for (let j = 0; j < r.rows; j++) {
     r.load(j);
@@ -116,22 +123,54 @@ export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: rea
       const mn = min4(a, b, c, d);
       const mx = max4(a, b, c, d);
       const area = (xs[i + 1] - xs[i]) * h;
-      const kmin = ((mn - gmin) * scale) | 0;
-      const kmax = ((mx - gmin) * scale) | 0;
-      minHist[kmin < bins ? kmin : bins] += area;
-      maxHist[kmax < bins ? kmax : bins] += area;
+      let kmin = ((mn - gmin) * scale) | 0;
+      let kmax = ((mx - gmin) * scale) | 0;
+      if (kmin > bins) kmin = bins;
+      if (kmax > bins) kmax = bins;
+      minHist[kmin] += area;
+      maxHist[kmax] += area;
+      minCount[kmin]++;
+      maxCount[kmax]++;
     }
   }
-  return { gmin, gmax, total, minHist, maxHist };
+  return { gmin, gmax, total, minHist, maxHist, minCount, maxCount, cells };
 }
 
-/** The cells meeting [lo, hi], packed, and the area of those full on it. One pass. */
-export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand {
+/**
+ * At least as many cells as packBand(grid, lo, hi) packs, from the histogram of the same grid (the cells whose
+ * smallest corner bins above `hi`, or whose largest bins below `lo`, are left out). Binning is monotone — a
+ * subtraction, a positive scale and a truncation, each non-decreasing in floating point — so a cell whose
+ * smallest corner bins above hi's bin has that corner > hi, and likewise below lo. Holds when every lattice
+ * value lies in [gmin, gmax] or is −∞ (NaN samples), as the histogram's own binning assumes.
+ */
+export function bandCellBound(h: CellRangeHistogram, lo: number, hi: number): number {
+  const bins = h.minCount.length - 1;
+  if (bins < 1) return h.cells;
+  const { gmin, gmax } = h;
+  const scale = bins / (gmax - gmin);
+  const bin = (v: number): number => {
+    const x = v < gmin ? gmin : v > gmax ? gmax : v;
+    const k = ((x - gmin) * scale) | 0;
+    return k > bins ? bins : k;
+  };
+  let n = h.cells;
+  for (let k = bin(hi) + 1; k <= bins; k++) n -= h.minCount[k];
+  const kl = bin(lo);
+  for (let k = 0; k < kl; k++) n -= h.maxCount[k];
+  return n;
+}
+
+/**
+ * The cells meeting [lo, hi], packed, and the area of those full on it. One pass. `capacity`: cells to make
+ * room for at once, e.g. bandCellBound (fresh memory costs more than the pass: no doubling then); the buffer
+ * still grows if it was too few.
+ */
+export function packBand(grid: DensityGrid, lo: number, hi: number, capacity?: number): PackedBand {
   if (!gridLattice(grid)) return { fullBase: 0, buf: new Float64Array(0), count: 0 };
   const r = new RowStream(grid);
   const { xs, ys, cols } = r;
-  // Grown by doubling rather than counted first: the band is usually a small share of the grid.
-  let buf = new Float64Array(BAND_STRIDE * Math.max(1024, (cols * r.rows) >>> 4));
+  const room = capacity !== undefined && capacity >= 0 ? Math.min(capacity, cols * r.rows) : Math.max(1024, (cols * r.rows) >>> 4);
+  let buf = new Float64Array(BAND_STRIDE * room);
   let fullBase = 0;
   let o = 0;
   for (let j = 0; j < r.rows; j++) {
@@ -152,7 +191,7 @@ export function packBand(grid: DensityGrid, lo: number, hi: number): PackedBand 
       const mx = max4(a, b, c, d);
       if (mx < lo) continue;
       if (o + BAND_STRIDE > buf.length) {
-        const bigger = new Float64Array(buf.length * 2);
+        const bigger = new Float64Array(Math.max(2 * buf.length, 1024 * BAND_STRIDE));
         bigger.set(buf);
         buf = bigger;
       }
@@ -184,12 +223,23 @@ export function bandArea(buf: Float64Array, count: number, level: number, base: 
   return a;
 }
 
+/** base + Σ bandCellArea over the packed cells index[0 … count − 1], in that order. */
+export function bandAreaOf(buf: Float64Array, index: Int32Array, count: number, level: number, base: number, saddle: SaddleRule): number {
+  let a = base;
+  for (let k = 0; k < count; k++) a += bandCellArea(buf, BAND_STRIDE * index[k], level, saddle);
+  return a;
+}
+
 /** The level search's LevelAreaModel of a grid. `bounds`: the sample range, for NaN-free grids. */
 export function levelBandModel(grid: DensityGrid, saddle: SaddleRule, bounds?: readonly [number, number]) {
+  // the last histogram sizes the band the search packs next (bandCellBound)
+  let hist: CellRangeHistogram | undefined;
   return {
-    histogram: (bins: number) => cellRangeHistogram(grid, bins, bounds),
-    pack: (lo: number, hi: number) => packBand(grid, lo, hi),
+    histogram: (bins: number) => (hist = cellRangeHistogram(grid, bins, bounds)),
+    pack: (lo: number, hi: number) => packBand(grid, lo, hi, hist ? bandCellBound(hist, lo, hi) : undefined),
     packedArea: (buf: Float64Array, o: number, level: number) => bandCellArea(buf, o, level, saddle),
     bandArea: (buf: Float64Array, count: number, level: number, base: number) => bandArea(buf, count, level, base, saddle),
+    bandAreaOf: (buf: Float64Array, index: Int32Array, count: number, level: number, base: number) =>
+      bandAreaOf(buf, index, count, level, base, saddle),
   };
 }

@@ -33,6 +33,8 @@ export interface LevelAreaModel {
   packedArea(buf: Float64Array, o: number, level: number): number;
   /** base + Σ packedArea over the first `count` packed cells, added in order (one call per evaluation). */
   bandArea?(buf: Float64Array, count: number, level: number, base: number): number;
+  /** base + Σ packedArea over the packed cells index[0 … count − 1], added in that order. */
+  bandAreaOf?(buf: Float64Array, index: Int32Array, count: number, level: number, base: number): number;
 }
 
 export interface RawLevelResult {
@@ -50,6 +52,13 @@ function sumBand(model: LevelAreaModel, buf: Float64Array, count: number, level:
   if (model.bandArea) return model.bandArea(buf, count, level, base);
   let a = base;
   for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * k, level);
+  return a;
+}
+
+function sumIndexed(model: LevelAreaModel, buf: Float64Array, index: Int32Array, count: number, level: number, base: number): number {
+  if (model.bandAreaOf) return model.bandAreaOf(buf, index, count, level, base);
+  let a = base;
+  for (let k = 0; k < count; k++) a += model.packedArea(buf, BAND_STRIDE * index[k], level);
   return a;
 }
 
@@ -105,7 +114,8 @@ function packBracket(model: LevelAreaModel, lo: number, hi: number): PackedBrack
  */
 export class LevelSolver {
   private packed: PackedBracket | undefined;
-  private scratch = new Float64Array(0);
+  /** The packed cells still in the band after narrowing, as indices into the packed bracket (4 bytes a cell, not a copy of 64). */
+  private kept = new Int32Array(0);
   /** Every (level, area) evaluated inside the packed bracket, for warm starts. */
   private known: { level: number; area: number }[] = [];
 
@@ -147,26 +157,24 @@ export class LevelSolver {
       if (k.area <= targetArea && k.level < hi) ({ level: hi, area: aHi } = k);
     }
     const known = this.known;
-    let buf = p.buf;
-    if (this.scratch.length < count * BAND_STRIDE) this.scratch = new Float64Array(count * BAND_STRIDE);
-    const scratch = this.scratch;
-    const areaAt = (level: number): number => sumBand(model, buf, count, level, fullBase);
-    // Cells that no longer meet [lo, hi] leave the band; full ones join fullBase.
+    const buf = p.buf;
+    if (this.kept.length < count) this.kept = new Int32Array(count);
+    const kept = this.kept;
+    // all of the packed bracket until the first narrowing, then the cells kept[0 … count − 1]
+    let indexed = false;
+    const areaAt = (level: number): number =>
+      indexed ? sumIndexed(model, buf, kept, count, level, fullBase) : sumBand(model, buf, count, level, fullBase);
+    // Cells that no longer meet [lo, hi] leave the band, in order; full ones join fullBase.
     const narrow = () => {
       let keep = 0;
       for (let k = 0; k < count; k++) {
-        const o = BAND_STRIDE * k;
+        const c = indexed ? kept[k] : k;
+        const o = BAND_STRIDE * c;
         if (buf[o + 6] >= hi) fullBase += buf[o + 4] * buf[o + 5];
-        else if (buf[o + 7] >= lo) {
-          if (keep !== k || buf !== scratch) {
-            const t = BAND_STRIDE * keep;
-            for (let q = 0; q < BAND_STRIDE; q++) scratch[t + q] = buf[o + q];
-          }
-          keep++;
-        }
+        else if (buf[o + 7] >= lo) kept[keep++] = c;
       }
       count = keep;
-      buf = scratch;
+      indexed = true;
     };
     const tol = Math.abs(targetArea) * relTol;
     let narrowedWidth = p.hi - p.lo;
