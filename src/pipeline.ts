@@ -16,7 +16,7 @@ import { assembleReport } from './report/assemble.js';
 import type { HtmlPictures } from './report/html.js';
 import { needsBooleanEngine, type Settings } from './settings.js';
 import type { SmoothResult } from './smooth/smooth.js';
-import { outlineStage, type OutlineInput, type OutlineSettings } from './smooth/stage.js';
+import { outlineStage, outlineWorkspace, type OutlineInput, type OutlineSettings } from './smooth/stage.js';
 import { thresholdSearch, type ThresholdInput, type ThresholdRecord, type ThresholdSettings } from './threshold/stage.js';
 import type { StructureCheckInput } from './check/types.js';
 import type { DensityGrid, PolygonSet, Report } from './types.js';
@@ -106,10 +106,15 @@ export async function prepareBuild(s: BuildNeeds, input?: { readonly name: strin
   ]);
 }
 
-/** The threshold stage with the outlines it asks for (docs/architecture.md). */
+/**
+ * The threshold stage with the outlines it asks for (docs/architecture.md). Its builds share one workspace:
+ * each writes over the working arrays of the one before (fresh memory costs more than the work; no record
+ * refers to them).
+ */
 export function thresholdStage(field: ThresholdInput & OutlineInput, s: ThresholdSettings & OutlineSettings): ThresholdRecord {
   const search = thresholdSearch(field, s);
-  for (let q = search.next(); q; q = search.next()) search.record(outlineStage(field, q.level, s));
+  const workspace = outlineWorkspace();
+  for (let q = search.next(); q; q = search.next()) search.record(outlineStage(field, q.level, s, workspace, q.straddling));
   return search.finish();
 }
 

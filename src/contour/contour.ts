@@ -4,6 +4,7 @@ import { NO_RINGS, nestedSet, type FlatPolygonSet } from './flat.js';
 import { checkLevel, gridLattice } from './lattice.js';
 import { march } from './march.js';
 import { nest } from './nest.js';
+import type { ContourScratch } from './scratch.js';
 import type { SaddleRule } from './saddle.js';
 import { stitch } from './stitch.js';
 
@@ -21,11 +22,15 @@ export function contourGrid(grid: DensityGrid, level: number, saddle: SaddleRule
   return nestedSet(contourFlat(grid, level, saddle));
 }
 
-/** contourGrid as flat rings, in the same order with the same coordinates. */
-export function contourFlat(grid: DensityGrid, level: number, saddle: SaddleRule): FlatPolygonSet {
+/**
+ * contourGrid as flat rings, in the same order with the same coordinates. `scratch`: working arrays to reuse
+ * from an earlier build (the result never aliases them); `straddling`: at most how many lattice cells straddle
+ * the level, when known (sizes the crossing store; a wrong value costs only a regrowth).
+ */
+export function contourFlat(grid: DensityGrid, level: number, saddle: SaddleRule, scratch?: ContourScratch, straddling?: number): FlatPolygonSet {
   checkLevel(level);
   const lat = gridLattice(grid);
   if (!lat) return NO_RINGS;
-  const cr = march(grid, lat, level, saddle);
-  return nest(cr, stitch(cr));
+  const cr = march(grid, lat, level, saddle, scratch, straddling);
+  return nest(cr, stitch(cr, scratch));
 }

@@ -8,8 +8,9 @@ import type { DensityGrid } from '../types.js';
 import type { GridLattice } from './lattice.js';
 import { fillRow } from './lattice.js';
 import { crossing, ENTRY_EDGE, EXIT_EDGE, joinsSolid, type SaddleRule } from './saddle.js';
+import type { ContourScratch } from './scratch.js';
 
-/** The crossings of one level (mm, y up) and their links. */
+/** The crossings of one level (mm, y up) and their links; ids 0 … count − 1 (the arrays may be longer). */
 export interface Crossings {
   readonly count: number;
   readonly x: Float64Array;
@@ -26,17 +27,34 @@ export interface Crossings {
   readonly hEnd: Int32Array;
 }
 
+/** The crossings of one build, in `scratch`'s arrays when given (grown there, so the next build finds them). */
 class Store {
   n = 0;
   x: Float64Array;
   y: Float64Array;
   next: Int32Array;
   hKey: Int32Array;
-  constructor(cap: number) {
-    this.x = new Float64Array(cap);
-    this.y = new Float64Array(cap);
-    this.next = new Int32Array(cap);
-    this.hKey = new Int32Array(cap);
+  /**
+   * `cap`: crossings to make room for when the scratch has no store yet; `bound`: the most the caller expects
+   * (a regrowth makes room for at least that many).
+   */
+  constructor(
+    cap: number,
+    private readonly bound: number,
+    private readonly scratch: ContourScratch | undefined,
+  ) {
+    if (scratch && scratch.x.length > 0) {
+      this.x = scratch.x;
+      this.y = scratch.y;
+      this.next = scratch.next;
+      this.hKey = scratch.hKey;
+    } else {
+      this.x = new Float64Array(cap);
+      this.y = new Float64Array(cap);
+      this.next = new Int32Array(cap);
+      this.hKey = new Int32Array(cap);
+      this.lend();
+    }
   }
   add(x: number, y: number, hKey: number): number {
     if (this.n === this.x.length) this.grow();
@@ -48,7 +66,7 @@ class Store {
     return id;
   }
   private grow(): void {
-    const cap = this.x.length * 2;
+    const cap = Math.max(this.x.length * 2, this.bound, 1024);
     const x = new Float64Array(cap);
     const y = new Float64Array(cap);
     const next = new Int32Array(cap);
@@ -61,6 +79,15 @@ class Store {
     this.y = y;
     this.next = next;
     this.hKey = hKey;
+    this.lend();
+  }
+  private lend(): void {
+    const s = this.scratch;
+    if (!s) return;
+    s.x = this.x;
+    s.y = this.y;
+    s.next = this.next;
+    s.hKey = this.hKey;
   }
 }
 
@@ -73,14 +100,27 @@ function padded(c: Float64Array): Float64Array {
   return out;
 }
 
-/** Marching squares at `level` (solid: value ≥ level; NaN void); `lat` = gridLattice(grid). */
-export function march(grid: DensityGrid, lat: GridLattice, level: number, rule: SaddleRule): Crossings {
+/**
+ * Crossings at most: each lies on an edge of a lattice cell that straddles the level (four edges a cell) or on
+ * one of the edges from a domain-edge node out to the −∞ border (at most 2·(NX + NY)).
+ */
+export function crossingBound(straddling: number, NX: number, NY: number): number {
+  return 4 * straddling + 2 * (NX + NY);
+}
+
+/**
+ * Marching squares at `level` (solid: value ≥ level; NaN void); `lat` = gridLattice(grid). The crossings live
+ * in `scratch` when given (then they are valid until its next use). `straddling`: at most how many lattice
+ * cells straddle the level, when the caller knows (the level search's band): sizes the store at once.
+ */
+export function march(grid: DensityGrid, lat: GridLattice, level: number, rule: SaddleRule, scratch?: ContourScratch, straddling?: number): Crossings {
   const L = level;
   const xs = padded(lat.x.coords);
   const ys = padded(lat.y.coords);
   const NX = xs.length;
   const NY = ys.length;
-  const st = new Store(Math.max(1024, 4 * (NX + NY)));
+  const bound = straddling !== undefined && straddling >= 0 ? crossingBound(straddling, NX, NY) : 0;
+  const st = new Store(Math.max(1024, bound > 0 ? bound : 4 * (NX + NY)), bound, scratch);
   let lo = new Float64Array(NX).fill(-Infinity);
   let hi = new Float64Array(NX).fill(-Infinity);
   let sLo = new Uint8Array(NX);

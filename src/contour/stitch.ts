@@ -4,11 +4,12 @@
  */
 import { RhoformError } from '../errors.js';
 import type { Crossings } from './march.js';
+import { ContourScratch } from './scratch.js';
 
 /** Rings in the order of their first crossing (bottom-up, left-to-right scan). */
 export interface StitchedRings {
   readonly count: number;
-  /** Ring id of every crossing. */
+  /** Ring id of every crossing (entries 0 … crossings − 1). */
   readonly ringOf: Int32Array;
   /** Ring r: vertices start[r] … start[r + 1] − 1 of xy (mm); a degenerate ring is stored empty. */
   readonly xy: Float64Array;
@@ -17,15 +18,16 @@ export interface StitchedRings {
   readonly area: Float64Array;
 }
 
-export function stitch(cr: Crossings): StitchedRings {
+/** `scratch`: where ringOf and xy live (valid until its next use); fresh arrays without. */
+export function stitch(cr: Crossings, scratch: ContourScratch = new ContourScratch()): StitchedRings {
   const n = cr.count;
-  const ringOf = new Int32Array(n).fill(-1);
-  const out = new Float64Array(2 * n);
+  const { ringOf, rings: out } = scratch.stitchBuffers(n);
+  ringOf.fill(-1, 0, n);
   const starts: number[] = [0];
   const areas: number[] = [];
   let used = 0;
-  let ox = new Float64Array(256);
-  let oy = new Float64Array(256);
+  let ox = scratch.ox;
+  let oy = scratch.oy;
   const { x, y, next } = cr;
   for (let c0 = 0; c0 < n; c0++) {
     if (ringOf[c0] !== -1) continue;
@@ -39,8 +41,8 @@ export function stitch(cr: Crossings): StitchedRings {
         const gy = new Float64Array(ox.length * 2);
         gx.set(ox);
         gy.set(oy);
-        ox = gx;
-        oy = gy;
+        ox = scratch.ox = gx;
+        oy = scratch.oy = gy;
       }
       m = push(ox, oy, m, x[c], y[c]);
       c = next[c];

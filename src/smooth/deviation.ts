@@ -7,6 +7,7 @@ import { type FlatRings, SegmentGrid, sqSegDist } from '../geom/segments.js';
 
 import { flatRingArea } from '../geom/area.js';
 import { hypot } from '../geom/portable-math.js';
+import type { SmoothScratch } from './scratch.js';
 
 /** Sum of the signed areas (mm²) of all rings: material area when outers are CCW and holes CW. */
 export function totalArea(rings: FlatRings): number {
@@ -15,12 +16,16 @@ export function totalArea(rings: FlatRings): number {
   return a;
 }
 
-/** Segments of all rings as four coordinate arrays (each ring closed by its last segment). */
-export function ringSegments(rings: FlatRings): { x0: Float64Array; y0: Float64Array; x1: Float64Array; y1: Float64Array; ring: Int32Array } {
+/**
+ * Segments of all rings as four coordinate arrays (each ring closed by its last segment), in `scratch`'s arrays
+ * when given (valid until its next use).
+ */
+export function ringSegments(rings: FlatRings, scratch?: SmoothScratch): { x0: Float64Array; y0: Float64Array; x1: Float64Array; y1: Float64Array; ring: Int32Array } {
   const { xy, start } = rings;
   const n = start[start.length - 1];
-  const x0 = new Float64Array(n), y0 = new Float64Array(n), x1 = new Float64Array(n), y1 = new Float64Array(n);
-  const ring = new Int32Array(n);
+  const { x0, y0, x1, y1, ring } = scratch
+    ? scratch.segments(n)
+    : { x0: new Float64Array(n), y0: new Float64Array(n), x1: new Float64Array(n), y1: new Float64Array(n), ring: new Int32Array(n) };
   for (let r = 0; r + 1 < start.length; r++) {
     const a = start[r], b = start[r + 1];
     for (let i = a; i < b; i++) {

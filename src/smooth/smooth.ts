@@ -15,6 +15,7 @@ import { simplifyRing } from './simplify.js';
 import { taubinRingInPlace } from './taubin.js';
 import { type RingRoles, validateRings } from './validate.js';
 import { edgeFlags, repairRound } from './repair.js';
+import type { SmoothScratch } from './scratch.js';
 import { hypot } from '../geom/portable-math.js';
 
 export interface SmoothOptions {
@@ -64,8 +65,12 @@ export function smoothPolygons(raw: PolygonSet, options: SmoothOptions): SmoothR
   return smoothFlat(flatSet(raw), options);
 }
 
-/** smoothPolygons on flat rings (src/contour/flat.ts), with the same result. */
-export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions): SmoothResult {
+/**
+ * smoothPolygons on flat rings (src/contour/flat.ts), with the same result. The result may share `raw`'s arrays
+ * (neither is ever written). `scratch`: working arrays to reuse from an earlier smoothing; the result never
+ * aliases them.
+ */
+export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions, scratch?: SmoothScratch): SmoothResult {
   checkOptions(options);
   const { tolerance, domain } = options;
   const { rawFlat, roles, verticesBefore, ringsDropped } = flatten(raw);
@@ -75,7 +80,8 @@ export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions): SmoothR
 
   // 1. Taubin smoothing with the displacement cap
   const { fixed, anchor } = edgeFlags(rawFlat, domain);
-  const S = R.slice();
+  const S = scratch ? scratch.positions(R.length) : new Float64Array(R.length);
+  S.set(R);
   let used = 0;
   if (options.iterations > 0 && tolerance > 0) {
     const taubin = { iterations: options.iterations, lambda: options.lambda, mu: options.mu,
@@ -100,7 +106,7 @@ export function smoothFlat(raw: FlatPolygonSet, options: SmoothOptions): SmoothR
   const useRaw = new Uint8Array(n);
   let final = assemble(rawFlat, S, keep, useRaw);
   for (let round = 0; round <= LOCAL_FIX_ROUNDS; round++) {
-    const v = validateRings(final.rings, roles);
+    const v = validateRings(final.rings, roles, scratch);
     if (v.problems === 0) break;
     const changed = repairRound(rawFlat, roles, keep, useRaw, final, v, round, round === LOCAL_FIX_ROUNDS);
     if (!changed) break; // what is left is already raw: the input itself is invalid there (docs/smoothing.md §5)
@@ -145,9 +151,49 @@ function checkOptions(o: SmoothOptions): void {
   }
 }
 
-/** Copies the rings without repeated points; drops degenerate or non-finite rings (an outer with its holes). */
+/**
+ * True when flatten would copy every ring as it is: exactly sized, each ring of three or more finite vertices
+ * with no point repeating the one before it (the last counting before the first) and a non-zero area, every
+ * hole after an outer ring and owned by the nearest one before it. The contour's rings always are.
+ */
+function alreadyClean(raw: FlatPolygonSet): boolean {
+  const { xy, start, hole, owner } = raw;
+  const ringCount = start.length - 1;
+  if (xy.length !== 2 * start[ringCount]) return false;
+  let outer = -1;
+  for (let q = 0; q < ringCount; q++) {
+    const a = start[q], b = start[q + 1];
+    if (b - a < 3) return false;
+    if (hole[q] === 0) {
+      if (owner[q] !== -1) return false;
+      outer = q;
+    } else if (outer < 0 || owner[q] !== outer) return false;
+    let px = xy[2 * b - 2], py = xy[2 * b - 1];
+    for (let i = a; i < b; i++) {
+      const x = xy[2 * i], y = xy[2 * i + 1];
+      if (!Number.isFinite(x) || !Number.isFinite(y) || (x === px && y === py)) return false;
+      px = x;
+      py = y;
+    }
+    if (flatRingArea(xy, a, b) === 0) return false;
+  }
+  return true;
+}
+
+/**
+ * The rings without repeated points; drops degenerate or non-finite rings (an outer with its holes). Rings
+ * that need none of that are taken as they are (shared, not copied).
+ */
 function flatten(raw: FlatPolygonSet): { rawFlat: FlatRings; roles: RingRoles; verticesBefore: number; ringsDropped: number } {
   const ringCount = raw.start.length - 1;
+  if (alreadyClean(raw)) {
+    return {
+      rawFlat: { xy: raw.xy, start: raw.start },
+      roles: { hole: raw.hole, owner: raw.owner },
+      verticesBefore: raw.start[ringCount],
+      ringsDropped: 0,
+    };
+  }
   const src = raw.xy;
   const verticesBefore = raw.start[ringCount];
   const xy = new Float64Array(2 * verticesBefore);

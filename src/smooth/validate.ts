@@ -8,6 +8,7 @@ import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/
 import { flatRingArea } from '../geom/area.js';
 import { ringSegments } from './deviation.js';
 import { hypot } from '../geom/portable-math.js';
+import type { SmoothScratch } from './scratch.js';
 
 /** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
 export interface RingRoles {
@@ -27,12 +28,15 @@ export interface Validation {
   readonly problems: number;
 }
 
-/** Adjacent segments may share their vertex but not fold back; every other pair of closed segments is disjoint. */
-export function validateRings(rings: FlatRings, roles: RingRoles): Validation {
+/**
+ * Adjacent segments may share their vertex but not fold back; every other pair of closed segments is disjoint.
+ * `scratch`: where the segment arrays live (the result never refers to them).
+ */
+export function validateRings(rings: FlatRings, roles: RingRoles, scratch?: SmoothScratch): Validation {
   const { xy, start } = rings;
   const nRings = start.length - 1;
   const n = start[nRings];
-  const seg = ringSegments(rings);
+  const seg = ringSegments(rings, scratch);
   const segmentHit = new Uint8Array(n);
   const ringHit = new Uint8Array(nRings);
   const blamed = new Uint8Array(nRings);

@@ -42,6 +42,8 @@ const REFINE_BUILDS = 12;
 
 export interface LevelRequest {
   readonly level: number | null;
+  /** At most how many lattice cells straddle the level, when the search knows (a size hint for contouring). */
+  readonly straddling?: number;
 }
 
 /** Chooses the level one build at a time: `next()`, `record()` each build, then `finish()`. */
@@ -84,7 +86,9 @@ export class ThresholdSearch<S extends { readonly areaBefore: number; readonly a
     if (this.volume) {
       const L = this.volume.next();
       this.pending = L ?? null;
-      return L === undefined ? undefined : { level: L };
+      if (L === undefined) return undefined;
+      const cells = this.volume.bandCells;
+      return cells === undefined ? { level: L } : { level: L, straddling: cells };
     }
     return this.chosen ? undefined : (this.single ?? undefined);
   }

@@ -44,6 +44,11 @@ export interface RawLevelResult {
   readonly area: number;
   /** Root-finding steps taken (area evaluations after the bracket). */
   readonly steps: number;
+  /**
+   * Packed cells left in the band at the end: every lattice cell that straddles a level of the final bracket
+   * (the level found normally lies in it). A size hint for contouring at that level; absent without a band.
+   */
+  readonly bandCells?: number;
 }
 
 const BINS = 1024;
@@ -143,8 +148,8 @@ export class LevelSolver {
         { level: p.lo, area: p.aLo },
         { level: p.hi, area: p.aHi },
       ];
-      if (targetArea >= p.aLo) return { level: p.lo, area: p.aLo, steps: 0 };
-      if (targetArea <= p.aHi) return { level: p.hi, area: p.aHi, steps: 0 };
+      if (targetArea >= p.aLo) return { level: p.lo, area: p.aLo, steps: 0, bandCells: p.count };
+      if (targetArea <= p.aHi) return { level: p.hi, area: p.aHi, steps: 0, bandCells: p.count };
     }
     let { fullBase, count } = p;
     // A is non-increasing in the level: start from the tightest known pair around the target.
@@ -188,7 +193,7 @@ export class LevelSolver {
     let side = 0;
     let steps = 0;
     let best = Math.abs(fLo) < Math.abs(fHi) ? { level: lo, area: aLo } : { level: hi, area: aHi };
-    if (Math.abs(best.area - targetArea) <= tol) return { level: best.level, area: best.area, steps };
+    if (Math.abs(best.area - targetArea) <= tol) return { level: best.level, area: best.area, steps, bandCells: count };
     for (; steps < 200; steps++) {
       let mid = lo + (fLo / (fLo - fHi)) * (hi - lo);
       if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
@@ -215,7 +220,7 @@ export class LevelSolver {
         narrowedWidth = hi - lo;
       }
     }
-    return { level: best.level, area: best.area, steps };
+    return { level: best.level, area: best.area, steps, bandCells: count };
   }
 }
 

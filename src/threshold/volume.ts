@@ -41,6 +41,8 @@ export class VolumeSearch<T> {
   private extra = 0;
   private phase: 'fixed' | 'refine' | 'done' = 'fixed';
   private above: { level: number; area: number } | undefined;
+  /** The level search's band at the level `next()` named last (LevelSolver's bandCells); undefined for a bisection level. */
+  bandCells: number | undefined;
   private below: { level: number; area: number } | undefined;
 
   constructor(
@@ -56,8 +58,13 @@ export class VolumeSearch<T> {
   }
 
   next(): number | undefined {
+    this.bandCells = undefined;
     if (this.phase === 'fixed') {
-      if (this.builds < this.maxBuilds) return this.solver.solve(this.aim, Math.min(1e-6, this.relTol / 100)).level;
+      if (this.builds < this.maxBuilds) {
+        const r = this.solver.solve(this.aim, Math.min(1e-6, this.relTol / 100));
+        this.bandCells = r.bandCells;
+        return r.level;
+      }
       this.phase = 'refine';
     }
     if (this.phase === 'refine') {
