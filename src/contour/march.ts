@@ -101,11 +101,13 @@ function padded(c: Float64Array): Float64Array {
 }
 
 /**
- * Crossings at most: each lies on an edge of a lattice cell that straddles the level (four edges a cell) or on
- * one of the edges from a domain-edge node out to the −∞ border (at most 2·(NX + NY)).
+ * Crossings at most, with `straddling` cells of the area lattice straddling the level. A crossing edge inside
+ * the area lattice borders two straddling cells, one on its edge borders one, and every straddling cell has at
+ * most four; the rest lie on the edges from a domain-edge node out to the −∞ border, at most 2·(NX + NY). So
+ * crossings ≤ 2·straddling + ½·(edges on the domain edge) + 2·(NX + NY) ≤ 2·straddling + 3·(NX + NY).
  */
 export function crossingBound(straddling: number, NX: number, NY: number): number {
-  return 4 * straddling + 2 * (NX + NY);
+  return 2 * straddling + 3 * (NX + NY);
 }
 
 /**
