@@ -5,13 +5,17 @@
  * Frame: pixel units of raster.ts; an item at (u, v) falls in pixel (round(u), round(v)).
  */
 
-/** Returns a cluster label (0 … count − 1) per item. Items are given as pixel indices i, j (nx × ny raster). */
+/**
+ * Returns a cluster label (0 … count − 1) per item. Items are given as pixel indices i, j (nx × ny raster).
+ * `owner`: a scratch table of at least nx·ny entries (overwritten; scratch.ts), a new one when not given.
+ */
 export function clusterPixels(
   ii: Int32Array,
   jj: Int32Array,
   nx: number,
   ny: number,
   gap: number,
+  scratch?: Int32Array,
 ): { label: Int32Array; count: number } {
   const n = ii.length;
   const parent = new Int32Array(n);
@@ -27,7 +31,10 @@ export function clusterPixels(
     const ra = find(a), rb = find(b);
     if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
   };
-  const owner = new Int32Array(nx * ny).fill(-1);
+  if (scratch !== undefined && scratch.length < nx * ny) {
+    throw new RangeError(`clusterPixels: expected a scratch of at least ${nx * ny} entries, found ${scratch.length}`);
+  }
+  const owner = scratch ? scratch.fill(-1, 0, nx * ny) : new Int32Array(nx * ny).fill(-1);
   for (let k = 0; k < n; k++) {
     const p = jj[k] * nx + ii[k];
     if (owner[p] < 0) owner[p] = k;

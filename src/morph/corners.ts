@@ -12,6 +12,7 @@ import { clusterPixels } from './cluster.js';
 import { sampledTransform, transformInput } from './edt.js';
 import type { NearestField } from './nearest.js';
 import { type Frame, toMm } from './frame.js';
+import type { RasterScratch } from './scratch.js';
 import { type SegmentSet, segDist2 as segD2 } from './segments.js';
 import { hypot } from '../geom/portable-math.js';
 
@@ -32,7 +33,10 @@ export function padFor(toolRadius: number, pixel: number): number {
   return Math.ceil(toolRadius / pixel) + 2;
 }
 
-/** Corners of the solid a tool of radius `toolRadius` (mm) leaves uncut deeper than `depth` (mm). */
+/**
+ * Corners of the solid a tool of radius `toolRadius` (mm) leaves uncut deeper than `depth` (mm). `scratch`: the
+ * engine's raster-sized buffer (scratch.ts) for the transform input and the group tables, else new arrays.
+ */
 export function cornerSurvey(
   frame: Frame,
   set: SegmentSet,
@@ -40,6 +44,25 @@ export function cornerSurvey(
   phase: Uint8Array,
   toolRadius: number,
   depth: number,
+  scratch?: RasterScratch,
+): CornerSurvey {
+  if (scratch && scratch.pixels !== frame.nx * frame.ny) {
+    throw new RangeError(`cornerSurvey: expected a scratch of ${frame.nx * frame.ny} pixels, found ${scratch.pixels}`);
+  }
+  const run = (f64?: Float64Array, i32?: Int32Array): CornerSurvey => survey(frame, set, field, phase, toolRadius, depth, f64, i32);
+  return scratch ? scratch.use(run) : run();
+}
+
+/** cornerSurvey with its raster-sized arrays: `f64` (N values) and `i32` (N entries, may share f64's memory), or new ones. */
+function survey(
+  frame: Frame,
+  set: SegmentSet,
+  field: NearestField,
+  phase: Uint8Array,
+  toolRadius: number,
+  depth: number,
+  f64: Float64Array | undefined,
+  i32: Int32Array | undefined,
 ): CornerSurvey {
   const { nx, ny, box, pixel } = frame;
   const { seg, vx, vy, dist } = field;
@@ -101,7 +124,7 @@ export function cornerSurvey(
   };
 
   // 1. power transform of the tool positions
-  const f = transformInput(N).fill(Infinity);
+  const f = (f64 ?? transformInput(N)).fill(Infinity);
   for (let p = 0; p < N; p++) if (phase[p] === 0 && dist[p] >= R) f[p] = -dist[p] * dist[p];
   const pw = sampledTransform(f, nx, ny);
 
@@ -132,13 +155,14 @@ export function cornerSurvey(
   const places: CornerPlace[] = [];
   if (ui.length > 0) {
     const ii = Int32Array.from(ui), jj = Int32Array.from(uj);
-    const { label, count } = clusterPixels(ii, jj, nx, ny, 0);
+    // the transform's values are no longer read: its memory may hold the group tables (one after the other)
+    const { label, count } = clusterPixels(ii, jj, nx, ny, 0, i32);
     const deepest = new Int32Array(count).fill(-1);
     for (let k = 0; k < ui.length; k++) {
       const c = label[k];
       if (deepest[c] < 0 || ud[k] > ud[deepest[c]]) deepest[c] = k;
     }
-    const labelAt = new Int32Array(N).fill(-1);
+    const labelAt = (i32 ?? new Int32Array(N)).fill(-1);
     for (let k = 0; k < ui.length; k++) labelAt[jj[k] * nx + ii[k]] = label[k];
     const members: number[][] = Array.from({ length: count }, () => []);
     for (let k = 0; k < ui.length; k++) members[label[k]].push(k);

@@ -10,7 +10,9 @@ import { type MedialSamples, medialSamples } from './medial.js';
 import { type NearestField, nearestField } from './nearest.js';
 import { type Frame, makeFrame } from './frame.js';
 import { phaseMask } from './raster.js';
+import { RasterScratch } from './scratch.js';
 import { type SegmentSet, segmentsOf } from './segments.js';
+import { rasterLanes } from './split.js';
 import { thicknessMap } from './thickness.js';
 import { medialPoints, widthSurvey } from './width.js';
 
@@ -24,6 +26,8 @@ interface Stage {
   readonly set: SegmentSet;
   readonly field: NearestField;
   readonly phase: Uint8Array;
+  /** Raster-sized memory the steps lend each other (scratch.ts). */
+  readonly scratch: RasterScratch;
 }
 
 function stage(polygons: PolygonSet, domain: MorphologyOptions['domain'], pixel: number, pad: number): Stage {
@@ -32,7 +36,9 @@ function stage(polygons: PolygonSet, domain: MorphologyOptions['domain'], pixel:
     throw new RangeError(`buildMorphology: expected at most ${MAX_RASTER} pixels, found ${frame.nx} × ${frame.ny}`);
   }
   const set = segmentsOf(polygons, frame);
-  return { frame, set, field: nearestField(frame, set), phase: phaseMask(frame, set) };
+  const scratch = new RasterScratch(frame.nx * frame.ny, rasterLanes(frame.nx * frame.ny) > 1);
+  const field = scratch.use((best) => nearestField(frame, set, best));
+  return { frame, set, field, phase: phaseMask(frame, set), scratch };
 }
 
 /**
@@ -56,7 +62,7 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
     width(phase: Phase, below: number): WidthSurvey {
       if (phase !== 'solid' && phase !== 'void') throw new RangeError(`width: expected 'solid' or 'void', found ${String(phase)}`);
       if (Number.isNaN(below)) throw new RangeError('width: expected a limit in mm, found NaN');
-      return widthSurvey(base.frame, medial(), phase, below);
+      return widthSurvey(base.frame, medial(), phase, below, base.scratch);
     },
     medial(phase: Phase, below: number): MedialPoints {
       if (phase !== 'solid' && phase !== 'void') throw new RangeError(`medial: expected 'solid' or 'void', found ${String(phase)}`);
@@ -80,7 +86,7 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
         if (!wide || wide.frame.pixel !== p || wide.frame.pad < need) wide = stage(polygons, domain, p, need);
         st = wide;
       }
-      return cornerSurvey(st.frame, st.set, st.field, st.phase, toolRadius, depth);
+      return cornerSurvey(st.frame, st.set, st.field, st.phase, toolRadius, depth, st.scratch);
     },
     thicknessMap(maxSide: number): ThicknessMap {
       if (!(maxSide >= 1)) throw new RangeError(`thicknessMap: expected maxSide ≥ 1, found ${maxSide}`);

@@ -22,14 +22,21 @@ export interface NearestField {
   readonly dist: Float32Array;
 }
 
-/** The feature transform of `frame`; seeding and polish split into row bands on large rasters, sweeps serial. */
-export function nearestField(frame: Frame, set: SegmentSet): NearestField {
+/**
+ * The feature transform of `frame`; seeding and polish split into row bands on large rasters, sweeps serial.
+ * `best` (nx·ny values, shared memory when the raster is split; overwritten) holds the squared distances while
+ * it runs: a scratch buffer the caller may reuse afterwards; a new one when not given.
+ */
+export function nearestField(frame: Frame, set: SegmentSet, best?: Float64Array): NearestField {
   const { nx, ny } = frame;
   const N = nx * ny;
   const lanes = rasterLanes(N);
   const shared = lanes > 1;
+  if (best !== undefined && (best.length !== N || (shared && !(best.buffer instanceof SharedArrayBuffer)))) {
+    throw new RangeError(`nearestField: expected a scratch of ${N} values${shared ? ' in shared memory' : ''}, found ${best.length}`);
+  }
   const seg = int32(N, shared).fill(-1);
-  const best = float64(N, shared).fill(Infinity);
+  best = (best ?? float64(N, shared)).fill(Infinity);
   const vx = float32(N, shared);
   const vy = float32(N, shared);
   const dist = float32(N, shared).fill(Infinity);

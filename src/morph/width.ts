@@ -6,15 +6,17 @@ import type { MedialPoints, Phase, WidthPlace, WidthSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
 import { COUNT_COS, type MedialSamples } from './medial.js';
 import { type Frame, toMm } from './frame.js';
+import type { RasterScratch } from './scratch.js';
 
 /** Empty pixels tolerated inside one place. */
 const PLACE_GAP = 2;
 
 /**
  * Smallest counted width of `phase` and the connected places thinner than `below` (mm), one per place at its
- * thinnest sample, thinnest first. `resolution` is half a pixel (docs/checks/min-member-size.md).
+ * thinnest sample, thinnest first. `resolution` is half a pixel (docs/checks/min-member-size.md). `scratch`: the
+ * engine's raster-sized buffer for grouping (scratch.ts), else a new table.
  */
-export function widthSurvey(frame: Frame, samples: MedialSamples, phase: Phase, below: number): WidthSurvey {
+export function widthSurvey(frame: Frame, samples: MedialSamples, phase: Phase, below: number, scratch?: RasterScratch): WidthSurvey {
   const want = phase === 'solid' ? 1 : 0;
   const px = frame.pixel;
   const limit = below / px / 2; // radius, pixel units
@@ -37,7 +39,8 @@ export function widthSurvey(frame: Frame, samples: MedialSamples, phase: Phase, 
       ii[m] = Math.min(frame.nx - 1, Math.max(0, Math.round(samples.x[k])));
       jj[m] = Math.min(frame.ny - 1, Math.max(0, Math.round(samples.y[k])));
     });
-    const { label, count } = clusterPixels(ii, jj, frame.nx, frame.ny, PLACE_GAP);
+    const group = (owner?: Int32Array) => clusterPixels(ii, jj, frame.nx, frame.ny, PLACE_GAP, owner);
+    const { label, count } = scratch ? scratch.use((_, owner) => group(owner)) : group();
     const bestOf = new Int32Array(count).fill(-1);
     chosen.forEach((k, m) => {
       const c = label[m];
