@@ -56,7 +56,7 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
   const base = stage(polygons, domain, pixel, BASE_PAD);
   let wide: Stage | undefined;
   let samples: MedialSamples | undefined;
-  const medial = (): MedialSamples => (samples ??= medialSamples(base.frame, base.set, base.field, base.phase));
+  const medial = (): MedialSamples => (samples ??= medialSamples(base.frame, base.set, base.field, base.phase, base.scratch));
   return {
     pixel,
     width(phase: Phase, below: number): WidthSurvey {

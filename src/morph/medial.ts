@@ -11,6 +11,7 @@ import type { Frame } from './frame.js';
 import { type SegmentSet, segDist2, sideOf } from './segments.js';
 import { snapToVertex } from './vertex.js';
 import { bands, runSplit } from '../parallel/lanes.js';
+import type { RasterScratch } from './scratch.js';
 import { rasterLanes } from './split.js';
 
 /** Medial samples, pixel units. */
@@ -29,15 +30,43 @@ export interface MedialSamples {
 /** cos 120°: samples at or below count for the width checks (θ-simplified medial axis, θ = 120°). */
 export const COUNT_COS = -0.5;
 
+/** Bytes of one sample: x, y, r (8 each), cos (4), solid (1). */
+const SAMPLE_BYTES = 29;
+
+/** A byte range of a buffer where a band writes its samples first (8-aligned offset). */
+export interface SampleArea {
+  readonly buffer: ArrayBufferLike;
+  readonly offset: number;
+  readonly bytes: number;
+}
+
 /**
  * Finds the medial samples of both phases, in raster order of the pair's first pixel. Each row's pairs are
  * independent of the others', so large rasters are split into row bands (src/parallel) and the bands' samples
- * joined in order: the same samples in the same order.
+ * joined in order: the same samples in the same order. With `scratch` (scratch.ts) the bands write into it and
+ * only the joined samples take new memory.
  */
-export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array): MedialSamples {
+export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array, scratch?: RasterScratch): MedialSamples {
   const parts = bands(frame.ny, rasterLanes(frame.nx * frame.ny));
-  if (parts.length === 1) return medialRows(frame, set, field, phase, 0, frame.ny);
-  const got = runSplit(import.meta.url, 'medialRows', medialRows, parts.map(([a, b]) => [frame, set, field, phase, a, b] as const));
+  if (!scratch) return joinBands(frame, set, field, phase, parts, null);
+  return scratch.use((f64) => {
+    // each band its share of the buffer; lanes write into it only when it is shared memory
+    const buffer = f64.buffer;
+    if (parts.length > 1 && !(buffer instanceof SharedArrayBuffer)) return joinBands(frame, set, field, phase, parts, null);
+    const share = 8 * Math.floor(f64.byteLength / parts.length / 8);
+    const areas = parts.map((_, k): SampleArea => ({ buffer, offset: f64.byteOffset + k * share, bytes: share }));
+    return joinBands(frame, set, field, phase, parts, areas);
+  });
+}
+
+/** The samples of row bands `parts`, joined in order; band k writes into areas[k] first when given (then copied out). */
+function joinBands(
+  frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array,
+  parts: readonly (readonly [number, number])[], areas: readonly SampleArea[] | null,
+): MedialSamples {
+  const calls = parts.map(([a, b], k): Parameters<typeof medialRows> => [frame, set, field, phase, a, b, areas ? areas[k] : undefined]);
+  if (parts.length === 1 && !areas) return medialRows(...calls[0]);
+  const got = parts.length === 1 ? [medialRows(...calls[0])] : runSplit(import.meta.url, 'medialRows', medialRows, calls);
   const n = got.reduce((m, g) => m + g.n, 0);
   const X = new Float64Array(n), Y = new Float64Array(n), R = new Float64Array(n);
   const C = new Float32Array(n);
@@ -50,15 +79,31 @@ export function medialSamples(frame: Frame, set: SegmentSet, field: NearestField
   return { n, x: X, y: Y, r: R, cos: C, solid: S };
 }
 
-/** The medial samples of the pairs whose first pixel lies in rows j0 … j1 − 1. */
-export function medialRows(frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array, j0: number, j1: number): MedialSamples {
+/**
+ * The medial samples of the pairs whose first pixel lies in rows j0 … j1 − 1; written into `area` while they fit
+ * (the result then views it), into new arrays beyond.
+ */
+export function medialRows(
+  frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array, j0: number, j1: number, area?: SampleArea,
+): MedialSamples {
   const { nx, ny, box } = frame;
   const { seg, vx, vy, dist } = field;
   const geo = set.geo;
-  let cap = 1024;
-  let X = new Float64Array(cap), Y = new Float64Array(cap), R = new Float64Array(cap);
-  let C = new Float32Array(cap);
-  let S = new Uint8Array(cap);
+  const fit = area ? Math.floor(area.bytes / SAMPLE_BYTES) : 0;
+  let cap = fit > 0 ? fit : 1024;
+  let X: Float64Array, Y: Float64Array, R: Float64Array, C: Float32Array, S: Uint8Array;
+  if (area && fit > 0) {
+    const { buffer, offset } = area;
+    X = new Float64Array(buffer, offset, cap);
+    Y = new Float64Array(buffer, offset + 8 * cap, cap);
+    R = new Float64Array(buffer, offset + 16 * cap, cap);
+    C = new Float32Array(buffer, offset + 24 * cap, cap);
+    S = new Uint8Array(buffer, offset + 28 * cap, cap);
+  } else {
+    X = new Float64Array(cap); Y = new Float64Array(cap); R = new Float64Array(cap);
+    C = new Float32Array(cap);
+    S = new Uint8Array(cap);
+  }
   let n = 0;
   const push = (x: number, y: number, r: number, c: number, s: number): void => {
     if (n === cap) {
