@@ -10,7 +10,7 @@
 import type { CornerPlace, CornerSurvey } from './types.js';
 import { clusterPixels } from './cluster.js';
 import { sampledTransform, transformInput } from './edt.js';
-import type { NearestField } from './nearest.js';
+import { footTo, type NearestField } from './nearest.js';
 import { type Frame, toMm } from './frame.js';
 import type { RasterScratch } from './scratch.js';
 import { type SegmentSet, segDist2 as segD2 } from './segments.js';
@@ -65,7 +65,8 @@ function survey(
   i32: Int32Array | undefined,
 ): CornerSurvey {
   const { nx, ny, box, pixel } = frame;
-  const { seg, vx, vy, dist } = field;
+  const { seg, dist } = field;
+  const foot = new Float32Array(2);
   const geo = set.geo;
   const N = nx * ny;
   const R = toolRadius / pixel;
@@ -139,9 +140,11 @@ function survey(
       if (pw.value[p] <= 1e-6 * R * R) continue;
       const s = seg[p];
       const d = dist[p];
+      footTo(geo, s, i, j, foot, 0);
+      const vx = foot[0], vy = foot[1];
       let nxv: number, nyv: number;
-      if (d > 1e-9) { nxv = -vx[p] / d; nyv = -vy[p] / d; } else { nxv = -set.normal[2 * s]; nyv = -set.normal[2 * s + 1]; }
-      const fx = i + vx[p], fy = j + vy[p];
+      if (d > 1e-9) { nxv = -vx / d; nyv = -vy / d; } else { nxv = -set.normal[2 * s]; nyv = -set.normal[2 * s + 1]; }
+      const fx = i + vx, fy = j + vy;
       if (near(fx + R * nxv, fy + R * nyv, s) >= R - slack) continue;
       const c = pw.arg[p];
       let dep = Infinity;
@@ -197,7 +200,9 @@ function survey(
         const p = jj[k] * nx + ii[k];
         const s = seg[p];
         const d = dist[p];
-        const fx = ii[k] + vx[p], fy = jj[k] + vy[p];
+        footTo(geo, s, ii[k], jj[k], foot, 0);
+        const vx = foot[0], vy = foot[1];
+        const fx = ii[k] + vx, fy = jj[k] + vy;
         let ux: number, uy: number;
         const o = 5 * s;
         const t = ((fx - geo[o]) * geo[o + 2] + (fy - geo[o + 1]) * geo[o + 3]) * geo[o + 4];
@@ -213,7 +218,7 @@ function survey(
           const ax = set.normal[2 * sa], ay = set.normal[2 * sa + 1], bx = set.normal[2 * sb], by = set.normal[2 * sb + 1];
           const l = hypot(ax + bx, ay + by);
           if (ax * by - ay * bx < 0 && l > 1e-9) { ux = -(ax + bx) / l; uy = -(ay + by) / l; } else if (d > 1e-9) {
-            ux = -vx[p] / d; uy = -vy[p] / d;
+            ux = -vx / d; uy = -vy / d;
           } else continue;
         }
         consider(fx, fy, radiusAt(fx, fy, ux, uy, s));

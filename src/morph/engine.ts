@@ -90,7 +90,7 @@ export function buildMorphology(polygons: PolygonSet, options: MorphologyOptions
     },
     thicknessMap(maxSide: number): ThicknessMap {
       if (!(maxSide >= 1)) throw new RangeError(`thicknessMap: expected maxSide ≥ 1, found ${maxSide}`);
-      return thicknessMap(base.frame, base.field, base.phase, medial(), maxSide);
+      return thicknessMap(base.frame, base.set, base.field, base.phase, medial(), maxSide);
     },
   };
 }

@@ -6,7 +6,7 @@
  * inside the domain are kept. Steps and the reasons for them: docs/notes/morph.md, "Medial samples".
  * Frame: pixel units of frame.ts (pixel (i, j) centred at (i, j), y up).
  */
-import type { NearestField } from './nearest.js';
+import { footTo, type NearestField } from './nearest.js';
 import type { Frame } from './frame.js';
 import { type SegmentSet, segDist2, sideOf } from './segments.js';
 import { snapToVertex } from './vertex.js';
@@ -87,7 +87,8 @@ export function medialRows(
   frame: Frame, set: SegmentSet, field: NearestField, phase: Uint8Array, j0: number, j1: number, area?: SampleArea,
 ): MedialSamples {
   const { nx, ny, box } = frame;
-  const { seg, vx, vy, dist } = field;
+  const { seg, dist } = field;
+  const foot = new Float32Array(4);
   const geo = set.geo;
   const fit = area ? Math.floor(area.bytes / SAMPLE_BYTES) : 0;
   let cap = fit > 0 ? fit : 1024;
@@ -126,7 +127,9 @@ export function medialRows(
     const a = seg[p], b = seg[q];
     if (a === b || a < 0 || b < 0) return;
     const sp = phase[p] === 1 ? 1 : -1, sq = phase[q] === 1 ? 1 : -1;
-    const dot = sp * sq * (vx[p] * vx[q] + vy[p] * vy[q]);
+    footTo(geo, a, pi, pj, foot, 0);
+    footTo(geo, b, qi, qj, foot, 2);
+    const dot = sp * sq * (foot[0] * foot[2] + foot[1] * foot[3]);
     if (dot > 0.5 * dist[p] * dist[q]) return;
     // root of g(t) = D_a − D_b along p → q; g(0) ≤ 0 ≤ g(1) when a, b are the nearest of p, q
     let t0 = 0, t1 = 1;

@@ -1,6 +1,6 @@
 /**
- * Feature transform: for every pixel, the boundary segment nearest to its centre, the foot vector and the exact
- * distance. One transform serves both phases (the segment list of segments.ts).
+ * Feature transform: for every pixel, the boundary segment nearest to its centre and the exact distance; the
+ * foot vector on demand (footTo). One transform serves both phases (the segment list of segments.ts).
  *
  * Vector propagation after P.-E. Danielsson, "Euclidean distance mapping", Computer Graphics and Image
  * Processing 14(3):227–248, 1980, DOI 10.1016/0146-664X(80)90054-4, carrying segment ids and comparing exact
@@ -15,9 +15,6 @@ import { type SegmentSet, segDist2 } from './segments.js';
 export interface NearestField {
   /** Nearest segment id per pixel; −1 when there is no boundary at all. */
   readonly seg: Int32Array;
-  /** Vector from the pixel centre to its nearest boundary point, pixel units. */
-  readonly vx: Float32Array;
-  readonly vy: Float32Array;
   /** Unsigned distance from the pixel centre to the boundary, pixel units (Infinity without a boundary). */
   readonly dist: Float32Array;
 }
@@ -37,8 +34,6 @@ export function nearestField(frame: Frame, set: SegmentSet, best?: Float64Array)
   }
   const seg = int32(N, shared).fill(-1);
   best = (best ?? float64(N, shared)).fill(Infinity);
-  const vx = float32(N, shared);
-  const vy = float32(N, shared);
   const dist = float32(N, shared).fill(Infinity);
   const { geo, prev, next } = set;
   const rows = bands(ny, lanes);
@@ -47,8 +42,8 @@ export function nearestField(frame: Frame, set: SegmentSet, best?: Float64Array)
   if (set.n > 0) {
     for (let round = 0; round < 2; round++) sweep(nx, ny, seg, best, geo);
   }
-  runSplit(here, 'polishRows', polishRows, rows.map(([a, b]) => [geo, prev, next, seg, best, vx, vy, dist, nx, a, b] as const));
-  return { seg, vx, vy, dist };
+  runSplit(here, 'polishRows', polishRows, rows.map(([a, b]) => [geo, prev, next, seg, best, dist, nx, a, b] as const));
+  return { seg, dist };
 }
 
 /** Seeds rows j0 … j1 − 1: the 3×3 pixels around each ½-pixel step of each segment (in id order) take it when closer. */
@@ -81,10 +76,10 @@ export function seedRows(
   }
 }
 
-/** Polishes rows j0 … j1 − 1: walk along the ring while a neighbouring segment is closer; then foot and distance. */
+/** Polishes rows j0 … j1 − 1: walk along the ring while a neighbouring segment is closer; then the distance. */
 export function polishRows(
   geo: Float64Array, prev: Int32Array, next: Int32Array, seg: Int32Array, best: Float64Array,
-  vx: Float32Array, vy: Float32Array, dist: Float32Array, nx: number, j0: number, j1: number,
+  dist: Float32Array, nx: number, j0: number, j1: number,
 ): void {
   for (let j = j0, p = j0 * nx; j < j1; j++) {
     for (let i = 0; i < nx; i++, p++) {
@@ -99,11 +94,23 @@ export function polishRows(
       let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
       u = u < 0 ? 0 : u > 1 ? 1 : u;
       const fx = ax + u * dx - i, fy = ay + u * dy - j;
-      vx[p] = fx;
-      vy[p] = fy;
       dist[p] = Math.sqrt(fx * fx + fy * fy);
     }
   }
+}
+
+/**
+ * The vector from the centre of pixel (i, j) to its nearest point on segment s (pixel units; the foot the polish
+ * measures `dist` from), rounded to single precision: out[k], out[k + 1]. Computed on demand rather than stored:
+ * its readers need it at a small share of the pixels.
+ */
+export function footTo(geo: Float64Array, s: number, i: number, j: number, out: Float32Array, k: number): void {
+  const o = 5 * s;
+  const ax = geo[o], ay = geo[o + 1], dx = geo[o + 2], dy = geo[o + 3];
+  let u = ((i - ax) * dx + (j - ay) * dy) * geo[o + 4];
+  u = u < 0 ? 0 : u > 1 ? 1 : u;
+  out[k] = ax + u * dx - i;
+  out[k + 1] = ay + u * dy - j;
 }
 
 /** One forward and one backward four-scan pass (8 neighbours); a segment just tested for a pixel is not tested again. */

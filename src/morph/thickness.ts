@@ -8,13 +8,15 @@
  */
 import type { ThicknessMap } from './types.js';
 import type { MedialSamples } from './medial.js';
-import type { NearestField } from './nearest.js';
+import { footTo, type NearestField } from './nearest.js';
+import type { SegmentSet } from './segments.js';
 import type { Frame } from './frame.js';
 import { hypot } from '../geom/portable-math.js';
 
 /** Coarse local-thickness raster of the solid, at most `maxSide` pixels along the longer side. */
 export function thicknessMap(
   frame: Frame,
+  set: SegmentSet,
   field: NearestField,
   phase: Uint8Array,
   samples: MedialSamples,
@@ -85,6 +87,8 @@ export function thicknessMap(
   }
   // d (mm) carried to each coarse centre to first order (d0, for finding ridges) and its certain lower bound
   // dFine − |c − p| (rIn, the radius painted)
+  const geo = set.geo;
+  const foot = new Float32Array(2);
   const d0 = new Float32Array(values.length);
   const rIn = new Float32Array(values.length);
   for (let j = 0; j < cny; j++) {
@@ -103,7 +107,8 @@ export function thicknessMap(
       }
       const pu = p % frame.nx, pv = (p - pu) / frame.nx;
       const du = (x - frame.x0) / px - 0.5 - pu, dv = (y - frame.y0) / px - 0.5 - pv;
-      d0[q] = Math.max(0, dist - (du * field.vx[p] + dv * field.vy[p]) / dist) * px;
+      footTo(geo, field.seg[p], pu, pv, foot, 0);
+      d0[q] = Math.max(0, dist - (du * foot[0] + dv * foot[1]) / dist) * px;
       rIn[q] = Math.max(0, dist - hypot(du, dv)) * px;
     }
   }
