@@ -28,14 +28,13 @@ export function samplesPerPixel(colorType: PngColorType): number {
   return colorType === 0 ? 1 : colorType === 2 ? 3 : colorType === 4 ? 2 : 4;
 }
 
-function chunk(type: string, data: Uint8Array): Uint8Array {
-  const out = new Uint8Array(12 + data.length);
-  const view = new DataView(out.buffer);
-  view.setUint32(0, data.length);
-  for (let i = 0; i < 4; i++) out[4 + i] = type.charCodeAt(i);
-  out.set(data, 8);
-  view.setUint32(8 + data.length, crc32(out, 4, 8 + data.length));
-  return out;
+/** Writes chunk `type` with `data` at out[o …] (length, type, data, CRC); returns the offset after it. */
+function putChunk(out: Uint8Array, view: DataView, o: number, type: string, data: Uint8Array): number {
+  view.setUint32(o, data.length);
+  for (let i = 0; i < 4; i++) out[o + 4 + i] = type.charCodeAt(i);
+  out.set(data, o + 8);
+  view.setUint32(o + 8 + data.length, crc32(out, o + 4, o + 8 + data.length));
+  return o + 12 + data.length;
 }
 
 /**
@@ -67,18 +66,13 @@ export function encodePng(image: RasterImage): Uint8Array {
     raw.set(data.subarray(j * stride, (j + 1) * stride), j * (stride + 1) + 1);
   }
   const idat = deflate(raw, { level: 9 });
-  const parts = [
-    Uint8Array.of(0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a),
-    chunk('IHDR', ihdr),
-    chunk('IDAT', idat),
-    chunk('IEND', new Uint8Array(0)),
-  ];
-  const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
-  let o = 0;
-  for (const p of parts) {
-    out.set(p, o);
-    o += p.length;
-  }
+  // signature, IHDR, IDAT, IEND written straight into the file's bytes
+  const out = new Uint8Array(8 + (12 + ihdr.length) + (12 + idat.length) + 12);
+  const view = new DataView(out.buffer);
+  out.set([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+  let o = putChunk(out, view, 8, 'IHDR', ihdr);
+  o = putChunk(out, view, o, 'IDAT', idat);
+  putChunk(out, view, o, 'IEND', new Uint8Array(0));
   return out;
 }
 

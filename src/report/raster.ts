@@ -57,9 +57,9 @@ export function blockMeans(
       }
     }
   }
-  const means = new Float64Array(w * h);
-  for (let o = 0; o < means.length; o++) means[o] = cnt[o] > 0 ? sum[o] / cnt[o] : NaN;
-  return { w, h, means };
+  // the sums become the means in place
+  for (let o = 0; o < sum.length; o++) sum[o] = cnt[o] > 0 ? sum[o] / cnt[o] : NaN;
+  return { w, h, means: sum };
 }
 
 /**
