@@ -1,6 +1,7 @@
 /**
- * `rhoform batch` end to end, on worker threads: the compiled binary (tsc into a temporary folder; worker
- * threads cannot load the TypeScript sources) runs on fixtures/batch/ (three valid grids, one ragged CSV).
+ * `rhoform batch` end to end, on worker threads: the binary as shipped (tsc into a temporary folder, then the
+ * CLI bundle, scripts/bundle-cli.mjs; worker threads cannot load the TypeScript sources) runs on
+ * fixtures/batch/ (three valid grids, one ragged CSV).
  *
  * Oracle: each file's own single build (`rhoform build <file> --json`, in-process from the TypeScript
  * sources) — the summary row must repeat its report's numbers, and the broken file's row its error code.
@@ -13,6 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Report } from '../../src/types.js';
 import { readCsv } from './batch-csv-reader.js';
 import { cli } from './harness.js';
+import { bundleCli } from '../../scripts/bundle-cli.mjs';
 
 const root = resolve(import.meta.dirname, '../..');
 const FIX = 'fixtures/batch';
@@ -30,15 +32,16 @@ function rhoform(args: string[], cwd = root): { code: number; stdout: string; st
   return { code: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
 }
 
-beforeAll(() => {
+beforeAll(async () => {
   build = mkdtempSync(join(tmpdir(), 'rhoform-dist-'));
   const tsc = join(root, 'node_modules/typescript/bin/tsc');
   // Type errors elsewhere in the tree must not stop the emit; the check below is that the binary exists.
   spawnSync(process.execPath, [tsc, '-p', join(root, 'tsconfig.build.json'), '--outDir', join(build, 'dist')], { encoding: 'utf8' });
   writeFileSync(join(build, 'package.json'), '{"type":"module"}\n');
   symlinkSync(join(root, 'node_modules'), join(build, 'node_modules'));
+  await bundleCli(join(build, 'dist'));
   mainJs = join(build, 'dist/cli/main.js');
-  expect(existsSync(join(build, 'dist/cli/batch/worker.js'))).toBe(true);
+  expect(existsSync(join(build, 'dist/bin/batch/worker.js'))).toBe(true);
 }, 120_000);
 
 afterAll(() => {

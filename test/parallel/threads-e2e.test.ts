@@ -1,6 +1,6 @@
 /**
- * Both cores, end to end: the compiled binary (tsc into a temporary folder; worker threads cannot load the
- * TypeScript sources) builds the same grid with RHOFORM_THREADS=1 and =2. The grid is large enough that the
+ * Both cores, end to end: the binary as shipped (tsc into a temporary folder, then the CLI bundle,
+ * scripts/bundle-cli.mjs; worker threads cannot load the TypeScript sources) builds the same grid with RHOFORM_THREADS=1 and =2. The grid is large enough that the
  * morphology raster (2.4 M pixels) and the density picture (605 KB of samples) are split over the threads;
  * every output file must be the same bytes, the report's run figures (timings, peak memory) aside.
  */
@@ -12,19 +12,21 @@ import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { npyFloat64 } from '../bench/npy-write.js';
 import { platePattern } from '../bench/plate.js';
+import { bundleCli } from '../../scripts/bundle-cli.mjs';
 
 const root = resolve(import.meta.dirname, '../..');
 const work = mkdtempSync(join(tmpdir(), 'rhoform-threads-'));
 let mainJs = '';
 let distSrc = '';
 
-beforeAll(() => {
+beforeAll(async () => {
   const build = join(work, 'pkg');
   mkdirSync(build);
   const tsc = join(root, 'node_modules/typescript/bin/tsc');
   spawnSync(process.execPath, [tsc, '-p', join(root, 'tsconfig.build.json'), '--outDir', join(build, 'dist')], { encoding: 'utf8' });
   writeFileSync(join(build, 'package.json'), '{"type":"module"}\n');
   symlinkSync(join(root, 'node_modules'), join(build, 'node_modules'));
+  await bundleCli(join(build, 'dist'));
   mainJs = join(build, 'dist/cli/main.js');
   distSrc = join(build, 'dist/src');
   expect(existsSync(join(build, 'dist/src/parallel/worker.js'))).toBe(true);
