@@ -11,7 +11,9 @@
  *   bin/worker.js        the lanes' thread (src/parallel/worker.ts)
  *   bin/batch/worker.js  the batch worker thread (cli/batch/worker.ts)
  *   bin/lane-<name>.js   one per module that hands tasks to the lanes (see LANE_MODULES)
- * Third-party packages stay external (node_modules), as tsc's output has them.
+ * Third-party packages are bundled too (measured: fewer files to load; docs/performance.md), except the two
+ * emscripten outputs of js-angusj-clipper — its WebAssembly build, whose binary it embeds, and its asm.js fallback
+ * — which stay in node_modules and are required from there when the boolean engine loads (see clipperNative).
  *
  * Modules that use `import.meta` must keep working from the bundle; each is listed below, and the build fails on
  * one that is not:
@@ -58,6 +60,33 @@ const moduleUrlPlugin = {
   },
 };
 
+/**
+ * js-angusj-clipper's wrapper (CommonJS) requires its engine, `./wasm/clipper-wasm` or `./wasm/clipper`, only when
+ * the engine is loaded; both stay the package's own files (0.2 and 0.35 MB that a build without booleans never
+ * reads), required at run time by their path in the package.
+ */
+const clipperNative = {
+  name: 'rhoform-clipper-native',
+  setup(b) {
+    b.onResolve({ filter: /^\.\/wasm\/clipper(-wasm)?$/ }, (a) =>
+      a.importer.includes(`${sep}js-angusj-clipper${sep}`) ? { path: `js-angusj-clipper/universal/wasm/${basename(a.path)}.js`, external: true } : undefined,
+    );
+  },
+};
+
+/**
+ * An ES module has no `require`; esbuild's helper for a CommonJS `require` of an external module (clipperNative)
+ * looks for one in the scope of the file that defines the helper. That file gets one, made by createRequire.
+ */
+const REQUIRE_HELPER = 'Dynamic require of "';
+const REQUIRE_LINE = 'import { createRequire as __rhoformCreateRequire } from "node:module"; const require = __rhoformCreateRequire(import.meta.url);\n';
+
+function withRequire(text) {
+  if (!text.includes(REQUIRE_HELPER)) return text;
+  const hashbang = text.startsWith('#!') ? text.slice(0, text.indexOf('\n') + 1) : '';
+  return hashbang + REQUIRE_LINE + text.slice(hashbang.length);
+}
+
 /** Fails when a module of RELATIVE or LANE_MODULES landed where its paths do not hold. */
 function checkPlacement(metafile, outRoot) {
   const where = new Map();
@@ -90,19 +119,20 @@ export async function bundleCli(dist = join(root, 'dist')) {
     format: 'esm',
     platform: 'node',
     target: 'node20',
-    packages: 'external',
     charset: 'utf8',
     legalComments: 'none',
     metafile: true,
     write: false,
     logLevel: 'warning',
-    plugins: [moduleUrlPlugin],
+    plugins: [moduleUrlPlugin, clipperNative],
   });
   checkPlacement(result.metafile, dist);
+  const helpers = result.outputFiles.filter((f) => f.text.includes(REQUIRE_HELPER)).length;
+  if (helpers > 1) throw new Error(`expected esbuild's require helper in at most one file of the CLI bundle, found it in ${helpers}`);
   rmSync(join(dist, 'bin'), { recursive: true, force: true });
   for (const f of result.outputFiles) {
     mkdirSync(dirname(f.path), { recursive: true });
-    writeFileSync(f.path, f.contents);
+    writeFileSync(f.path, withRequire(f.text));
   }
   return result.outputFiles.map((f) => f.path);
 }
