@@ -79,7 +79,8 @@ const clipperNative = {
  * looks for one in the scope of the file that defines the helper. That file gets one, made by createRequire.
  */
 const REQUIRE_HELPER = 'Dynamic require of "';
-const REQUIRE_LINE = 'import { createRequire as __rhoformCreateRequire } from "node:module"; const require = __rhoformCreateRequire(import.meta.url);\n';
+// on the file's first line, so that the source map's lines still hold
+const REQUIRE_LINE = 'import { createRequire as __rhoformCreateRequire } from "node:module"; const require = __rhoformCreateRequire(import.meta.url); ';
 
 function withRequire(text) {
   if (!text.includes(REQUIRE_HELPER)) return text;
@@ -121,18 +122,21 @@ export async function bundleCli(dist = join(root, 'dist')) {
     target: 'node20',
     charset: 'utf8',
     legalComments: 'none',
+    // for stack traces in TypeScript terms: node --enable-source-maps dist/cli/main.js …
+    sourcemap: 'linked',
+    sourcesContent: false,
     metafile: true,
     write: false,
     logLevel: 'warning',
     plugins: [moduleUrlPlugin, clipperNative],
   });
   checkPlacement(result.metafile, dist);
-  const helpers = result.outputFiles.filter((f) => f.text.includes(REQUIRE_HELPER)).length;
+  const helpers = result.outputFiles.filter((f) => f.path.endsWith('.js') && f.text.includes(REQUIRE_HELPER)).length;
   if (helpers > 1) throw new Error(`expected esbuild's require helper in at most one file of the CLI bundle, found it in ${helpers}`);
   rmSync(join(dist, 'bin'), { recursive: true, force: true });
   for (const f of result.outputFiles) {
     mkdirSync(dirname(f.path), { recursive: true });
-    writeFileSync(f.path, withRequire(f.text));
+    writeFileSync(f.path, f.path.endsWith('.js') ? withRequire(f.text) : f.contents);
   }
   return result.outputFiles.map((f) => f.path);
 }
