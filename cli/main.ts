@@ -3,6 +3,7 @@
 import { spawnSync } from 'node:child_process';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
+import { primeAllocator } from './allocator.js';
 
 const argv = process.argv.slice(2);
 
@@ -29,6 +30,7 @@ if (wantsSingleThreadedGc()) {
     process.exitCode = child.status ?? 2; // killed by a signal: the run did not finish
   }
 } else {
+  primeAllocator();
   const { runAsync } = await import('./start.js');
   process.exitCode = await runAsync(argv, {
     stdout: (t) => void process.stdout.write(t),
