@@ -8,10 +8,15 @@ import { RhoformError } from '../errors.js';
 import type { SamplePosition } from '../read/types.js';
 import type { DensityGrid } from '../types.js';
 import type { FieldStats } from './stats.js';
-import { mndPercent, mndTerm } from './mnd.js';
+import { mndPercent } from './mnd.js';
+import * as P from './prepare-pass.js';
 
-/** Overshoot outside [0, 1] that is clipped with a warning rather than refused. */
-export const RANGE_OVERSHOOT = 0.05;
+import { RANGE_OVERSHOOT } from './prepare-pass.js';
+
+export { RANGE_OVERSHOOT };
+
+/** Samples per kernel call: short calls let V8 optimize the kernels early (prepare-pass.ts). */
+const BLOCK = 2048;
 
 export interface PrepareOptions {
   readonly valueRange: readonly [number, number];
@@ -65,73 +70,33 @@ export function prepareGrid(grid: DensityGrid, locate: Locate, options: PrepareO
   const out = options.inPlace === true ? src : new Float64Array(n);
   const scale = 1 / (hi - lo);
   const nx = grid.nx;
-  let nonFinite = 0;
-  // The messages name raw values, which `inPlace` overwrites: kept as the pass meets them. In file order the
-  // first non-finite sample is the grid-order first one (bottom row first) or the first one of the highest grid
-  // row holding any (top row first).
-  let firstNonFinite = -1;
-  let firstNonFiniteRaw = NaN;
-  let topNonFinite = -1;
-  let topNonFiniteRaw = NaN;
-  let over = 0;
-  let worst = -1;
-  let worstRaw = NaN;
-  let worstExcess = 0;
-  let clipped = 0;
-  let min = Infinity;
-  let max = -Infinity;
-  let sum = 0;
-  // input statistics (finite values only)
-  let rawMin = Infinity;
-  let rawMax = -Infinity;
-  let mappedSum = 0;
-  let mnd = 0;
-  let grey = 0;
-  for (let k = 0; k < n; k++) {
-    const raw = src[k];
-    if (!Number.isFinite(raw)) {
-      nonFinite++;
-      if (firstNonFinite < 0) {
-        firstNonFinite = k;
-        firstNonFiniteRaw = raw;
-      }
-      if (topNonFinite < 0 || Math.floor(k / nx) !== Math.floor(topNonFinite / nx)) {
-        topNonFinite = k;
-        topNonFiniteRaw = raw;
-      }
-      out[k] = 0;
-      if (0 < min) min = 0;
-      continue;
-    }
-    if (raw < rawMin) rawMin = raw;
-    if (raw > rawMax) rawMax = raw;
-    const v = lo === 0 && hi === 1 ? raw : (raw - lo) * scale;
-    mappedSum += v;
-    if (v > 0.1 && v < 0.9) grey++;
-    if (v >= 0 && v <= 1) {
-      out[k] = v;
-      sum += v;
-      mnd += mndTerm(v);
-      if (v < min) min = v;
-      if (v > max) max = v;
-    } else {
-      clipped++;
-      const excess = v < 0 ? -v : v - 1;
-      if (excess > RANGE_OVERSHOOT + 1e-12) {
-        over++;
-        if (excess > worstExcess) {
-          worstExcess = excess;
-          worst = k;
-          worstRaw = raw;
-        }
-      }
-      const c = v < 0 ? 0 : 1;
-      out[k] = c;
-      sum += c;
-      if (c < min) min = c;
-      if (c > max) max = c;
-    }
+  const identity = lo === 0 && hi === 1;
+  const st = P.newPassState();
+  for (let k = 0; k < n; ) {
+    const end = n - k > BLOCK ? k + BLOCK : n;
+    k = P.prepareCommon(src, out, k, end, lo, scale, identity, st);
+    if (k < end) k = P.prepareRare(src, out, k, end, lo, scale, identity, nx, st);
   }
+  const nonFinite = st[P.S_NON_FINITE];
+  // In file order the first non-finite sample is the grid-order first one (bottom row first) or the first one
+  // of the highest grid row holding any (top row first); the pass keeps both, with their raw values, since
+  // `inPlace` overwrites them.
+  const firstNonFinite = st[P.S_FIRST_NF];
+  const firstNonFiniteRaw = st[P.S_FIRST_NF_RAW];
+  const topNonFinite = st[P.S_TOP_NF];
+  const topNonFiniteRaw = st[P.S_TOP_NF_RAW];
+  const over = st[P.S_OVER];
+  const worst = st[P.S_WORST];
+  const worstRaw = st[P.S_WORST_RAW];
+  const clipped = st[P.S_CLIPPED];
+  const min = st[P.S_MIN];
+  let max = st[P.S_MAX];
+  const sum = st[P.S_SUM];
+  const rawMin = st[P.S_RAW_MIN];
+  const rawMax = st[P.S_RAW_MAX];
+  const mappedSum = st[P.S_MAPPED];
+  const mnd = st[P.S_MND];
+  const grey = st[P.S_GREY];
   if (nonFinite > 0 && 0 > max) max = 0;
   const finite = n - nonFinite;
   const inputStats: FieldStats = {
