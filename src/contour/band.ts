@@ -85,15 +85,25 @@ function max4(a: number, b: number, c: number, d: number): number {
 
 /** Lattice value range; the edge nodes repeat edge samples, so the samples suffice. */
 function valueBounds(grid: DensityGrid): [number, number] {
-  let gmin = Infinity;
-  let gmax = -Infinity;
   const v = grid.values;
-  for (let k = 0; k < v.length; k++) {
+  const mm = new Float64Array(2);
+  mm[0] = Infinity;
+  mm[1] = -Infinity;
+  for (let k = 0; k < v.length; k += RUN) boundsRun(v, k, v.length - k > RUN ? k + RUN : v.length, mm);
+  return [mm[0], mm[1]];
+}
+
+/** mm[0], mm[1] = min, max of mm and the lattice values of v[k0 … k1 − 1]. */
+function boundsRun(v: Float64Array, k0: number, k1: number, mm: Float64Array): void {
+  let gmin = mm[0];
+  let gmax = mm[1];
+  for (let k = k0; k < k1; k++) {
     const x = latticeValue(v[k]);
     if (x < gmin) gmin = x;
     if (x > gmax) gmax = x;
   }
-  return [gmin, gmax];
+  mm[0] = gmin;
+  mm[1] = gmax;
 }
 
 /** One pass. `bounds`: the sample range when the caller knows it (finite grids), saving a pass. */
@@ -113,27 +123,43 @@ export function cellRangeHistogram(grid: DensityGrid, bins: number, bounds?: rea
   const scale = bins / (gmax - gmin);
   for (let j = 0; j < r.rows; j++) {
     r.load(j);
-    const { lo, hi } = r;
-    const h = ys[j + 1] - ys[j];
-    for (let i = 0; i < cols; i++) {
-      const a = lo[i];
-      const b = lo[i + 1];
-      const c = hi[i];
-      const d = hi[i + 1];
-      const mn = min4(a, b, c, d);
-      const mx = max4(a, b, c, d);
-      const area = (xs[i + 1] - xs[i]) * h;
-      let kmin = ((mn - gmin) * scale) | 0;
-      let kmax = ((mx - gmin) * scale) | 0;
-      if (kmin > bins) kmin = bins;
-      if (kmax > bins) kmax = bins;
-      minHist[kmin] += area;
-      maxHist[kmax] += area;
-      minCount[kmin]++;
-      maxCount[kmax]++;
-    }
+    histogramRow(r.lo, r.hi, xs, cols, ys[j + 1] - ys[j], gmin, scale, bins, minHist, maxHist, minCount, maxCount);
   }
   return { gmin, gmax, total, minHist, maxHist, minCount, maxCount, cells };
+}
+
+/** cellRangeHistogram's cells of one row: `lo`, `hi` its bottom and top lattice values, `h` its height (mm). */
+function histogramRow(
+  lo: Float64Array,
+  hi: Float64Array,
+  xs: Float64Array,
+  cols: number,
+  h: number,
+  gmin: number,
+  scale: number,
+  bins: number,
+  minHist: Float64Array,
+  maxHist: Float64Array,
+  minCount: Int32Array,
+  maxCount: Int32Array,
+): void {
+  for (let i = 0; i < cols; i++) {
+    const a = lo[i];
+    const b = lo[i + 1];
+    const c = hi[i];
+    const d = hi[i + 1];
+    const mn = min4(a, b, c, d);
+    const mx = max4(a, b, c, d);
+    const area = (xs[i + 1] - xs[i]) * h;
+    let kmin = ((mn - gmin) * scale) | 0;
+    let kmax = ((mx - gmin) * scale) | 0;
+    if (kmin > bins) kmin = bins;
+    if (kmax > bins) kmax = bins;
+    minHist[kmin] += area;
+    maxHist[kmax] += area;
+    minCount[kmin]++;
+    maxCount[kmax]++;
+  }
 }
 
 /**
@@ -171,42 +197,67 @@ export function packBand(grid: DensityGrid, lo: number, hi: number, capacity?: n
   const { xs, ys, cols } = r;
   const room = capacity !== undefined && capacity >= 0 ? Math.min(capacity, cols * r.rows) : Math.max(1024, (cols * r.rows) >>> 4);
   let buf = new Float64Array(BAND_STRIDE * room);
-  let fullBase = 0;
-  let o = 0;
+  const acc = new Float64Array(2); // the full cells' area (mm²) and the next free float of buf
   for (let j = 0; j < r.rows; j++) {
     r.load(j);
-    const bot = r.lo;
-    const top = r.hi;
     const h = ys[j + 1] - ys[j];
-    for (let i = 0; i < cols; i++) {
-      const a = bot[i];
-      const b = bot[i + 1];
-      const c = top[i];
-      const d = top[i + 1];
-      const mn = min4(a, b, c, d);
-      if (mn >= hi) {
-        fullBase += (xs[i + 1] - xs[i]) * h;
-        continue;
-      }
-      const mx = max4(a, b, c, d);
-      if (mx < lo) continue;
-      if (o + BAND_STRIDE > buf.length) {
-        const bigger = new Float64Array(Math.max(2 * buf.length, 1024 * BAND_STRIDE));
-        bigger.set(buf);
-        buf = bigger;
-      }
-      buf[o] = a;
-      buf[o + 1] = b;
-      buf[o + 2] = c;
-      buf[o + 3] = d;
-      buf[o + 4] = xs[i + 1] - xs[i];
-      buf[o + 5] = h;
-      buf[o + 6] = mn;
-      buf[o + 7] = mx;
-      o += BAND_STRIDE;
+    for (let i = 0; ; ) {
+      i = packRow(r.lo, r.hi, xs, cols, h, lo, hi, buf, i, acc);
+      if (i === cols) break;
+      // the buffer is full at cell i: rare when `capacity` bounds the band
+      const bigger = new Float64Array(Math.max(2 * buf.length, 1024 * BAND_STRIDE));
+      bigger.set(buf);
+      buf = bigger;
     }
   }
-  return { fullBase, buf, count: o / BAND_STRIDE };
+  return { fullBase: acc[0], buf, count: acc[1] / BAND_STRIDE };
+}
+
+/**
+ * packBand's cells i0 … cols − 1 of one row (`bot`, `top` its lattice values, `h` its height in mm); acc[0] the
+ * full cells' area, acc[1] the next free float of buf. Returns cols, or the cell that did not fit into buf.
+ */
+function packRow(
+  bot: Float64Array,
+  top: Float64Array,
+  xs: Float64Array,
+  cols: number,
+  h: number,
+  lo: number,
+  hi: number,
+  buf: Float64Array,
+  i0: number,
+  acc: Float64Array,
+): number {
+  let fullBase = acc[0];
+  let o = acc[1];
+  let i = i0;
+  for (; i < cols; i++) {
+    const a = bot[i];
+    const b = bot[i + 1];
+    const c = top[i];
+    const d = top[i + 1];
+    const mn = min4(a, b, c, d);
+    if (mn >= hi) {
+      fullBase += (xs[i + 1] - xs[i]) * h;
+      continue;
+    }
+    const mx = max4(a, b, c, d);
+    if (mx < lo) continue;
+    if (o + BAND_STRIDE > buf.length) break;
+    buf[o] = a;
+    buf[o + 1] = b;
+    buf[o + 2] = c;
+    buf[o + 3] = d;
+    buf[o + 4] = xs[i + 1] - xs[i];
+    buf[o + 5] = h;
+    buf[o + 6] = mn;
+    buf[o + 7] = mx;
+    o += BAND_STRIDE;
+  }
+  acc[0] = fullBase;
+  acc[1] = o;
+  return i;
 }
 
 /** mm² at `level` of the packed cell at buf[o]. */
