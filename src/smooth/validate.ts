@@ -4,10 +4,10 @@
  * it about O(n); nesting casts one winding-number ray per ring. mm, y up.
  */
 
-import { type FlatRings, SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
+import { type FlatRings, SegmentGrid } from '../geom/segments.js';
 import { flatRingArea } from '../geom/area.js';
 import { ringSegments } from './deviation.js';
-import { hypot } from '../geom/portable-math.js';
+import { bucketPairs, totalLength } from './validate-cells.js';
 import type { SmoothScratch } from './scratch.js';
 
 /** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
@@ -50,28 +50,13 @@ export function validateRings(rings: FlatRings, roles: RingRoles, scratch?: Smoo
     }
   }
   if (n === 0) return { segmentHit, ringHit, blamed, problems };
-  let len = 0;
-  for (let s = 0; s < n; s++) len += hypot(seg.x1[s] - seg.x0[s], seg.y1[s] - seg.y0[s]);
+  const len = totalLength(seg.x0, seg.y0, seg.x1, seg.y1, n);
   const grid = new SegmentGrid(seg.x0, seg.y0, seg.x1, seg.y1, Math.max(2 * (len / n), 1e-9));
   const { x0, y0, x1, y1, ring } = seg;
-  const next = (s: number): number => (s + 1 === start[ring[s] + 1] ? start[ring[s]] : s + 1);
   const cells = grid.cols * grid.rows;
   for (let cell = 0; cell < cells; cell++) {
     const p0 = grid.cellStart[cell], p1 = grid.cellStart[cell + 1];
-    for (let p = p0; p < p1; p++) {
-      const s = grid.items[p];
-      for (let q = p + 1; q < p1; q++) {
-        const t = grid.items[q];
-        let bad: boolean;
-        if (ring[s] === ring[t] && next(s) === t) bad = foldsBack(x0[s], y0[s], x1[s], y1[s], x1[t], y1[t]);
-        else if (ring[s] === ring[t] && next(t) === s) bad = foldsBack(x0[t], y0[t], x1[t], y1[t], x1[s], y1[s]);
-        else bad = segmentsIntersect(x0[s], y0[s], x1[s], y1[s], x0[t], y0[t], x1[t], y1[t]);
-        if (bad) {
-          if (!segmentHit[s]) { segmentHit[s] = 1; problems++; }
-          if (!segmentHit[t]) { segmentHit[t] = 1; problems++; }
-        }
-      }
-    }
+    if (p1 - p0 > 1) problems += bucketPairs(x0, y0, x1, y1, ring, start, grid.items, p0, p1, segmentHit);
   }
   // nesting: winding number of all other rings at the first vertex of each ring
   for (let r = 0; r < nRings; r++) {
@@ -111,12 +96,6 @@ export function validateRings(rings: FlatRings, roles: RingRoles, scratch?: Smoo
     }
   }
   return { segmentHit, ringHit, blamed, problems };
-}
-
-/** Segments a→v and v→b fold back when a, v, b are collinear and a and b lie on the same side of v. */
-function foldsBack(ax: number, ay: number, vx: number, vy: number, bx: number, by: number): boolean {
-  if (orient(ax, ay, vx, vy, bx, by) !== 0) return false;
-  return (ax - vx) * (bx - vx) + (ay - vy) * (by - vy) > 0;
 }
 
 /** Marks every ring (other than r) with a segment crossing the ray from (px, py) towards +x. */
