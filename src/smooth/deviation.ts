@@ -130,76 +130,124 @@ const WINDOW = 8;
 export function spanDeviation(final: FlatRings, index: Int32Array, raw: FlatRings, spacing: number): number {
   const step = spacing > 0 && Number.isFinite(spacing) ? spacing : Infinity;
   const { xy, start } = final;
-  const R = raw.xy;
-  let worst = 0;
-  let span = new Float64Array(256);
-  let stack = new Float64Array(600);
-  const near = new Near();
-  // the first pass's distance of each vertex and the raw segment nearest to it, reused by the second
-  const nf = start[start.length - 1];
-  const vertexDist = new Float64Array(nf);
-  const vertexNear = new Int32Array(nf);
+  const w = new SpanWork(start[start.length - 1]);
   for (let pass = 0; pass < 2; pass++) {
     for (let r = 0; r + 1 < start.length; r++) {
       const a = start[r], b = start[r + 1];
       const s0 = raw.start[r], n = raw.start[r + 1] - s0;
       if (b <= a || n === 0) continue;
-      for (let f = a; f < b; f++) {
-        const g = f + 1 === b ? a : f + 1;
-        const ax = xy[2 * f], ay = xy[2 * f + 1], bx = xy[2 * g], by = xy[2 * g + 1];
-        const ia = index[f] - s0;
-        let gap = (index[g] - s0 - ia + n) % n;
-        if (gap === 0) gap = n;
-        const count = Math.min(gap + 2, n); // raw segments of the span, one extra on either side
-        if (span.length < 2 * (count + 1)) span = new Float64Array(4 * (count + 1));
-        let i = ia === 0 ? n - 1 : ia - 1; // raw vertex of the span's first segment, relative to s0
-        for (let j = 0; j <= count; j++) {
-          span[2 * j] = R[2 * (s0 + i)];
-          span[2 * j + 1] = R[2 * (s0 + i) + 1];
-          if (++i === n) i = 0;
-        }
-        near.reset(span, count);
-        if (pass === 0) {
-          // vertices first: a good lower bound prunes most of the sampling
-          const d = near.dist(ax, ay);
-          if (d > worst) worst = d;
-          vertexDist[f] = d;
-          vertexNear[f] = near.at;
-          continue;
-        }
-        const da = vertexDist[f];
-        const ja = vertexNear[f];
-        near.at = ja;
-        const db = near.dist(bx, by);
-        const jb = near.at;
-        const L = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
-        // pieces (t0, t1, d0, d1, j0, j1), six floats each, inline: a closure per segment cost a fifth of the time
-        let top = 0;
-        stack[0] = 0; stack[1] = 1; stack[2] = da; stack[3] = db; stack[4] = ja; stack[5] = jb;
-        top = 6;
-        while (top > 0) {
-          top -= 6;
-          const t0 = stack[top], t1 = stack[top + 1], d0 = stack[top + 2], d1 = stack[top + 3];
-          const j0 = stack[top + 4], j1 = stack[top + 5];
-          const len = (t1 - t0) * L;
-          if ((d0 + d1 + len) / 2 <= worst || len <= step) continue;
-          const x0 = ax + (bx - ax) * t0, y0 = ay + (by - ay) * t0, x1 = ax + (bx - ax) * t1, y1 = ay + (by - ay) * t1;
-          // distance to one fixed raw segment is convex along the chord: its larger end value bounds the piece
-          if (Math.max(near.to(j0, x1, y1), d0) <= worst || Math.max(near.to(j1, x0, y0), d1) <= worst) continue;
-          const tm = (t0 + t1) / 2;
-          near.at = j0;
-          const dm = near.dist(ax + (bx - ax) * tm, ay + (by - ay) * tm);
-          const jm = near.at;
-          if (dm > worst) worst = dm;
-          if (top + 12 > stack.length) { const g2 = new Float64Array(stack.length * 2); g2.set(stack); stack = g2; }
-          stack[top] = tm; stack[top + 1] = t1; stack[top + 2] = dm; stack[top + 3] = d1; stack[top + 4] = jm; stack[top + 5] = j1;
-          stack[top + 6] = t0; stack[top + 7] = tm; stack[top + 8] = d0; stack[top + 9] = dm; stack[top + 10] = j0; stack[top + 11] = jm;
-          top += 12;
-        }
-      }
+      for (let f = a; f < b; f += SPANS) spans(xy, index, raw.xy, a, b, f, b - f > SPANS ? f + SPANS : b, s0, n, pass, step, w);
     }
   }
-  return worst;
+  return w.worst[0];
+}
+
+/**
+ * Final segments per call of `spans`: short calls let V8 optimize it early, where one long loop ran in the
+ * interpreter until on-stack replacement with every double boxed (docs/performance.md, "Cold code").
+ */
+const SPANS = 256;
+
+/** spanDeviation's buffers and its running maximum (in a Float64Array, so that it stays unboxed). */
+class SpanWork {
+  span = new Float64Array(256);
+  stack = new Float64Array(600);
+  readonly near = new Near();
+  readonly worst = new Float64Array(1);
+  /** The first pass's distance of each vertex and the raw segment nearest to it, reused by the second. */
+  readonly vertexDist: Float64Array;
+  readonly vertexNear: Int32Array;
+  constructor(vertices: number) {
+    this.vertexDist = new Float64Array(vertices);
+    this.vertexNear = new Int32Array(vertices);
+  }
+}
+
+/**
+ * spanDeviation's final segments f0 … f1 − 1 of the ring of vertices a … b − 1, whose raw ring is raw
+ * vertices s0 … s0 + n − 1: pass 0 measures the vertices, pass 1 the segments between them.
+ */
+function spans(
+  xy: Float64Array, index: Int32Array, R: Float64Array, a: number, b: number, f0: number, f1: number,
+  s0: number, n: number, pass: number, step: number, w: SpanWork,
+): void {
+  let worst = w.worst[0];
+  let span = w.span;
+  let stack = w.stack;
+  const near = w.near;
+  const vertexDist = w.vertexDist;
+  const vertexNear = w.vertexNear;
+  const io = near.io;
+  for (let f = f0; f < f1; f++) {
+    const g = f + 1 === b ? a : f + 1;
+    const ax = xy[2 * f], ay = xy[2 * f + 1], bx = xy[2 * g], by = xy[2 * g + 1];
+    const ia = index[f] - s0;
+    let gap = (index[g] - s0 - ia + n) % n;
+    if (gap === 0) gap = n;
+    const count = Math.min(gap + 2, n); // raw segments of the span, one extra on either side
+    if (span.length < 2 * (count + 1)) span = w.span = new Float64Array(4 * (count + 1));
+    let i = ia === 0 ? n - 1 : ia - 1; // raw vertex of the span's first segment, relative to s0
+    for (let j = 0; j <= count; j++) {
+      span[2 * j] = R[2 * (s0 + i)];
+      span[2 * j + 1] = R[2 * (s0 + i) + 1];
+      if (++i === n) i = 0;
+    }
+    near.reset(span, count);
+    if (pass === 0) {
+      // vertices first: a good lower bound prunes most of the sampling
+      io[0] = ax;
+      io[1] = ay;
+      near.dist();
+      const d = io[2];
+      if (d > worst) worst = d;
+      vertexDist[f] = d;
+      vertexNear[f] = near.at;
+      continue;
+    }
+    const da = vertexDist[f];
+    const ja = vertexNear[f];
+    near.at = ja;
+    io[0] = bx;
+    io[1] = by;
+    near.dist();
+    const db = io[2];
+    const jb = near.at;
+    const L = Math.sqrt((bx - ax) * (bx - ax) + (by - ay) * (by - ay));
+    // pieces (t0, t1, d0, d1, j0, j1), six floats each, inline: a closure per segment cost a fifth of the time
+    let top = 0;
+    stack[0] = 0; stack[1] = 1; stack[2] = da; stack[3] = db; stack[4] = ja; stack[5] = jb;
+    top = 6;
+    while (top > 0) {
+      top -= 6;
+      const t0 = stack[top], t1 = stack[top + 1], d0 = stack[top + 2], d1 = stack[top + 3];
+      const j0 = stack[top + 4], j1 = stack[top + 5];
+      const len = (t1 - t0) * L;
+      if ((d0 + d1 + len) / 2 <= worst || len <= step) continue;
+      const x0 = ax + (bx - ax) * t0, y0 = ay + (by - ay) * t0, x1 = ax + (bx - ax) * t1, y1 = ay + (by - ay) * t1;
+      // distance to one fixed raw segment is convex along the chord: its larger end value bounds the piece
+      io[0] = x1;
+      io[1] = y1;
+      near.to(j0);
+      if (Math.max(io[2], d0) <= worst) continue;
+      io[0] = x0;
+      io[1] = y0;
+      near.to(j1);
+      if (Math.max(io[2], d1) <= worst) continue;
+      const tm = (t0 + t1) / 2;
+      near.at = j0;
+      io[0] = ax + (bx - ax) * tm;
+      io[1] = ay + (by - ay) * tm;
+      near.dist();
+      const dm = io[2];
+      const jm = near.at;
+      if (dm > worst) worst = dm;
+      if (top + 12 > stack.length) { const g2 = new Float64Array(stack.length * 2); g2.set(stack); stack = w.stack = g2; }
+      stack[top] = tm; stack[top + 1] = t1; stack[top + 2] = dm; stack[top + 3] = d1; stack[top + 4] = jm; stack[top + 5] = j1;
+      stack[top + 6] = t0; stack[top + 7] = tm; stack[top + 8] = d0; stack[top + 9] = dm; stack[top + 10] = j0; stack[top + 11] = jm;
+      top += 12;
+    }
+  }
+  w.worst[0] = worst;
 }
 
 /** Nearest distance (mm) from a point to a short polyline (count segments), windowed for long ones. */
@@ -214,14 +262,22 @@ class Near {
     this.at = 0;
   }
 
-  /** Distance (mm) from a point to segment j of the polyline. */
-  to(j: number, px: number, py: number): number {
-    const p = this.p;
-    return Math.sqrt(sqSegDist(px, py, p[2 * j], p[2 * j + 1], p[2 * j + 2], p[2 * j + 3]));
+  /**
+   * The query point (x, y) and the answer (mm) of the last call: typed slots, since a double passed to or
+   * returned from a call V8 does not inline is boxed on the heap.
+   */
+  readonly io = new Float64Array(3);
+
+  /** io[2] = distance (mm) from the point io[0], io[1] to segment j of the polyline. */
+  to(j: number): void {
+    const p = this.p, io = this.io;
+    io[2] = Math.sqrt(sqSegDist(io[0], io[1], p[2 * j], p[2 * j + 1], p[2 * j + 2], p[2 * j + 3]));
   }
 
-  dist(px: number, py: number): number {
-    const p = this.p, count = this.count;
+  /** io[2] = distance (mm) from the point io[0], io[1] to the polyline; `at` = its nearest segment. */
+  dist(): void {
+    const p = this.p, count = this.count, io = this.io;
+    const px = io[0], py = io[1];
     let best = Infinity;
     let lo = 0, hi = count - 1;
     if (count > BRUTE) { lo = Math.max(0, this.at - WINDOW); hi = Math.min(count - 1, this.at + WINDOW); }
@@ -236,6 +292,6 @@ class Near {
       if (count <= BRUTE || !moved || (bestJ > lo && bestJ < hi)) break;
       lo = Math.max(0, bestJ - WINDOW); hi = Math.min(count - 1, bestJ + WINDOW);
     }
-    return Math.sqrt(best);
+    io[2] = Math.sqrt(best);
   }
 }
