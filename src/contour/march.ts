@@ -123,106 +123,139 @@ export function march(grid: DensityGrid, lat: GridLattice, level: number, rule: 
   const NY = ys.length;
   const bound = straddling !== undefined && straddling >= 0 ? crossingBound(straddling, NX, NY) : 0;
   const st = new Store(Math.max(1024, bound > 0 ? bound : 4 * (NX + NY)), bound, scratch);
-  let lo = new Float64Array(NX).fill(-Infinity);
-  let hi = new Float64Array(NX).fill(-Infinity);
-  let sLo = new Uint8Array(NX);
-  let sHi = new Uint8Array(NX);
-  let hLo = new Int32Array(NX - 1);
-  let hHi = new Int32Array(NX - 1);
-  const vRow = new Int32Array(NX);
-  const hStart = new Int32Array(NY);
-  const hEnd = new Int32Array(NY);
-  const ends = new Int32Array(4);
-
-  for (let j = 0; j < NY - 1; j++) {
-    // lattice row j + 1: the outermost row (NY − 1) is void, others carry grid row y.sample[j]
-    const r = j + 1;
-    let any = 0;
-    if (r === NY - 1) {
-      hi.fill(-Infinity);
-      sHi.fill(0);
-    } else {
-      fillRow(grid, lat.x.sample, lat.y.sample[r - 1], hi, 1);
-      hi[0] = -Infinity;
-      hi[NX - 1] = -Infinity;
-      for (let i = 0; i < NX; i++) {
-        const s = hi[i] >= L ? 1 : 0;
-        sHi[i] = s;
-        any |= s;
-      }
-    }
-    // crossings on the horizontal edges of row r, left to right
-    hStart[r] = st.n;
-    if (any) {
-      const yr = ys[r];
-      for (let i = 0; i < NX - 1; i++) {
-        const a = sHi[i];
-        if (a === sHi[i + 1]) continue;
-        const s = a ? i : i + 1;
-        const q = a ? i + 1 : i;
-        const t = crossing(hi[s], hi[q], L);
-        hHi[i] = st.add(xs[s] + t * (xs[q] - xs[s]), yr, 2 * i + a);
-      }
-    }
-    hEnd[r] = st.n;
-    // crossings on the vertical edges of cell row j
-    let cross = hEnd[r] > hStart[r] || hEnd[j] > hStart[j];
-    for (let i = 0; i < NX; i++) {
-      const a = sLo[i];
-      if (a === sHi[i]) continue;
-      cross = true;
-      let t: number;
-      let y: number;
-      if (a) {
-        t = crossing(lo[i], hi[i], L);
-        y = ys[j] + t * (ys[r] - ys[j]);
-      } else {
-        t = crossing(hi[i], lo[i], L);
-        y = ys[r] + t * (ys[j] - ys[r]);
-      }
-      vRow[i] = st.add(xs[i], y, -1);
-    }
-    if (cross) {
-      const next = st.next;
-      for (let i = 0; i < NX - 1; i++) {
-        const c = sLo[i] | (sLo[i + 1] << 1) | (sHi[i + 1] << 2) | (sHi[i] << 3);
-        if (c === 0 || c === 15) continue;
-        ends[0] = hLo[i];
-        ends[1] = vRow[i + 1];
-        ends[2] = hHi[i];
-        ends[3] = vRow[i];
-        if (c === 5) {
-          // bottom-left and top-right solid
-          if (joinsSolid(lo[i], hi[i + 1], lo[i + 1], hi[i], L, rule)) {
-            next[ends[0]] = ends[1];
-            next[ends[2]] = ends[3];
-          } else {
-            next[ends[0]] = ends[3];
-            next[ends[2]] = ends[1];
-          }
-        } else if (c === 10) {
-          // bottom-right and top-left solid
-          if (joinsSolid(lo[i + 1], hi[i], lo[i], hi[i + 1], L, rule)) {
-            next[ends[1]] = ends[2];
-            next[ends[3]] = ends[0];
-          } else {
-            next[ends[1]] = ends[0];
-            next[ends[3]] = ends[2];
-          }
-        } else {
-          next[ends[EXIT_EDGE[c]]] = ends[ENTRY_EDGE[c]];
-        }
-      }
-    }
-    const tf = lo;
-    lo = hi;
-    hi = tf;
-    const tu = sLo;
-    sLo = sHi;
-    sHi = tu;
-    const ti = hLo;
-    hLo = hHi;
-    hHi = ti;
-  }
+  const w = new RowPair(NX, NY);
+  // one call per row: V8 optimizes marchRow as an ordinary function early, where one long loop ran in the
+  // interpreter until on-stack replacement and then deoptimized at branches it had not yet seen
+  // (docs/performance.md, "Cold code")
+  for (let j = 0; j < NY - 1; j++) marchRow(grid, lat, L, rule, j, xs, ys, st, w);
+  const { hStart, hEnd } = w;
   return { count: st.n, x: st.x, y: st.y, next: st.next, hKey: st.hKey, hStart, hEnd };
+}
+
+/** march's rows: the lattice values, solid flags and horizontal crossing ids of the rows below and above. */
+class RowPair {
+  lo: Float64Array;
+  hi: Float64Array;
+  sLo: Uint8Array;
+  sHi: Uint8Array;
+  hLo: Int32Array;
+  hHi: Int32Array;
+  readonly vRow: Int32Array;
+  readonly hStart: Int32Array;
+  readonly hEnd: Int32Array;
+  readonly ends = new Int32Array(4);
+  constructor(
+    readonly NX: number,
+    readonly NY: number,
+  ) {
+    this.lo = new Float64Array(NX).fill(-Infinity);
+    this.hi = new Float64Array(NX).fill(-Infinity);
+    this.sLo = new Uint8Array(NX);
+    this.sHi = new Uint8Array(NX);
+    this.hLo = new Int32Array(NX - 1);
+    this.hHi = new Int32Array(NX - 1);
+    this.vRow = new Int32Array(NX);
+    this.hStart = new Int32Array(NY);
+    this.hEnd = new Int32Array(NY);
+  }
+}
+
+/** march's cell row j: the crossings of lattice row j + 1 and of the row's vertical edges, and their links. */
+function marchRow(
+  grid: DensityGrid,
+  lat: GridLattice,
+  L: number,
+  rule: SaddleRule,
+  j: number,
+  xs: Float64Array,
+  ys: Float64Array,
+  st: Store,
+  w: RowPair,
+): void {
+  const { NX, NY, lo, hi, sLo, sHi, hLo, hHi, vRow, hStart, hEnd, ends } = w;
+  // lattice row j + 1: the outermost row (NY − 1) is void, others carry grid row y.sample[j]
+  const r = j + 1;
+  let any = 0;
+  if (r === NY - 1) {
+    hi.fill(-Infinity);
+    sHi.fill(0);
+  } else {
+    fillRow(grid, lat.x.sample, lat.y.sample[r - 1], hi, 1);
+    hi[0] = -Infinity;
+    hi[NX - 1] = -Infinity;
+    for (let i = 0; i < NX; i++) {
+      const s = hi[i] >= L ? 1 : 0;
+      sHi[i] = s;
+      any |= s;
+    }
+  }
+  // crossings on the horizontal edges of row r, left to right
+  hStart[r] = st.n;
+  if (any) {
+    const yr = ys[r];
+    for (let i = 0; i < NX - 1; i++) {
+      const a = sHi[i];
+      if (a === sHi[i + 1]) continue;
+      const s = a ? i : i + 1;
+      const q = a ? i + 1 : i;
+      const t = crossing(hi[s], hi[q], L);
+      hHi[i] = st.add(xs[s] + t * (xs[q] - xs[s]), yr, 2 * i + a);
+    }
+  }
+  hEnd[r] = st.n;
+  // crossings on the vertical edges of cell row j
+  let cross = hEnd[r] > hStart[r] || hEnd[j] > hStart[j];
+  for (let i = 0; i < NX; i++) {
+    const a = sLo[i];
+    if (a === sHi[i]) continue;
+    cross = true;
+    let t: number;
+    let y: number;
+    if (a) {
+      t = crossing(lo[i], hi[i], L);
+      y = ys[j] + t * (ys[r] - ys[j]);
+    } else {
+      t = crossing(hi[i], lo[i], L);
+      y = ys[r] + t * (ys[j] - ys[r]);
+    }
+    vRow[i] = st.add(xs[i], y, -1);
+  }
+  if (cross) {
+    const next = st.next;
+    for (let i = 0; i < NX - 1; i++) {
+      const c = sLo[i] | (sLo[i + 1] << 1) | (sHi[i + 1] << 2) | (sHi[i] << 3);
+      if (c === 0 || c === 15) continue;
+      ends[0] = hLo[i];
+      ends[1] = vRow[i + 1];
+      ends[2] = hHi[i];
+      ends[3] = vRow[i];
+      if (c === 5) {
+        // bottom-left and top-right solid
+        if (joinsSolid(lo[i], hi[i + 1], lo[i + 1], hi[i], L, rule)) {
+          next[ends[0]] = ends[1];
+          next[ends[2]] = ends[3];
+        } else {
+          next[ends[0]] = ends[3];
+          next[ends[2]] = ends[1];
+        }
+      } else if (c === 10) {
+        // bottom-right and top-left solid
+        if (joinsSolid(lo[i + 1], hi[i], lo[i], hi[i + 1], L, rule)) {
+          next[ends[1]] = ends[2];
+          next[ends[3]] = ends[0];
+        } else {
+          next[ends[1]] = ends[0];
+          next[ends[3]] = ends[2];
+        }
+      } else {
+        next[ends[EXIT_EDGE[c]]] = ends[ENTRY_EDGE[c]];
+      }
+    }
+  }
+  w.lo = hi;
+  w.hi = lo;
+  w.sLo = sHi;
+  w.sHi = sLo;
+  w.hLo = hHi;
+  w.hHi = hLo;
 }
