@@ -3,7 +3,7 @@
  * the segment grid, so that V8 optimizes them as ordinary functions early instead of running one long call in
  * the interpreter (every double boxed; docs/performance.md, "Cold code"). Same tests in the same order.
  */
-import { orient, segmentsIntersect } from '../geom/segments.js';
+import { type SegmentGrid, orient, segmentsIntersect } from '../geom/segments.js';
 import { hypot } from '../geom/portable-math.js';
 
 const RUN = 1024;
@@ -62,4 +62,47 @@ export function bucketPairs(
 export function foldsBack(ax: number, ay: number, vx: number, vy: number, bx: number, by: number): boolean {
   if (orient(ax, ay, vx, vy, bx, by) !== 0) return false;
   return (ax - vx) * (bx - vx) + (ay - vy) * (by - vy) > 0;
+}
+
+/**
+ * Winding number at (px, py) of the segments of every ring but r, from the ray towards +x (each crossing
+ * counted once, in the grid column that holds its x): out[0] all of them, out[1] those of ring `own`.
+ */
+export function rayWinding(
+  grid: SegmentGrid,
+  x0: Float64Array,
+  y0: Float64Array,
+  x1: Float64Array,
+  y1: Float64Array,
+  ring: Int32Array,
+  r: number,
+  own: number,
+  px: number,
+  py: number,
+  out: Int32Array,
+): void {
+  let total = 0, fromOwner = 0;
+  const row = grid.row(py);
+  for (let c = grid.col(px); c < grid.cols; c++) {
+    const cell = row * grid.cols + c;
+    for (let p = grid.cellStart[cell]; p < grid.cellStart[cell + 1]; p++) {
+      const s = grid.items[p];
+      if (ring[s] === r) continue;
+      const up = y0[s] <= py && py < y1[s];
+      const down = y1[s] <= py && py < y0[s];
+      if (!up && !down) continue;
+      const xc = x0[s] + ((py - y0[s]) * (x1[s] - x0[s])) / (y1[s] - y0[s]);
+      if (!(xc > px)) continue;
+      // count each crossing once: in the column that holds its x (within the segment's own columns)
+      const lo = grid.col(Math.min(x0[s], x1[s])), hi = grid.col(Math.max(x0[s], x1[s]));
+      let cc = grid.col(xc);
+      cc = cc < lo ? lo : cc > hi ? hi : cc;
+      if (cc !== c) continue;
+      const w = up ? 1 : -1;
+      total += w;
+      if (ring[s] === own) fromOwner += w;
+    }
+  }
+  out[0] = total;
+  out[1] = fromOwner;
 }

@@ -7,7 +7,7 @@
 import { type FlatRings, SegmentGrid } from '../geom/segments.js';
 import { flatRingArea } from '../geom/area.js';
 import { ringSegments } from './deviation.js';
-import { bucketPairs, totalLength } from './validate-cells.js';
+import { bucketPairs, rayWinding, totalLength } from './validate-cells.js';
 import type { SmoothScratch } from './scratch.js';
 
 /** What each ring is: hole[r] ≠ 0 for holes; owner[r] = index of the outer ring of hole r (−1 for outers). */
@@ -59,32 +59,13 @@ export function validateRings(rings: FlatRings, roles: RingRoles, scratch?: Smoo
     if (p1 - p0 > 1) problems += bucketPairs(x0, y0, x1, y1, ring, start, grid.items, p0, p1, segmentHit);
   }
   // nesting: winding number of all other rings at the first vertex of each ring
+  const winding = new Int32Array(2);
   for (let r = 0; r < nRings; r++) {
     if (start[r + 1] - start[r] < 1) continue;
     const px = xy[2 * start[r]], py = xy[2 * start[r] + 1];
     const own = roles.hole[r] ? roles.owner[r] : -1;
-    let total = 0, fromOwner = 0;
-    const row = grid.row(py);
-    for (let c = grid.col(px); c < grid.cols; c++) {
-      const cell = row * grid.cols + c;
-      for (let p = grid.cellStart[cell]; p < grid.cellStart[cell + 1]; p++) {
-        const s = grid.items[p];
-        if (ring[s] === r) continue;
-        const up = y0[s] <= py && py < y1[s];
-        const down = y1[s] <= py && py < y0[s];
-        if (!up && !down) continue;
-        const xc = x0[s] + ((py - y0[s]) * (x1[s] - x0[s])) / (y1[s] - y0[s]);
-        if (!(xc > px)) continue;
-        // count each crossing once: in the column that holds its x (within the segment's own columns)
-        const lo = grid.col(Math.min(x0[s], x1[s])), hi = grid.col(Math.max(x0[s], x1[s]));
-        let cc = grid.col(xc);
-        cc = cc < lo ? lo : cc > hi ? hi : cc;
-        if (cc !== c) continue;
-        const w = up ? 1 : -1;
-        total += w;
-        if (ring[s] === own) fromOwner += w;
-      }
-    }
+    rayWinding(grid, x0, y0, x1, y1, ring, r, own, px, py, winding);
+    const total = winding[0], fromOwner = winding[1];
     const ok = roles.hole[r] ? total === 1 && fromOwner === 1 : total === 0;
     if (!ok) {
       if (!ringHit[r]) {
