@@ -1,29 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { bandCellBound, cellRangeHistogram, packBand } from '../../src/contour/index.js';
 import type { DensityGrid } from '../../src/types.js';
-import { makeGrid, rng, smoothField } from './grids.js';
+import { latticeCellCorners, makeGrid, rng, smoothField } from './grids.js';
 
 /**
- * Cells of the area lattice whose corner range meets [lo, hi], counted straight from the definition in
- * docs/contour.md: cell-centred samples with the edge samples repeated on the domain edges (zero-gradient
- * extension), nodal samples as they are; NaN counts as −∞. Independent of src/contour's row streaming.
+ * Cells of the area lattice whose corner range meets [lo, hi], from their corners as docs/contour.md defines them
+ * (latticeCellCorners): independent of src/contour's row streaming.
  */
 function countMeeting(g: DensityGrid, lo: number, hi: number): number {
-  const axis = (n: number) => (g.placement === 'nodes' ? Array.from({ length: n }, (_, k) => k) : [0, ...Array.from({ length: n }, (_, k) => k), n - 1]);
-  const xs = axis(g.nx);
-  const ys = axis(g.ny);
-  const at = (i: number, j: number) => {
-    const v = g.values[ys[j] * g.nx + xs[i]];
-    return Number.isNaN(v) ? -Infinity : v;
-  };
-  let n = 0;
-  for (let j = 0; j + 1 < ys.length; j++) {
-    for (let i = 0; i + 1 < xs.length; i++) {
-      const c = [at(i, j), at(i + 1, j), at(i, j + 1), at(i + 1, j + 1)];
-      if (!(Math.min(...c) >= hi) && !(Math.max(...c) < lo)) n++;
-    }
-  }
-  return n;
+  return latticeCellCorners(g).filter((c) => !(Math.min(...c) >= hi) && !(Math.max(...c) < lo)).length;
 }
 
 function withNaN(g: DensityGrid, every: number): DensityGrid {

@@ -54,3 +54,24 @@ export function smoothField(nx: number, ny: number, seed: number, passes = 4, vo
       if (i < voidBorder || j < voidBorder || i >= nx - voidBorder || j >= ny - voidBorder) v[j * nx + i] = 0;
   return { nx, ny, cellSize: [1, 1], origin: [0, 0], values: v, placement: 'cells' };
 }
+
+/**
+ * The corner values of every cell of a grid's area lattice, counted straight from the definition in
+ * docs/contour.md: cell-centred samples with the edge samples repeated on the domain edges (zero-gradient
+ * extension), nodal samples as they are; NaN counts as −∞. Independent of src/contour's row streaming; for the
+ * small grids of the tests.
+ */
+export function latticeCellCorners(g: DensityGrid): number[][] {
+  const axis = (n: number) => (g.placement === 'nodes' ? Array.from({ length: n }, (_, k) => k) : [0, ...Array.from({ length: n }, (_, k) => k), n - 1]);
+  const xs = axis(g.nx);
+  const ys = axis(g.ny);
+  const at = (i: number, j: number) => {
+    const v = g.values[ys[j] * g.nx + xs[i]];
+    return Number.isNaN(v) ? -Infinity : v;
+  };
+  const cells: number[][] = [];
+  for (let j = 0; j + 1 < ys.length; j++) {
+    for (let i = 0; i + 1 < xs.length; i++) cells.push([at(i, j), at(i + 1, j), at(i, j + 1), at(i + 1, j + 1)]);
+  }
+  return cells;
+}

@@ -3,25 +3,11 @@ import { ContourScratch, contourFlat, type FlatPolygonSet } from '../../src/cont
 import { gridLattice } from '../../src/contour/lattice.js';
 import { crossingBound, march } from '../../src/contour/march.js';
 import type { DensityGrid } from '../../src/types.js';
-import { makeGrid, smoothField } from './grids.js';
+import { latticeCellCorners, makeGrid, smoothField } from './grids.js';
 
 /** Cells of the area lattice that straddle L (min < L ≤ max), NaN as −∞; counted from docs/contour.md's definition. */
 function straddling(g: DensityGrid, L: number): number {
-  const axis = (n: number) => (g.placement === 'nodes' ? Array.from({ length: n }, (_, k) => k) : [0, ...Array.from({ length: n }, (_, k) => k), n - 1]);
-  const xs = axis(g.nx);
-  const ys = axis(g.ny);
-  const at = (i: number, j: number) => {
-    const v = g.values[ys[j] * g.nx + xs[i]];
-    return Number.isNaN(v) ? -Infinity : v;
-  };
-  let n = 0;
-  for (let j = 0; j + 1 < ys.length; j++) {
-    for (let i = 0; i + 1 < xs.length; i++) {
-      const c = [at(i, j), at(i + 1, j), at(i, j + 1), at(i + 1, j + 1)];
-      if (Math.min(...c) < L && Math.max(...c) >= L) n++;
-    }
-  }
-  return n;
+  return latticeCellCorners(g).filter((c) => Math.min(...c) < L && Math.max(...c) >= L).length;
 }
 
 function snapshot(f: FlatPolygonSet) {
