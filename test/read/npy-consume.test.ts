@@ -9,32 +9,9 @@ import { loadGrid } from '../../src/input.js';
 import { npyInPlaceBytes, readNpy, readNpyWith } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
 import { resolveSettings } from '../../src/settings.js';
+import { expectedGrid, load, manifest, type OkEntry } from './npy-manifest.js';
 
-interface OkEntry {
-  file: string;
-  descr: string;
-  fortran: boolean;
-  rows: number;
-  cols: number;
-  dataOffset: number;
-  values: (number | string)[];
-}
-
-const DIR = new URL('../../fixtures/npy/', import.meta.url);
-const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { ok: OkEntry[] };
-const load = (file: string): Uint8Array => new Uint8Array(readFileSync(new URL(file, DIR)));
-const num = (v: number | string): number => (typeof v === 'number' ? v : Number(v));
 const opts = (o: Partial<ReadOptions> = {}): ReadOptions => ({ ...DEFAULT_READ_OPTIONS, ...o });
-
-/** numpy's row-major values (top row first) in grid order. */
-function expectedGrid(e: OkEntry, topDown: boolean): number[] {
-  const out = new Array<number>(e.rows * e.cols);
-  for (let r = 0; r < e.rows; r++) {
-    const j = topDown ? e.rows - 1 - r : r;
-    for (let c = 0; c < e.cols; c++) out[j * e.cols + c] = num(e.values[r * e.cols + c]);
-  }
-  return out;
-}
 
 /** Little-endian f8 in C order at an 8-byte aligned offset: the case read in place. */
 const inPlaceCase = (e: OkEntry): boolean => e.descr === '<f8' && !e.fortran && e.dataOffset % 8 === 0;

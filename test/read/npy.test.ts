@@ -3,47 +3,11 @@
  * in both byte orders, C and Fortran order, format versions 1.0/2.0/3.0, and special layouts.
  * Expected values, data offsets and strides are what numpy reports when it reads the same files back.
  */
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { readNpy, readNpyWith } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
+import { expectedGrid, load, manifest, type OkEntry } from './npy-manifest.js';
 
-interface OkEntry {
-  file: string;
-  descr: string;
-  version: [number, number];
-  fortran: boolean;
-  shape: number[];
-  rows: number;
-  cols: number;
-  dataOffset: number;
-  strides: [number, number];
-  values: (number | string)[];
-  note?: string;
-}
-
-const DIR = new URL('../../fixtures/npy/', import.meta.url);
-interface PairEntry {
-  c: string;
-  f: string;
-  rows: number;
-  cols: number;
-  corners: [number, number, number, number];
-}
-
-const manifest = JSON.parse(readFileSync(new URL('manifest.json', DIR), 'utf8')) as { ok: OkEntry[]; pairs: PairEntry[] };
-const load = (file: string): Uint8Array => new Uint8Array(readFileSync(new URL(file, DIR)));
-const num = (v: number | string): number => (typeof v === 'number' ? v : Number(v)); // 'NaN', 'Infinity', '-Infinity'
-
-/** numpy's row-major values (top row first) placed in grid order: array row r → grid row j. */
-function expectedGrid(e: OkEntry, topDown: boolean): number[] {
-  const out = new Array<number>(e.rows * e.cols);
-  for (let r = 0; r < e.rows; r++) {
-    const j = topDown ? e.rows - 1 - r : r;
-    for (let c = 0; c < e.cols; c++) out[j * e.cols + c] = num(e.values[r * e.cols + c]);
-  }
-  return out;
-}
 
 const opts = (o: Partial<ReadOptions> = {}): ReadOptions => ({ ...DEFAULT_READ_OPTIONS, ...o });
 
