@@ -8,7 +8,6 @@ import { readNpy, readNpyWith } from '../../src/read/npy.js';
 import { DEFAULT_READ_OPTIONS, type ReadOptions } from '../../src/read/types.js';
 import { expectedGrid, load, manifest, type OkEntry } from './npy-manifest.js';
 
-
 const opts = (o: Partial<ReadOptions> = {}): ReadOptions => ({ ...DEFAULT_READ_OPTIONS, ...o });
 
 describe('readNpy: the dtype × byte order × memory order × version matrix written by numpy 2.4', () => {
