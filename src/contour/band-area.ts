@@ -28,11 +28,10 @@ function bandAreaRun(buf: Float64Array, k0: number, k1: number, level: number, s
   for (let k = k0; k < k1; k++) {
     const o = BAND_STRIDE * k;
     if (buf[o + 6] >= level) a += buf[o + 4] * buf[o + 5];
-    else if (buf[o + 7] < level) a += 0;
-    else {
+    else if (buf[o + 7] >= level) {
       cellPolyAreaAt(buf, o, level, saddle);
       a += CELL_AREA[0];
-    }
+    } // else empty at this level: adds nothing (a starts at a non-negative base, never −0)
   }
   SUM[0] = a;
 }
@@ -43,11 +42,10 @@ function bandAreaOfRun(buf: Float64Array, index: Int32Array, k0: number, k1: num
   for (let k = k0; k < k1; k++) {
     const o = BAND_STRIDE * index[k];
     if (buf[o + 6] >= level) a += buf[o + 4] * buf[o + 5];
-    else if (buf[o + 7] < level) a += 0;
-    else {
+    else if (buf[o + 7] >= level) {
       cellPolyAreaAt(buf, o, level, saddle);
       a += CELL_AREA[0];
-    }
+    } // else empty at this level: adds nothing (a starts at a non-negative base, never −0)
   }
   SUM[0] = a;
 }
